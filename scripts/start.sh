@@ -1,0 +1,122 @@
+#!/usr/bin/env bash
+# npm start: everything needed to run the Trailbin demo on this machine, from nothing.
+#   Debian packages (MariaDB) -> node_modules -> private MariaDB in .data/demo on 127.0.0.1:33061
+#   -> database "trailbin" + user from .env.local (made on first run) -> migrations + seed
+#   -> next build (only when sources changed) -> next start on http://127.0.0.1:3000
+# Then waits; Ctrl-C (or SIGTERM) stops the app, then MariaDB, and prints "Stopped.".
+#
+# Overrides: PORT (app, default 3000), DB_PORT (MariaDB, default DB_PORT in .env.local, else 33061).
+# The data stays in .data/demo between runs; delete that folder (and .env.local) to start afresh.
+set -euo pipefail
+
+source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
+source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
+source "$TRAILBIN_ROOT/scripts/lib/app.sh"
+cd "$TRAILBIN_ROOT"
+
+DEMO_DIR=$TRAILBIN_ROOT/.data/demo
+ENV_FILE=$TRAILBIN_ROOT/.env.local
+APP_PORT=${PORT:-3000}
+APP_URL=http://127.0.0.1:$APP_PORT
+NEXT_PIDFILE=$DEMO_DIR/next.pid
+NEXT_LOG=$DEMO_DIR/next.log
+MDB_PID=
+NEXT_PID=
+
+# take_start_lock : one demo per checkout. The lock lives on fd 9 for the life of this script (the
+# kernel drops it when we exit, however we exit); servers are started with 9>&- so they never hold it.
+take_start_lock() {
+  mkdir -p "$DEMO_DIR"
+  exec 9>"$DEMO_DIR/start.lock"
+  if ! flock -n 9; then
+    local pid url
+    pid=$(sed -n 1p "$DEMO_DIR/start.pid" 2>/dev/null) || true
+    url=$(sed -n 2p "$DEMO_DIR/start.pid" 2>/dev/null) || true
+    printf 'Trailbin is already running at %s (pid %s); stop it with Ctrl-C in its terminal\n' \
+      "${url:-$APP_URL}" "${pid:-unknown}" >&2
+    exit 1
+  fi
+  printf '%s\n%s\n' "$$" "$APP_URL" >"$DEMO_DIR/start.pid"
+}
+
+# load_demo_env : credentials live in .env.local (git-ignored; Next reads it too). Made on the
+# first run with a random password, reused afterwards; keys a person deleted are added back.
+load_demo_env() {
+  local password
+  password=$(env_file_get "$ENV_FILE" DB_PASSWORD)
+  [[ -n $password ]] || password=$(random_secret)
+  env_file_set "$ENV_FILE" DB_HOST 127.0.0.1
+  env_file_set "$ENV_FILE" DB_PORT 33061
+  env_file_set "$ENV_FILE" DB_NAME trailbin
+  env_file_set "$ENV_FILE" DB_USER trailbin
+  env_file_set "$ENV_FILE" DB_PASSWORD "$password"
+
+  # Our server binds 127.0.0.1 only, so the host is not configurable.
+  DB_HOST=127.0.0.1
+  DB_PORT=${DB_PORT:-$(env_file_get "$ENV_FILE" DB_PORT)}
+  DB_NAME=$(env_file_get "$ENV_FILE" DB_NAME)
+  DB_USER=$(env_file_get "$ENV_FILE" DB_USER)
+  DB_PASSWORD=$(env_file_get "$ENV_FILE" DB_PASSWORD)
+  export DB_HOST DB_PORT DB_NAME DB_USER DB_PASSWORD
+}
+
+shutdown() {
+  trap - INT TERM EXIT
+  next_stop
+  rm -f "$NEXT_PIDFILE"
+  mariadb_stop
+  rm -f "$DEMO_DIR/start.pid"
+  echo "Stopped."
+}
+
+on_signal() {
+  echo
+  shutdown
+  exit 0
+}
+
+print_welcome() {
+  echo
+  echo "Trailbin is running at $APP_URL"
+  if [[ -f scripts/demo-accounts.ts ]]; then
+    node --import tsx scripts/demo-accounts.ts || warn "could not list the demo accounts"
+  fi
+  echo "Press Ctrl-C to stop."
+}
+
+main() {
+  take_start_lock
+  ensure_debian_packages
+  ensure_node_modules
+  load_demo_env
+
+  # From here on anything we started is stopped however the script ends.
+  trap on_signal INT TERM
+  trap 'rc=$?; shutdown; exit $rc' EXIT
+
+  next_stop_stale "$NEXT_PIDFILE"
+  # Check both ports before starting anything, so a clash costs nothing.
+  require_free_port "$APP_PORT" "the web app (set PORT to use another)"
+  mariadb_configure "$DEMO_DIR" "$DB_PORT"
+  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "MariaDB (set DB_PORT to use another)"; fi
+
+  mariadb_init
+  mariadb_start
+  mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
+  migrate_and_seed
+
+  export NEXT_DIST_DIR=.next
+  build_if_needed
+  NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
+  print_welcome
+
+  # wait returns when a trapped signal arrives (the trap then runs) or when the app exits by itself.
+  local rc=0
+  wait "$NEXT_PID" || rc=$?
+  warn "the app exited on its own (status $rc); its log is $NEXT_LOG"
+  tail -n 30 "$NEXT_LOG" >&2 || true
+  NEXT_PID=
+  exit 1
+}
+
+main "$@"

@@ -1,0 +1,155 @@
+#!/usr/bin/env bash
+# npm test: every test suite, with every service it needs, from nothing; nothing is left running.
+#   Debian packages (MariaDB, Chromium) -> node_modules -> unit suite (no services)
+#   -> private MariaDB in .data/test on 127.0.0.1:33062 -> fresh database "trailbin_test"
+#   -> migrations + seed -> next build into .next-test (only when sources changed; always in CI)
+#   -> next start on http://127.0.0.1:3001 -> integration + browser suites.
+# Ends with one line "N passed, N failed" (all suites together); exits non-zero if anything failed.
+#
+# Never disturbs a running npm start: other datadir, ports, database and build folder.
+# Settings (environment):
+#   TEST_SUITES   which suites to run, comma or space separated: unit,integration,browser (default all)
+#   TEST_PORT     app port (default 3001)        TEST_DB_PORT  MariaDB port (default 33062)
+# The suites see APP_URL, DB_HOST, DB_PORT, DB_NAME, DB_USER, DB_PASSWORD and CHROMIUM_PATH.
+set -euo pipefail
+
+source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
+source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
+source "$TRAILBIN_ROOT/scripts/lib/app.sh"
+cd "$TRAILBIN_ROOT"
+
+TEST_DIR=$TRAILBIN_ROOT/.data/test
+ENV_FILE=$TEST_DIR/env
+APP_PORT=${TEST_PORT:-3001}
+DB_PORT_TEST=${TEST_DB_PORT:-33062}
+NEXT_PIDFILE=$TEST_DIR/next.pid
+NEXT_LOG=$TEST_DIR/next.log
+MDB_PID=
+NEXT_PID=
+TOTAL_PASSED=0
+TOTAL_FAILED=0
+ANY_FAILED=0
+
+# Which suites to run.
+SUITES=" $(printf '%s' "${TEST_SUITES:-unit,integration,browser}" | tr ',' ' ') "
+for s in $SUITES; do
+  case $s in unit | integration | browser) ;; *) die "TEST_SUITES: unknown suite '$s' (use unit, integration, browser)" ;; esac
+done
+wants() { [[ $SUITES == *" $1 "* ]]; }
+wants_services() { wants integration || wants browser; }
+
+take_test_lock() {
+  mkdir -p "$TEST_DIR"
+  exec 9>"$TEST_DIR/test.lock"
+  if ! flock -n 9; then
+    printf 'Another npm test is already running in this checkout (pid %s); wait for it to finish.\n' \
+      "$(cat "$TEST_DIR/test.pid" 2>/dev/null || echo unknown)" >&2
+    exit 1
+  fi
+  printf '%s\n' "$$" >"$TEST_DIR/test.pid"
+}
+
+# load_test_env : test credentials live in .data/test/env (git-ignored), made once, reused.
+load_test_env() {
+  local password
+  password=$(env_file_get "$ENV_FILE" DB_PASSWORD)
+  [[ -n $password ]] || password=$(random_secret)
+  env_file_set "$ENV_FILE" DB_PASSWORD "$password"
+  DB_HOST=127.0.0.1
+  DB_PORT=$DB_PORT_TEST
+  DB_NAME=trailbin_test
+  DB_USER=trailbin
+  DB_PASSWORD=$password
+  export DB_HOST DB_PORT DB_NAME DB_USER DB_PASSWORD
+}
+
+cleanup() {
+  next_stop
+  rm -f "$NEXT_PIDFILE"
+  mariadb_stop
+  rm -f "$TEST_DIR/test.pid"
+}
+
+# run_vitest NAME ARGS... : one vitest run with a JSON report, whose counts are added to the totals.
+# A failed run with no failed test case (a file that does not import, an unhandled error) still
+# counts as a failure, so the closing line never says "0 failed" for a red run.
+run_vitest() {
+  local name=$1 report=$TEST_DIR/results-$1.json rc=0
+  shift
+  rm -f "$report"
+  log "running the $name suite"
+  node node_modules/vitest/vitest.mjs run "$@" --passWithNoTests \
+    --reporter=default --reporter=json --outputFile="$report" </dev/null || rc=$?
+  local counts passed=0 failed=0 failed_files=0
+  if [[ -f $report ]]; then
+    counts=$(node -e '
+      const r = JSON.parse(require("fs").readFileSync(process.argv[1], "utf8"));
+      console.log([r.numPassedTests || 0, r.numFailedTests || 0, r.numFailedTestSuites || 0].join(" "));
+    ' "$report") || counts="0 0 0"
+    read -r passed failed failed_files <<<"$counts"
+  fi
+  if ((rc != 0)); then
+    ANY_FAILED=1
+    if ((failed == 0)); then failed=$((failed_files > 0 ? failed_files : 1)); fi
+    warn "the $name suite failed (vitest exit status $rc)"
+  fi
+  TOTAL_PASSED=$((TOTAL_PASSED + passed))
+  TOTAL_FAILED=$((TOTAL_FAILED + failed))
+}
+
+# start_services : everything the integration and browser suites talk to.
+start_services() {
+  next_stop_stale "$NEXT_PIDFILE"
+  require_free_port "$APP_PORT" "the test app (set TEST_PORT to use another)"
+  mariadb_configure "$TEST_DIR" "$DB_PORT"
+  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "the test MariaDB (set TEST_DB_PORT to use another)"; fi
+  mariadb_init
+  mariadb_start
+  mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate
+  migrate_and_seed
+  export NEXT_DIST_DIR=.next-test
+  build_if_needed
+  NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
+}
+
+# on_exit : whatever happened, stop the services and print the closing line. A run that stops
+# early (a build error, say, or Ctrl-C) counts as one more failure, so the line matches the exit code.
+on_exit() {
+  local rc=$1
+  trap - EXIT INT TERM
+  cleanup
+  if ((rc != 0 && ANY_FAILED == 0)); then
+    TOTAL_FAILED=$((TOTAL_FAILED + 1))
+    warn "the test run stopped early (status $rc)"
+  fi
+  printf '%s passed, %s failed\n' "$TOTAL_PASSED" "$TOTAL_FAILED"
+  exit "$rc"
+}
+
+main() {
+  take_test_lock
+  trap 'on_exit $?' EXIT
+  trap 'exit 130' INT
+  trap 'exit 143' TERM
+
+  if wants browser; then ensure_debian_packages chromium; else ensure_debian_packages; fi
+  ensure_node_modules
+  export CHROMIUM_PATH=/usr/bin/chromium
+
+  if wants unit; then run_vitest unit --project unit; fi
+
+  if wants_services; then
+    load_test_env
+    local projects=() name=""
+    for s in integration browser; do
+      if wants "$s"; then projects+=(--project "$s"); name=${name:+$name-}$s; fi
+    done
+    start_services
+    APP_URL=http://127.0.0.1:$APP_PORT run_vitest "$name" "${projects[@]}"
+  fi
+
+  if ((ANY_FAILED)); then exit 1; fi
+  exit 0
+}
+
+main "$@"

@@ -1,0 +1,15 @@
+import { redirect } from "next/navigation";
+import { NavBar } from "@/components/NavBar";
+import { currentUser } from "@/lib/auth/guard";
+
+// The shell only needs to know who is signed in; each page checks its own permission.
+export default async function AppLayout({ children }: { children: React.ReactNode }) {
+  const user = await currentUser();
+  if (!user) redirect("/sign-in");
+  return (
+    <>
+      <NavBar user={user} />
+      <main className="mx-auto max-w-6xl px-4 py-6">{children}</main>
+    </>
+  );
+}

@@ -1,0 +1,51 @@
+import "server-only";
+import { db } from "./knex";
+
+export type AuditEvent =
+  | "sign_in.success"
+  | "sign_in.failure"
+  | "sign_in.throttled"
+  | "sign_out"
+  | "session.expired"
+  | "access.denied"
+  | "origin.refused"
+  | "user.created"
+  | "user.changed";
+
+export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
+
+export async function audit(entry: AuditEntry): Promise<void> {
+  await db()("audit_log").insert({
+    event: entry.event,
+    actor_user_id: entry.actorUserId ?? null,
+    subject: entry.subject?.slice(0, 254) ?? null,
+    ip: entry.ip?.slice(0, 64) ?? null,
+    detail: entry.detail === undefined ? null : JSON.stringify(entry.detail),
+  });
+}
+
+/** Failures in the window, oldest first: the throttle needs the count and when the oldest one ages out. */
+export async function recentFailures(by: "subject" | "ip", key: string, since: Date): Promise<Date[]> {
+  const rows = await db()("audit_log")
+    .select("at")
+    .where({ event: "sign_in.failure", [by]: key })
+    .andWhere("at", ">", since)
+    .orderBy("at", "asc");
+  return rows.map((r: { at: Date }) => r.at);
+}
+
+export type AuditDTO = { id: number; at: string; event: string; actorUserId: string | null; subject: string | null; ip: string | null };
+
+export async function latestAudit(limit: number, event?: AuditEvent): Promise<AuditDTO[]> {
+  const q = db()("audit_log").orderBy("id", "desc").limit(limit);
+  if (event) q.where({ event });
+  const rows = await q;
+  return rows.map((r: { id: number; at: Date; event: string; actor_user_id: string | null; subject: string | null; ip: string | null }) => ({
+    id: Number(r.id),
+    at: r.at.toISOString(),
+    event: r.event,
+    actorUserId: r.actor_user_id,
+    subject: r.subject,
+    ip: r.ip,
+  }));
+}

@@ -1,0 +1,9 @@
+import "server-only";
+import { db } from "./knex";
+
+export type SiteDTO = { id: number; code: string; name: string; timezone: string };
+
+export async function getSite(id: number): Promise<SiteDTO | null> {
+  const r = await db()("sites").where({ id }).first();
+  return r ? { id: r.id, code: r.code, name: r.name, timezone: r.timezone } : null;
+}

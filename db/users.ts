@@ -1,0 +1,129 @@
+import "server-only";
+import { db } from "./knex";
+import type { Role } from "@/lib/auth/permissions";
+
+export type UserDTO = {
+  id: string;
+  siteId: number;
+  email: string;
+  displayName: string;
+  role: Role;
+  disabled: boolean;
+  lastSignInAt: string | null;
+  createdAt: string;
+  version: number;
+};
+
+type UserRow = {
+  id: string;
+  site_id: number;
+  email: string;
+  display_name: string;
+  role: Role;
+  password_hash: string | null;
+  disabled_at: Date | null;
+  last_sign_in_at: Date | null;
+  created_at: Date;
+  version: number;
+};
+
+const iso = (d: Date | null) => (d ? d.toISOString() : null);
+
+function toDTO(r: UserRow): UserDTO {
+  return {
+    id: r.id,
+    siteId: r.site_id,
+    email: r.email,
+    displayName: r.display_name,
+    role: r.role,
+    disabled: r.disabled_at !== null,
+    lastSignInAt: iso(r.last_sign_in_at),
+    createdAt: r.created_at.toISOString(),
+    version: r.version,
+  };
+}
+
+/** The collation is case-insensitive, but the UNIQUE index and the throttle key both want one spelling. */
+export function normaliseEmail(email: string): string {
+  return email.trim().toLowerCase();
+}
+
+export async function findUserForSignIn(email: string): Promise<(UserDTO & { passwordHash: string | null }) | null> {
+  const row = await db()<UserRow>("users").where({ email: normaliseEmail(email) }).first();
+  return row ? { ...toDTO(row), passwordHash: row.password_hash } : null;
+}
+
+export async function getUser(id: string): Promise<UserDTO | null> {
+  const row = await db()<UserRow>("users").where({ id }).first();
+  return row ? toDTO(row) : null;
+}
+
+export async function listUsers(siteId: number): Promise<UserDTO[]> {
+  const rows = await db()<UserRow>("users").where({ site_id: siteId }).orderBy([{ column: "role" }, { column: "email" }]);
+  return rows.map(toDTO);
+}
+
+export class DuplicateEmailError extends Error {}
+
+export async function createUser(input: {
+  id: string;
+  siteId: number;
+  email: string;
+  displayName: string;
+  role: Role;
+  passwordHash: string | null;
+}): Promise<UserDTO> {
+  try {
+    await db()("users").insert({
+      id: input.id,
+      site_id: input.siteId,
+      email: normaliseEmail(input.email),
+      display_name: input.displayName.trim(),
+      role: input.role,
+      password_hash: input.passwordHash,
+    });
+  } catch (e) {
+    if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new DuplicateEmailError(input.email);
+    throw e;
+  }
+  const created = await getUser(input.id);
+  if (!created) throw new Error("user vanished after insert");
+  return created;
+}
+
+export type UserChange = { role?: Role; disabled?: boolean; displayName?: string };
+
+/**
+ * Optimistic update: returns null when `version` is stale (someone else changed the user first).
+ * Role changes and disabling end every session of the user in the same transaction, so a demoted
+ * or disabled account cannot keep using a cookie it already holds.
+ */
+export async function updateUser(id: string, version: number, change: UserChange): Promise<UserDTO | null> {
+  return db().transaction(async (trx) => {
+    const current = await trx<UserRow>("users").where({ id }).forUpdate().first();
+    if (!current || current.version !== version) return null;
+    const patch: Record<string, unknown> = { version: version + 1, updated_at: trx.fn.now(3) };
+    if (change.role !== undefined) patch.role = change.role;
+    if (change.displayName !== undefined) patch.display_name = change.displayName.trim();
+    if (change.disabled !== undefined) patch.disabled_at = change.disabled ? (current.disabled_at ?? new Date()) : null;
+    await trx("users").where({ id }).update(patch);
+    const roleChanged = change.role !== undefined && change.role !== current.role;
+    const disabledNow = change.disabled === true && current.disabled_at === null;
+    if (roleChanged || disabledNow) await trx("sessions").where({ user_id: id }).delete();
+    const row = await trx<UserRow>("users").where({ id }).first();
+    return row ? toDTO(row) : null;
+  });
+}
+
+export async function countActiveAdmins(siteId: number): Promise<number> {
+  const r = await db()("users").where({ site_id: siteId, role: "admin" }).whereNull("disabled_at").count({ n: "*" }).first();
+  return Number(r?.n ?? 0);
+}
+
+export async function recordSignIn(id: string, at: Date): Promise<void> {
+  await db()("users").where({ id }).update({ last_sign_in_at: at });
+}
+
+export async function setPasswordHash(id: string, passwordHash: string): Promise<void> {
+  await db()("users").where({ id }).update({ password_hash: passwordHash, updated_at: db().fn.now(3) });
+}

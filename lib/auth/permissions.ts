@@ -1,0 +1,35 @@
+// The one permission table. Pages, route handlers and server actions ask for a permission, never a
+// role, so changing who may do what is a one-line change here (and the access tests follow it).
+export const ROLES = ["admin", "planner", "picker"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const PERMISSIONS = {
+  "users.manage": ["admin"],
+  "floorplans.read": ["admin", "planner"],
+  "floorplans.edit": ["admin"],
+  "waves.read": ["admin", "planner"],
+  "waves.plan": ["admin", "planner"],
+  "picks.work": ["admin", "picker"],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof PERMISSIONS;
+
+/** "public": anyone; "signed-in": any role; otherwise a permission from the table. */
+export type Access = Permission | "public" | "signed-in";
+
+export function roleMay(role: Role, access: Access): boolean {
+  if (access === "public" || access === "signed-in") return true;
+  return (PERMISSIONS[access] as readonly Role[]).includes(role);
+}
+
+export const ROLE_HOME: Record<Role, string> = {
+  admin: "/floor-plans",
+  planner: "/waves",
+  picker: "/my-batches",
+};
+
+export const ROLE_LABEL: Record<Role, string> = {
+  admin: "Layout admin",
+  planner: "Wave planner",
+  picker: "Picker",
+};

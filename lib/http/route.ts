@@ -1,0 +1,99 @@
+import "server-only";
+import type { z } from "zod";
+import { SESSION_COOKIE } from "@/lib/auth/lucia";
+import { validateSessionId, type SignedInUser } from "@/lib/auth/session";
+import { roleMay, type Access } from "@/lib/auth/permissions";
+import { audit } from "@/db/audit";
+import { clientIp } from "./client-ip";
+import { originAllowed } from "./origin";
+import { HttpError, jsonError } from "./errors";
+import { zodIssues } from "./zod-issues";
+
+const MAX_JSON_BYTES = 256 * 1024;
+
+type Params = Record<string, string | string[] | undefined>;
+
+export type RouteContext<B, A extends Access> = {
+  req: Request;
+  ip: string;
+  params: Params;
+  body: B;
+  user: A extends "public" ? SignedInUser | null : SignedInUser;
+  sessionId: string | null;
+};
+
+type Options<S extends z.ZodType | undefined, A extends Access> = { access: A; body?: S };
+
+function readCookie(req: Request, name: string): string | null {
+  const header = req.headers.get("cookie");
+  if (!header) return null;
+  for (const part of header.split(";")) {
+    const [k, ...v] = part.trim().split("=");
+    if (k === name) return decodeURIComponent(v.join("="));
+  }
+  return null;
+}
+
+async function readJson(req: Request): Promise<unknown> {
+  const length = Number(req.headers.get("content-length") ?? 0);
+  if (length > MAX_JSON_BYTES) throw new HttpError(413, `The request is larger than ${MAX_JSON_BYTES / 1024} KiB.`);
+  const text = await req.text();
+  if (text.length > MAX_JSON_BYTES) throw new HttpError(413, `The request is larger than ${MAX_JSON_BYTES / 1024} KiB.`);
+  if (text.trim() === "") return undefined;
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new HttpError(400, "The request body is not valid JSON.");
+  }
+}
+
+/**
+ * Every route handler goes through here, in this order: Origin (for state changes), session, permission,
+ * body validation, then the handler. Any step that fails answers with a JSON error a person can read.
+ */
+export function route<A extends Access, S extends z.ZodType | undefined = undefined>(
+  opts: Options<S, A>,
+  handler: (ctx: RouteContext<S extends z.ZodType ? z.infer<S> : undefined, A>) => Promise<Response>,
+) {
+  return async (req: Request, context: { params: Promise<Params> }): Promise<Response> => {
+    const ip = clientIp(req.headers);
+    const path = new URL(req.url).pathname;
+    try {
+      if (!originAllowed(req.method, req.headers)) {
+        await audit({ event: "origin.refused", subject: path, ip, detail: { method: req.method, origin: req.headers.get("origin") } });
+        return jsonError(403, "This request did not come from a Trailbin page (missing or foreign Origin). Reload the page and try again.");
+      }
+      const sessionId = readCookie(req, SESSION_COOKIE);
+      const signedIn = sessionId ? await validateSessionId(sessionId) : null;
+      const user = signedIn?.user ?? null;
+      if (opts.access !== "public") {
+        if (!user) return jsonError(401, "Your session has ended or you are not signed in. Sign in and try again.");
+        if (!roleMay(user.role, opts.access)) {
+          await audit({ event: "access.denied", actorUserId: user.id, subject: `${req.method} ${path}`, ip, detail: { access: opts.access } });
+          return jsonError(403, "Your role does not allow this. Ask a layout admin if you need access.");
+        }
+      }
+      let body: unknown = undefined;
+      if (opts.body) {
+        const parsed = opts.body.safeParse(await readJson(req));
+        if (!parsed.success) {
+          return jsonError(400, "Some fields need attention.", { issues: zodIssues(parsed.error) });
+        }
+        body = parsed.data;
+      }
+      return await handler({
+        req,
+        ip,
+        params: (await context.params) ?? {},
+        body: body as S extends z.ZodType ? z.infer<S> : undefined,
+        user: user as RouteContext<unknown, A>["user"],
+        sessionId: signedIn ? sessionId : null,
+      });
+    } catch (e) {
+      if (e instanceof HttpError) return jsonError(e.status, e.message, e.extra);
+      const ref = crypto.randomUUID().slice(0, 8);
+      console.error(`[${ref}] ${req.method} ${path}`, e);
+      return jsonError(500, `Something went wrong on the server (reference ${ref}). Try again; if it keeps happening, tell your admin the reference.`);
+    }
+  };
+}

@@ -1,10 +1,12 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
+const root = import.meta.dirname;
+
 // Three suites: pure code (no services), integration against a running server + MariaDB,
 // and browser runs in Debian's chromium. scripts/test.sh starts the services for the last two.
 export default defineConfig({
-  resolve: { alias: { "@": path.resolve(__dirname) } },
+  resolve: { alias: { "@": root, "server-only": path.join(root, "tests/support/server-only.ts") } },
   test: {
     projects: [
       {

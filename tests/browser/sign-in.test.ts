@@ -1,0 +1,70 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser } from "playwright-core";
+import path from "node:path";
+import { APP_URL, demoAccount } from "../support/app";
+import { ARTIFACTS, launchBrowser } from "../support/browser";
+import { ROLE_HOME, ROLES } from "@/lib/auth/permissions";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const HOME_HEADING = { admin: "Floor plans", planner: "Waves", picker: "My batches" } as const;
+
+describe("signing in through the browser", () => {
+  for (const role of ROLES) {
+    it(`${role} lands on their own start page`, async () => {
+      // The picker works on a phone-sized handheld; the others at a desk.
+      const viewport = role === "picker" ? { width: 390, height: 844 } : { width: 1280, height: 800 };
+      const context = await browser.newContext({ viewport });
+      const page = await context.newPage();
+      await page.goto(`${APP_URL}/`);
+      await page.waitForURL(/\/sign-in/);
+      const a = demoAccount(role);
+      await page.getByLabel("E-mail address").fill(a.email);
+      await page.getByLabel("Password").fill(a.password);
+      await page.getByRole("button", { name: "Sign in" }).click();
+      await page.waitForURL((u) => u.pathname === ROLE_HOME[role]);
+      await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe(HOME_HEADING[role]);
+      await expect(page.getByText(a.displayName).first().isVisible()).resolves.toBe(true);
+      await page.screenshot({ path: path.join(ARTIFACTS, `home-${role}.png`), fullPage: true });
+      await context.close();
+    });
+  }
+
+  it("a wrong password shows the message on the form", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await page.goto(`${APP_URL}/sign-in`);
+    await page.getByLabel("E-mail address").fill("nobody@tests.example");
+    await page.getByLabel("Password").fill("wrong password");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await expect(page.getByRole("alert").textContent()).resolves.toMatch(/do not match/);
+    await page.screenshot({ path: path.join(ARTIFACTS, "sign-in-error.png") });
+    await context.close();
+  });
+
+  it("the admin sees the users table and sign-out ends the session", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    const a = demoAccount("admin");
+    await page.goto(`${APP_URL}/sign-in`);
+    await page.getByLabel("E-mail address").fill(a.email);
+    await page.getByLabel("Password").fill(a.password);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/floor-plans/);
+    await page.getByRole("link", { name: "Users" }).click();
+    await page.waitForURL(/\/admin\/users/);
+    await expect(page.getByRole("cell", { name: demoAccount("picker").email }).isVisible()).resolves.toBe(true);
+    await page.screenshot({ path: path.join(ARTIFACTS, "admin-users.png"), fullPage: true });
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.waitForURL(/\/sign-in/);
+    await page.goto(`${APP_URL}/admin/users`);
+    await page.waitForURL(/\/sign-in/);
+    await context.close();
+  });
+});

@@ -89,6 +89,7 @@ main() {
   ensure_debian_packages
   ensure_node_modules
   load_demo_env
+  mariadb_configure "$DEMO_DIR" "$DB_PORT"
 
   # From here on anything we started is stopped however the script ends.
   trap on_signal INT TERM
@@ -96,9 +97,8 @@ main() {
 
   next_stop_stale "$NEXT_PIDFILE"
   # Check both ports before starting anything, so a clash costs nothing.
-  require_free_port "$APP_PORT" "the web app (set PORT to use another)"
-  mariadb_configure "$DEMO_DIR" "$DB_PORT"
-  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "MariaDB (set DB_PORT to use another)"; fi
+  require_free_port "$APP_PORT" "the web app" "run with PORT=<another port>"
+  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "MariaDB" "run with DB_PORT=<another port>"; fi
 
   mariadb_init
   mariadb_start

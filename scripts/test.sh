@@ -100,9 +100,9 @@ run_vitest() {
 # start_services : everything the integration and browser suites talk to.
 start_services() {
   next_stop_stale "$NEXT_PIDFILE"
-  require_free_port "$APP_PORT" "the test app (set TEST_PORT to use another)"
+  require_free_port "$APP_PORT" "the test app" "run with TEST_PORT=<another port>"
   mariadb_configure "$TEST_DIR" "$DB_PORT"
-  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "the test MariaDB (set TEST_DB_PORT to use another)"; fi
+  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "the test MariaDB" "run with TEST_DB_PORT=<another port>"; fi
   mariadb_init
   mariadb_start
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate

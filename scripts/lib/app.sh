@@ -73,7 +73,9 @@ build_if_needed() {
   fi
   log "building the app into $dist"
   timed "next build" node node_modules/next/dist/bin/next build </dev/null || die "next build failed"
-  [[ -n $fp ]] && printf '%s\n' "$fp" >"$stamp"
+  # Hash again after the build: next build itself may edit tsconfig.json (adding the dist dir's
+  # types to "include"), and that edit must not make the next run think the sources changed.
+  [[ -n $fp ]] && source_fingerprint >"$stamp"
   return 0
 }
 
@@ -82,7 +84,7 @@ build_if_needed() {
 # Sets NEXT_PID.
 next_start() {
   local port=$1 logfile=$2 pidfile=$3
-  require_free_port "$port" "the web app"
+  require_free_port "$port" "the web app" "pick another port"
   : >"$logfile"
   setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$port" </dev/null >>"$logfile" 2>&1 9>&- &
   NEXT_PID=$!

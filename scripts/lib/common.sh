@@ -83,10 +83,10 @@ port_owner() {
   printf '%s' "${out:-unknown process}"
 }
 
-# require_free_port PORT WHAT : refuse clearly instead of letting a server fail to bind.
+# require_free_port PORT WHAT [HINT] : refuse clearly instead of letting a server fail to bind.
 require_free_port() {
   if port_in_use "$1"; then
-    die "port $1 (needed for $2) is already in use by $(port_owner "$1"); stop that program or pick another port (see the top of scripts/start.sh / scripts/test.sh)"
+    die "port $1 is already in use by $(port_owner "$1"), but $2 needs it; stop that program${3:+, or $3}"
   fi
 }
 

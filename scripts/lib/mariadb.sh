@@ -39,6 +39,8 @@ mariadb_ping() {
   mariadb-admin --no-defaults --socket="$MDB_SOCKET" -u"$MDB_ADMIN" --connect-timeout=2 ping >/dev/null 2>&1
 }
 
+_mariadb_install_db() { mariadb-install-db "$@" >"$MDB_DIR/install-db.log" 2>&1; }
+
 # mariadb_init : create the system tables once. A marker file tells a finished init from one that
 # was interrupted (a half-made datadir is useless and safe to redo: it holds no data yet).
 mariadb_init() {
@@ -51,7 +53,7 @@ mariadb_init() {
   local args=(--no-defaults --datadir="$MDB_DATADIR" --auth-root-authentication-method=socket --skip-test-db)
   if [[ $EUID -eq 0 ]]; then args+=(--user=root); else args+=(--auth-root-socket-user="$MDB_ADMIN"); fi
   log "initialising MariaDB datadir $MDB_DATADIR"
-  if ! timed "mariadb-install-db" mariadb-install-db "${args[@]}" >"$MDB_DIR/install-db.log" 2>&1; then
+  if ! timed "mariadb-install-db" _mariadb_install_db "${args[@]}"; then
     tail -n 30 "$MDB_DIR/install-db.log" >&2
     die "mariadb-install-db failed (full log: $MDB_DIR/install-db.log)"
   fi
@@ -68,6 +70,7 @@ _mariadb_pid_is_ours() {
 
 mariadb_running_pid() {
   local pid
+  [[ -n ${MDB_PIDFILE:-} ]] || return 0
   pid=$(cat "$MDB_PIDFILE" 2>/dev/null) || true
   if [[ -n $pid ]] && pid_alive "$pid" && _mariadb_pid_is_ours "$pid"; then printf '%s' "$pid"; fi
 }

@@ -43,7 +43,10 @@ describe("signing in through the browser", () => {
     await page.getByLabel("E-mail address").fill("nobody@tests.example");
     await page.getByLabel("Password").fill("wrong password");
     await page.getByRole("button", { name: "Sign in" }).click();
-    await expect(page.getByRole("alert").textContent()).resolves.toMatch(/do not match/);
+    // Next's route announcer is also an alert, so look for ours by what it says.
+    const alert = page.getByRole("alert").filter({ hasText: /do not match/ });
+    await alert.waitFor();
+    await expect(alert.textContent()).resolves.toMatch(/Check both and try again/);
     await page.screenshot({ path: path.join(ARTIFACTS, "sign-in-error.png") });
     await context.close();
   });
@@ -59,7 +62,9 @@ describe("signing in through the browser", () => {
     await page.waitForURL(/\/floor-plans/);
     await page.getByRole("link", { name: "Users" }).click();
     await page.waitForURL(/\/admin\/users/);
-    await expect(page.getByRole("cell", { name: demoAccount("picker").email }).isVisible()).resolves.toBe(true);
+    // The table fills in after SWR's first fetch.
+    await page.getByRole("cell", { name: demoAccount("picker").email }).waitFor();
+    await expect(page.getByRole("columnheader").allTextContents()).resolves.toEqual(expect.arrayContaining([expect.stringContaining("Role")]));
     await page.screenshot({ path: path.join(ARTIFACTS, "admin-users.png"), fullPage: true });
     await page.getByRole("button", { name: "Sign out" }).click();
     await page.waitForURL(/\/sign-in/);

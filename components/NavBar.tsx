@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { Logo } from "./Logo";
 import { SignOutButton } from "./SignOutButton";
+import { NavLink } from "./NavLink";
 import { roleMay, ROLE_LABEL, type Access } from "@/lib/auth/permissions";
 import type { SignedInUser } from "@/lib/auth/session";
 
@@ -22,9 +23,9 @@ export function NavBar({ user }: { user: SignedInUser }) {
         </Link>
         <nav aria-label="Main" className="flex flex-1 flex-wrap gap-1">
           {links.map((l) => (
-            <Link key={l.href} href={l.href} className="flex min-h-tap items-center rounded-md px-3 font-semibold hover:bg-ink-soft">
+            <NavLink key={l.href} href={l.href}>
               {l.label}
-            </Link>
+            </NavLink>
           ))}
         </nav>
         <div className="flex items-center gap-3">

@@ -1,0 +1,19 @@
+// Pure routing engine: no database, framework or Node-only imports here, so it runs in a
+// worker thread or a browser. The worker pool lives in ./pool (Node only) and is not re-exported.
+export * from "./constants";
+export * from "./drawing";
+export * from "./graph";
+export * from "./build-graph";
+export * from "./diagnostics";
+export * from "./floyd-warshall";
+export * from "./access";
+export * from "./cost-matrix";
+export * from "./errors";
+export * from "./held-karp";
+export * from "./local-search";
+export * from "./sequence";
+export * from "./baseline";
+export * from "./plan";
+export * from "./tsplib";
+export * from "./generate";
+export { mulberry32 } from "./random";

@@ -1,0 +1,50 @@
+import type { CostMatrix } from "./cost-matrix";
+import { CostOverflowError, UnreachableStopError } from "./errors";
+import type { DistanceMatrix } from "./floyd-warshall";
+import { floydWarshall } from "./floyd-warshall";
+import type { CompactGraph } from "./graph";
+import type { SequenceRequest, SequenceResult } from "./sequence";
+import { sequenceStops } from "./sequence";
+
+/** Work the pool can run off the main thread. Plain data so it survives postMessage. */
+export type RoutingJob =
+  | { kind: "sequence"; matrix: CostMatrix; request: Omit<SequenceRequest, "onProgress"> }
+  | { kind: "floyd-warshall"; graph: CompactGraph };
+
+export type JobResult<J extends RoutingJob> = J extends { kind: "sequence" } ? SequenceResult : DistanceMatrix;
+
+export interface SerializedError {
+  name: string;
+  message: string;
+  stops?: number[];
+  codes?: string[];
+}
+
+export type WorkerMessage =
+  | { type: "progress"; jobId: number; fraction: number }
+  | { type: "done"; jobId: number; result: SequenceResult | DistanceMatrix }
+  | { type: "error"; jobId: number; error: SerializedError };
+
+export function runJob(job: RoutingJob, onProgress: (fraction: number) => void): SequenceResult | DistanceMatrix {
+  if (job.kind === "sequence") return sequenceStops(job.matrix, { ...job.request, onProgress });
+  return floydWarshall(job.graph, onProgress);
+}
+
+export function serializeError(e: unknown): SerializedError {
+  if (e instanceof UnreachableStopError) return { name: e.name, message: e.message, stops: e.stops, codes: e.codes };
+  if (e instanceof Error) return { name: e.name, message: e.message };
+  return { name: "Error", message: String(e) };
+}
+
+/** Rebuilds the engine's typed errors on the calling side so callers can use instanceof. */
+export function deserializeError(s: SerializedError): Error {
+  if (s.name === "UnreachableStopError") return new UnreachableStopError(s.stops ?? [], s.codes ?? [], s.message.replace(/^[^:]*: /, ""));
+  if (s.name === "CostOverflowError") {
+    const e = new CostOverflowError(0);
+    e.message = s.message;
+    return e;
+  }
+  const e = s.name === "RangeError" ? new RangeError(s.message) : new Error(s.message);
+  e.name = s.name;
+  return e;
+}

@@ -3,6 +3,7 @@ import type { EditorDocument, RackRun } from "./document";
 import { bayAt, rackRunBins, rackRunCells, unusedCustomCodes } from "./bin-codes";
 import { toGridDrawing } from "./to-drawing";
 import { connectedTo, groupsOf, reachableFrom, reachingTo } from "./reachability";
+import { engineOnlyProblems } from "./engine-checks";
 
 export type ProblemKind =
   | "no-depot"
@@ -66,6 +67,7 @@ export function checkDocument(doc: EditorDocument): Problem[] {
   if (doc.rackRuns.length === 0) {
     problems.push({ kind: "no-bins", severity: "warning", cells: [], message: "There are no rack runs yet, so there is nothing to pick. Draw rack runs with the rack run tool." });
   }
+  problems.push(...engineOnlyProblems(d, problems));
   // Errors first; otherwise the order the checks found them, so the list does not jump while editing.
   return [...problems.filter((p) => p.severity === "error"), ...problems.filter((p) => p.severity === "warning")];
 }

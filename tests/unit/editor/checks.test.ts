@@ -1,6 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { checkDocument, hasErrors, type Problem } from "@/lib/editor/checks";
 import type { EditorDocument } from "@/lib/editor/document";
+import * as engine from "@/lib/editor/engine-checks";
+import { bramblegateDocument } from "@/lib/editor/demo-bramblegate";
+import { toGridDrawing } from "@/lib/editor/to-drawing";
 import { depot, docFromRows, dropoff, rackRun } from "./fixtures";
 
 const W = 7;
@@ -191,5 +194,44 @@ describe("checkDocument", () => {
     }
     const doc = docFromRows(rows, { rackRuns, depots: [depot(1, 1)], dropoffs: [dropoff(198, 148)] });
     expect(checkDocument(doc)).toEqual([]);
+  });
+});
+
+describe("agreement with the routing engine's validateDrawing", () => {
+  const spurTrap = docFromRows(["xxxxxxx", "xfffffx", "xxxfxxx", "xxxfxxx", "xxxxxxx"], {
+    depots: [depot(1, 1)],
+    dropoffs: [dropoff(5, 1)],
+    oneWay: [2, 3].map((y) => ({ cell: at(3, y), dir: "S" as const })),
+  });
+  const walled = docFromRows(["xxxxxxx", "xfffxfx", "xfffxfx", "xxxxxxx"], { depots: [depot(1, 1)], dropoffs: [dropoff(5, 1)] });
+  const blind = small();
+  blind.rackRuns[0] = { ...blind.rackRuns[0]!, facing: "W" };
+  const dupes = small();
+  dupes.rackRuns.push(rackRun({ id: "C", x: 5, y: 2, orientation: "v", length: 2, facing: "W", bayStep: 2, firstBay: 1 }));
+  const cases: [string, EditorDocument][] = [
+    ["a clean plan", small()],
+    ["no depot", small({ depots: [] })],
+    ["no drop-off", small({ dropoffs: [] })],
+    ["a depot on a wall", small({ depots: [depot(0, 4)] })],
+    ["bins facing a wall", blind],
+    ["duplicate codes", dupes],
+    ["a one-way dead end", spurTrap],
+    ["walled-off depot and drop-off", walled],
+    ["a dead end that cannot be entered", { ...spurTrap, oneWay: spurTrap.oneWay.map((m) => ({ ...m, dir: "N" as const })) }],
+    ["a walled pocket", docFromRows(["xxxxxxx", "xfffffx", "xxxxxxx", "xfxfffx"], { depots: [depot(1, 1)], dropoffs: [dropoff(5, 1)] })],
+    ["Bramblegate", bramblegateDocument()],
+  ];
+
+  it.each(cases)("%s: every engine issue is already among the editor's problems", (_name, doc) => {
+    const ps = checkDocument(doc);
+    const { engineOnlyProblems } = engine;
+    expect(engineOnlyProblems(toGridDrawing(doc), ps)).toEqual([]);
+  });
+
+  it("passes on an engine error the editor's own checks did not report", () => {
+    const doc = small({ depots: [] });
+    const surfaced = engine.engineOnlyProblems(toGridDrawing(doc), []);
+    expect(surfaced).toContainEqual(expect.objectContaining({ kind: "no-depot", severity: "error" }));
+    expect(surfaced.every((p) => p.message.endsWith("."))).toBe(true);
   });
 });

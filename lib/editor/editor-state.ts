@@ -36,8 +36,8 @@ export type Intent =
   | { type: "one-way-dir"; dir: Side | null }
   /** A draft arrived from the server: start a fresh history there. */
   | { type: "load"; document: EditorDocument }
-  /** The present document was saved. */
-  | { type: "saved" };
+  /** The document of `revision` (by default the present one) was saved. */
+  | { type: "saved"; revision?: number };
 
 export const ZOOM_STEPS = [3, 4, 6, 8, 10, 12, 16, 20, 24, 32, 40, 48, 64] as const;
 export const DEFAULT_CELL_PX = 20;
@@ -93,7 +93,7 @@ export function editorReducer(state: EditorState, intent: Intent): EditorState {
     case "load":
       return { ...state, history: startHistory(intent.document), selection: null, savedRevision: 0 };
     case "saved":
-      return { ...state, savedRevision: revision(state.history) };
+      return { ...state, savedRevision: intent.revision ?? revision(state.history) };
   }
 }
 

@@ -1,0 +1,107 @@
+"use client";
+
+import type { Side } from "@/lib/routing/drawing";
+import type { EditorState, Intent, Tool } from "@/lib/editor/editor-state";
+import { TOOL_KEYS } from "@/lib/editor/shortcuts";
+import { describeCommand } from "@/lib/editor/commands";
+import { canRedo, canUndo } from "@/lib/editor/history";
+
+const TOOLS: { tool: Tool; label: string }[] = [
+  { tool: "select", label: "Select" },
+  { tool: "floor", label: "Floor" },
+  { tool: "blocked", label: "Blocked" },
+  { tool: "erase", label: "Erase" },
+  { tool: "rack", label: "Rack run" },
+  { tool: "one-way", label: "One-way" },
+  { tool: "depot", label: "Depot" },
+  { tool: "dropoff", label: "Drop-off" },
+];
+
+const DIRS: { dir: Side | null; label: string; glyph: string }[] = [
+  { dir: "N", label: "Walk north (up)", glyph: "↑" },
+  { dir: "E", label: "Walk east (right)", glyph: "→" },
+  { dir: "S", label: "Walk south (down)", glyph: "↓" },
+  { dir: "W", label: "Walk west (left)", glyph: "←" },
+  { dir: null, label: "Clear one-way marks", glyph: "✕" },
+];
+
+const HINT: Record<Tool, string> = {
+  select: "Click a rack run, depot or drop-off to select it; drag to move it, or drag the empty floor to pan. Arrow keys move, Delete removes.",
+  floor: "Drag to paint walkable floor.",
+  blocked: "Drag to paint walls, columns and docks.",
+  erase: "Drag to paint outside the building (clears one-way marks there).",
+  rack: "Drag along a row or column of cells to draw a rack run, then fill in its numbering.",
+  "one-way": "Drag along an aisle to mark the walking direction.",
+  depot: "Click walkable floor where pickers collect their carts.",
+  dropoff: "Click walkable floor where carts are dropped for packing.",
+};
+
+type Props = { state: EditorState; dispatch: (i: Intent) => void; onFit: () => void };
+
+/** Tools, undo/redo and zoom. Every button sends the same intents as the keyboard. */
+export function EditorToolbar({ state, dispatch, onFit }: Props) {
+  const { history, canEdit, tool } = state;
+  const lastDone = history.past[history.past.length - 1];
+  const nextRedo = history.future[0];
+  const tools = canEdit ? TOOLS : TOOLS.filter((t) => t.tool === "select");
+  const painting = tool === "floor" || tool === "blocked" || tool === "erase";
+  return (
+    <div className="space-y-2">
+      <div role="toolbar" aria-label="Floor plan tools" className="flex flex-wrap items-center gap-2">
+        {tools.map((t) => (
+          <button key={t.tool} type="button" aria-pressed={tool === t.tool} aria-keyshortcuts={TOOL_KEYS[t.tool]} onClick={() => dispatch({ type: "tool", tool: t.tool })} className={tool === t.tool ? "btn-primary px-3" : "btn-quiet px-3"} title={`${t.label} (${TOOL_KEYS[t.tool]})`}>
+            {t.label}
+            <kbd className="text-xs opacity-75">{TOOL_KEYS[t.tool]}</kbd>
+          </button>
+        ))}
+        {canEdit && (
+          <>
+            <span className="mx-1 h-8 w-px bg-rack-light" aria-hidden="true" />
+            <button type="button" className="btn-quiet px-3" onClick={() => dispatch({ type: "undo" })} disabled={!canUndo(history)} aria-keyshortcuts="Control+Z" title="Ctrl+Z">
+              Undo{lastDone ? ` ${describeCommand(lastDone.command)}` : ""}
+            </button>
+            <button type="button" className="btn-quiet px-3" onClick={() => dispatch({ type: "redo" })} disabled={!canRedo(history)} aria-keyshortcuts="Control+Shift+Z" title="Ctrl+Shift+Z">
+              Redo{nextRedo ? ` ${describeCommand(nextRedo.command)}` : ""}
+            </button>
+          </>
+        )}
+        <span className="mx-1 h-8 w-px bg-rack-light" aria-hidden="true" />
+        <button type="button" className="btn-quiet min-w-tap px-3" onClick={() => dispatch({ type: "zoom", by: "out" })} aria-label="Zoom out" aria-keyshortcuts="-">
+          −
+        </button>
+        <button type="button" className="btn-quiet min-w-tap px-3" onClick={() => dispatch({ type: "zoom", by: "in" })} aria-label="Zoom in" aria-keyshortcuts="+">
+          +
+        </button>
+        <button type="button" className="btn-quiet px-3" onClick={onFit}>
+          Fit
+        </button>
+      </div>
+      {canEdit && painting && (
+        <div className="flex flex-wrap items-center gap-2 text-sm" role="group" aria-label="Paint shape">
+          <span>Paint as</span>
+          <button type="button" className={state.paintShape === "brush" ? "btn-primary px-3" : "btn-quiet px-3"} aria-pressed={state.paintShape === "brush"} onClick={() => dispatch({ type: "paint-shape", shape: "brush" })}>
+            Brush
+          </button>
+          <button type="button" className={state.paintShape === "rect" ? "btn-primary px-3" : "btn-quiet px-3"} aria-pressed={state.paintShape === "rect"} onClick={() => dispatch({ type: "paint-shape", shape: "rect" })}>
+            Rectangle
+          </button>
+          <span className="text-ink-soft">(hold Shift for the other)</span>
+        </div>
+      )}
+      {canEdit && tool === "one-way" && (
+        <div className="space-y-2">
+          <div className="flex flex-wrap items-center gap-2 text-sm" role="group" aria-label="One-way direction">
+            <span>Walking direction</span>
+            {DIRS.map((d) => (
+              <button key={d.label} type="button" aria-label={d.label} title={d.label} aria-pressed={state.oneWayDir === d.dir} className={state.oneWayDir === d.dir ? "btn-primary min-w-tap px-3" : "btn-quiet min-w-tap px-3"} onClick={() => dispatch({ type: "one-way-dir", dir: d.dir })}>
+                {d.glyph}
+              </button>
+            ))}
+          </div>
+          <p className="notice-info text-sm">One-way and forklift aisles follow site rules: mark them as the site&apos;s traffic plan says. Trailbin only plans walking routes; site safety rules always come first.</p>
+        </div>
+      )}
+      <p className="text-sm text-ink-soft">{canEdit ? HINT[tool] : "You can look at the drawing, its bins and its checks; editing is for layout admins. Drag to pan."}</p>
+    </div>
+  );
+}

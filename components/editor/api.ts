@@ -1,0 +1,45 @@
+import type { EditorDocument, RackRun } from "@/lib/editor/document";
+import type { Problem } from "@/lib/editor/checks";
+import { postJson, requestJson, type ApiResult } from "@/lib/client/fetch-json";
+
+/** The draft API's answers (contract with app/api/floor-plans/[id]/…). */
+export type DraftResponse = {
+  draft: { version: number; document: EditorDocument; updatedAt: string; updatedByName: string | null };
+  latestVersion: { id: number; number: number; publishedAt: string } | null;
+};
+export type SaveConflict = { error: string; current: { version: number; updatedByName: string | null; updatedAt: string } };
+export type JobStatus = "queued" | "running" | "done" | "failed" | "cancelled";
+export type JobResponse = { job: { status: JobStatus; progress: number; message: string; result: { layoutVersionId: number; number: number } | null } };
+export type BadRow = { row: number; message: string };
+
+export const draftUrl = (planId: number) => `/api/floor-plans/${planId}/draft`;
+export const backgroundUrl = (planId: number, fileId: string) => `/api/floor-plans/${planId}/background/${fileId}`;
+export const runBinsUrl = (planId: number, runId: string, format: "xlsx" | "csv") => `/api/floor-plans/${planId}/rack-runs/${encodeURIComponent(runId)}/bins?format=${format}`;
+
+export const saveDraft = (planId: number, version: number, document: EditorDocument) => requestJson<{ version: number }>("PUT", draftUrl(planId), { version, document });
+export const startPublish = (planId: number, version: number) => postJson<{ jobId: string | number }>(`/api/floor-plans/${planId}/publish`, { version });
+export const uploadBackground = (planId: number, file: File) => uploadFile<{ fileId: string }>(`/api/floor-plans/${planId}/background`, file);
+export const importRunBins = (planId: number, runId: string, file: File) =>
+  uploadFile<{ customCodes: RackRun["customCodes"] }>(`/api/floor-plans/${planId}/rack-runs/${encodeURIComponent(runId)}/bins`, file);
+
+/** Problems the server found when refusing to publish (422). */
+export function publishProblems(r: ApiResult<unknown>): Problem[] {
+  if (r.ok || r.status !== 422) return [];
+  const body = r.body as { problems?: Problem[] } | null | undefined;
+  return Array.isArray(body?.problems) ? body.problems : [];
+}
+
+/** Multipart upload of one file in the field "file", answered like requestJson. */
+async function uploadFile<T>(url: string, file: File): Promise<ApiResult<T>> {
+  const form = new FormData();
+  form.append("file", file);
+  let res: Response;
+  try {
+    res = await fetch(url, { method: "POST", body: form, credentials: "same-origin" });
+  } catch {
+    return { ok: false, status: 0, message: "No connection to Trailbin. Check the Wi-Fi and try again." };
+  }
+  const data = (await res.json().catch(() => null)) as (T & { error?: string }) | null;
+  if (res.ok) return { ok: true, status: res.status, data: data as T };
+  return { ok: false, status: res.status, message: data?.error ?? `The server answered ${res.status}. Try again in a moment.`, body: data };
+}

@@ -10,7 +10,10 @@ export type AuditEvent =
   | "access.denied"
   | "origin.refused"
   | "user.created"
-  | "user.changed";
+  | "user.changed"
+  | "layout.publish_started"
+  | "layout.published"
+  | "floor_plan.saved";
 
 export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
 

@@ -9,3 +9,10 @@ export function db(): Knex {
   globalForKnex.trailbinKnex ??= knexFactory(config);
   return globalForKnex.trailbinKnex;
 }
+
+/** For scripts and seeds: end the pool so the process can exit. */
+export async function closeDb(): Promise<void> {
+  const k = globalForKnex.trailbinKnex;
+  globalForKnex.trailbinKnex = undefined;
+  await k?.destroy();
+}

@@ -107,6 +107,7 @@ main() {
 
   export NEXT_DIST_DIR=.next
   build_if_needed
+  export UPLOAD_DIR=$DEMO_DIR/uploads
   NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
   print_welcome
 

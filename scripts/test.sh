@@ -108,6 +108,9 @@ start_services() {
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate
   migrate_and_seed
   export NEXT_DIST_DIR=.next-test
+  # Uploaded files of a test run stay with the test data, apart from the demo's.
+  rm -rf "$TEST_DIR/uploads"
+  export UPLOAD_DIR=$TEST_DIR/uploads
   build_if_needed
   NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
 }

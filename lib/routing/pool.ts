@@ -60,7 +60,7 @@ export class RoutingPool {
     this.timeoutMs = options.defaultTimeoutMs ?? 30_000;
     // Resolved from the working directory (repo root under next start and vitest) so that no
     // bundler tries to follow the worker file.
-    this.entry = path.resolve(process.cwd(), options.workerPath ?? "lib/routing/worker.ts");
+    this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath ?? "lib/routing/worker.ts");
   }
 
   run<J extends RoutingJob>(job: J, opts: RunOptions = {}): Promise<JobResult<J>> {

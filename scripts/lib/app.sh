@@ -33,7 +33,8 @@ ensure_node_modules() {
   with_lock "$TRAILBIN_ROOT/.data/install.lock" _npm_ci_if_stale
 }
 
-_knex() { node --import tsx node_modules/knex/bin/cli.js "$@" --knexfile knexfile.ts; }
+# react-server: the seeds reuse db/ modules, which refuse to load outside server code otherwise.
+_knex() { node --conditions=react-server --import tsx node_modules/knex/bin/cli.js "$@" --knexfile knexfile.ts; }
 
 # migrate_and_seed : bring the schema up to date and load the (idempotent) seed. Uses DB_*.
 migrate_and_seed() {

@@ -1,6 +1,6 @@
 import { describe, expect, it, beforeAll } from "vitest";
 import { api, ORIGIN, signInAs } from "../support/app";
-import { concrete, discoverRoutes } from "../support/app-routes";
+import { concrete, concretePage, discoverRoutes } from "../support/app-routes";
 import { API_ACCESS, PAGE_ACCESS } from "@/lib/auth/routes";
 import { ROLES, ROLE_HOME, roleMay, type Role } from "@/lib/auth/permissions";
 
@@ -24,7 +24,7 @@ describe("role × page matrix", () => {
   });
 
   it.each(pages)("anonymous %s: only public pages render, the rest go to sign-in", async (p) => {
-    const res = await api().get(concrete(p)).redirects(0);
+    const res = await api().get(concretePage(p)).redirects(0);
     if (PAGE_ACCESS[p] === "public") expect(res.status).toBe(200);
     else {
       expect(res.status).toBeGreaterThanOrEqual(300);
@@ -36,7 +36,7 @@ describe("role × page matrix", () => {
   for (const role of ROLES) {
     it.each(pages)(`${role} on %s gets what the permission table allows`, async (p) => {
       const access = PAGE_ACCESS[p]!;
-      const res = await api().get(concrete(p)).set("Cookie", cookies[role]!).redirects(0);
+      const res = await api().get(concretePage(p)).set("Cookie", cookies[role]!).redirects(0);
       if (p === "/" || p === "/sign-in") {
         // Both send a signed-in person to their own start page.
         expect(res.status).toBe(307);

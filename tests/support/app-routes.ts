@@ -34,3 +34,6 @@ export function discoverRoutes() {
 
 /** A concrete URL for a pattern: dynamic segments get a value that exists nowhere. */
 export const concrete = (pattern: string) => pattern.replace(/\[[^\]]+\]/g, "no-such-id");
+
+/** Pages render real records: the seeded demo floor plan is 1 and its first layout version is 1. */
+export const concretePage = (pattern: string) => pattern.replace(/\[(id|number)\]/g, "1");

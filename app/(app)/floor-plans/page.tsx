@@ -1,18 +1,51 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { requireRole } from "@/lib/auth/guard";
+import { roleMay } from "@/lib/auth/permissions";
+import { listFloorPlans } from "@/db/floor-plans";
 import { PageHeader } from "@/components/PageHeader";
 import { EmptyState } from "@/components/EmptyState";
+import { NewFloorPlanForm } from "@/components/floor-plans/NewFloorPlanForm";
 
 export const metadata: Metadata = { title: "Floor plans" };
 
 export default async function FloorPlansPage() {
-  await requireRole("floorplans.read", "/floor-plans");
+  const user = await requireRole("floorplans.read", "/floor-plans");
+  const plans = await listFloorPlans(user.siteId);
+  const canEdit = roleMay(user.role, "floorplans.edit");
   return (
     <>
-      <PageHeader title="Floor plans" lead="The drawing of each warehouse floor: aisles, cross-aisles, rack runs, depots and drop-offs. Routes are planned on its published layout versions." />
-      <EmptyState title="No floor plan yet">
-        Drawing and publishing floor plans arrives with the floor-plan editor. Until then there is nothing to route on.
-      </EmptyState>
+      <PageHeader
+        title="Floor plans"
+        lead="The drawing of each warehouse floor: aisles, cross-aisles, rack runs, depots and drop-offs. Waves are planned on a published layout version, which never changes afterwards."
+      />
+      {plans.length === 0 ? (
+        <EmptyState title="No floor plan yet">{canEdit ? "Start one below: give it a name and the floor's size." : "A layout admin has not drawn this site's floor yet."}</EmptyState>
+      ) : (
+        <ul className="grid gap-4 md:grid-cols-2">
+          {plans.map((p) => (
+            <li key={p.id} className="card flex flex-col gap-3">
+              <h2>{p.name}</h2>
+              <p className="text-ink-soft">
+                Draft saved {p.draftVersion} {p.draftVersion === 1 ? "time" : "times"}, last {new Date(p.draftUpdatedAt).toLocaleString("en-GB")}.
+                <br />
+                {p.latestVersion
+                  ? `Published as version ${p.latestVersion.number} on ${new Date(p.latestVersion.publishedAt).toLocaleString("en-GB")} with ${p.latestVersion.binCount.toLocaleString("en")} bins.`
+                  : "Not published yet."}
+              </p>
+              <div className="flex flex-wrap gap-2">
+                <Link className="btn-primary" href={`/floor-plans/${p.id}`}>{canEdit ? "Open the draft" : "View the draft"}</Link>
+                {p.latestVersion && (
+                  <Link className="btn-quiet" href={`/floor-plans/${p.id}/versions/${p.latestVersion.number}`}>
+                    Version {p.latestVersion.number}
+                  </Link>
+                )}
+              </div>
+            </li>
+          ))}
+        </ul>
+      )}
+      {canEdit && <NewFloorPlanForm />}
     </>
   );
 }

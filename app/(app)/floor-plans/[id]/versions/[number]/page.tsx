@@ -1,0 +1,36 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { requireRole } from "@/lib/auth/guard";
+import { getFloorPlan } from "@/db/floor-plans";
+import { getLayoutVersion, listLayoutBins } from "@/db/layout-versions";
+import { VersionExplorer } from "@/components/floor-plans/VersionExplorer";
+
+export const metadata: Metadata = { title: "Layout version" };
+
+const whole = (s: string) => (/^\d{1,9}$/.test(s) ? Number(s) : null);
+
+export default async function LayoutVersionPage({ params }: { params: Promise<{ id: string; number: string }> }) {
+  const { id, number } = await params;
+  const user = await requireRole("floorplans.read", `/floor-plans/${id}/versions/${number}`);
+  const planId = whole(id);
+  const n = whole(number);
+  const plan = planId ? await getFloorPlan(user.siteId, planId) : null;
+  const version = plan && n ? await getLayoutVersion(user.siteId, plan.id, n) : null;
+  if (!plan || !version) notFound();
+  const bins = await listLayoutBins(version.id);
+  return (
+    <>
+      <p className="mb-2 text-sm">
+        <Link className="underline" href="/floor-plans">Floor plans</Link> › <Link className="underline" href={`/floor-plans/${plan.id}`}>{plan.name}</Link> › version {version.number}
+      </p>
+      <h1>{plan.name}: layout version {version.number}</h1>
+      <p className="mt-1 mb-5 text-ink-soft">
+        Published {new Date(version.publishedAt).toLocaleString("en-GB")}
+        {version.publishedByName ? ` by ${version.publishedByName}` : ""}. It never changes: waves planned on it keep their routes. {version.nodeCount} junctions,{" "}
+        {version.edgeCount} corridors, {version.binCount.toLocaleString("en")} bins. Distance matrix checksum <code className="text-sm">{version.matrixSha256.slice(0, 16)}…</code>
+      </p>
+      <VersionExplorer layoutVersionId={version.id} document={version.document} bins={bins} />
+    </>
+  );
+}

@@ -1,0 +1,11 @@
+import { z } from "zod";
+import { route } from "@/lib/http/route";
+import { intParam } from "@/lib/http/params";
+import { startPublish } from "@/lib/layout/publish";
+
+const Publish = z.object({ version: z.number().int().positive() });
+
+export const POST = route({ access: "floorplans.edit", body: Publish }, async ({ user, params, body, ip }) => {
+  const job = await startPublish(user, intParam(params, "id", "floor plan"), body.version, ip);
+  return Response.json({ jobId: job.id, job }, { status: 202 });
+});

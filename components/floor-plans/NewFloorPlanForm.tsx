@@ -1,0 +1,48 @@
+"use client";
+
+import { useState } from "react";
+import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
+import { FieldErrors } from "@/components/FieldErrors";
+
+export function NewFloorPlanForm() {
+  const [failure, setFailure] = useState<ApiFailure | null>(null);
+  const [busy, setBusy] = useState(false);
+  async function submit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    if (busy) return;
+    const f = new FormData(e.currentTarget);
+    setBusy(true);
+    const r = await postJson<{ id: number }>("/api/floor-plans", {
+      name: String(f.get("name") ?? ""),
+      widthM: Number(f.get("widthM")),
+      heightM: Number(f.get("heightM")),
+      cellMm: Number(f.get("cellMm")),
+    });
+    if (r.ok) return window.location.assign(`/floor-plans/${r.data.id}`);
+    setFailure(r);
+    setBusy(false);
+  }
+  return (
+    <form onSubmit={submit} className="card mt-8 max-w-3xl space-y-4" noValidate aria-labelledby="new-plan">
+      <h2 id="new-plan">Start a floor plan</h2>
+      <div className="grid gap-4 sm:grid-cols-4">
+        <label className="sm:col-span-4"><span className="label">Name</span><input name="name" className="field" required maxLength={120} placeholder="e.g. Ground floor" /></label>
+        <label><span className="label">Width (m)</span><input name="widthM" type="number" min="1" step="0.5" defaultValue="60" className="field" /></label>
+        <label><span className="label">Depth (m)</span><input name="heightM" type="number" min="1" step="0.5" defaultValue="40" className="field" /></label>
+        <label className="sm:col-span-2">
+          <span className="label">Cell size</span>
+          <select name="cellMm" className="field" defaultValue="1000">
+            <option value="500">0.5 m (narrow aisles)</option>
+            <option value="1000">1 m (most floors)</option>
+            <option value="1500">1.5 m</option>
+            <option value="2000">2 m (large floors)</option>
+          </select>
+        </label>
+      </div>
+      {failure && (
+        <div role="alert" className="notice-error"><p className="font-semibold">{failure.message}</p><FieldErrors issues={failure.issues} /></div>
+      )}
+      <button className="btn-primary" disabled={busy}>{busy ? "Creating…" : "Create and open the editor"}</button>
+    </form>
+  );
+}

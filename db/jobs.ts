@@ -1,0 +1,56 @@
+import "server-only";
+import { randomBytes } from "node:crypto";
+import { db } from "./knex";
+
+export type JobStatus = "queued" | "running" | "done" | "failed" | "cancelled";
+export type JobDTO = { id: string; kind: string; status: JobStatus; progress: number; message: string; result: unknown; createdAt: string; updatedAt: string };
+
+type JobRow = { id: string; kind: string; status: JobStatus; progress: number; message: string; result: string | null; created_at: Date; updated_at: Date };
+
+const toDTO = (r: JobRow): JobDTO => ({
+  id: r.id,
+  kind: r.kind,
+  status: r.status,
+  progress: r.progress,
+  message: r.message,
+  result: typeof r.result === "string" ? JSON.parse(r.result) : r.result,
+  createdAt: r.created_at.toISOString(),
+  updatedAt: r.updated_at.toISOString(),
+});
+
+/**
+ * A job for `key`, or the one already queued/running/done for it: a double click or a retried request
+ * on flaky Wi-Fi joins the first job instead of starting a second.
+ */
+export async function createOrJoinJob(siteId: number, kind: string, key: string, userId: string | null, message: string): Promise<{ job: JobDTO; created: boolean }> {
+  return db().transaction(async (trx) => {
+    await trx("sites").where({ id: siteId }).forUpdate().first("id");
+    const existing = (await trx("jobs").where({ job_key: key }).whereIn("status", ["queued", "running", "done"]).orderBy("created_at", "desc").first()) as JobRow | undefined;
+    if (existing) return { job: toDTO(existing), created: false };
+    const id = randomBytes(16).toString("hex");
+    await trx("jobs").insert({ id, site_id: siteId, kind, job_key: key, status: "queued", message, created_by: userId });
+    const row = (await trx("jobs").where({ id }).first()) as JobRow;
+    return { job: toDTO(row), created: true };
+  });
+}
+
+export async function updateJob(id: string, patch: { status?: JobStatus; progress?: number; message?: string; result?: unknown }): Promise<void> {
+  const row: Record<string, unknown> = { updated_at: db().fn.now(3) };
+  if (patch.status) row.status = patch.status;
+  if (patch.progress !== undefined) row.progress = Math.max(0, Math.min(1, patch.progress));
+  if (patch.message !== undefined) row.message = patch.message.slice(0, 500);
+  if (patch.result !== undefined) row.result = JSON.stringify(patch.result);
+  await db()("jobs").where({ id }).update(row);
+}
+
+export async function getJob(siteId: number, id: string): Promise<JobDTO | null> {
+  const r = (await db()("jobs").where({ id, site_id: siteId }).first()) as JobRow | undefined;
+  return r ? toDTO(r) : null;
+}
+
+/** Jobs a previous server process left running can never finish: say so instead of spinning forever. */
+export async function failOrphanedJobs(): Promise<number> {
+  return db()("jobs")
+    .whereIn("status", ["queued", "running"])
+    .update({ status: "failed", message: "The server restarted while this was running. Start it again.", updated_at: db().fn.now(3) });
+}

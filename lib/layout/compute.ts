@@ -1,0 +1,9 @@
+import "server-only";
+import type { EditorDocument } from "@/lib/editor/document";
+import { routingPool } from "@/lib/workers/pool";
+import { buildLayout, type BuiltLayout } from "./build";
+
+/** buildLayout with Floyd–Warshall, the O(V³) part, in the worker pool, off the server's event loop. */
+export function computeLayout(document: EditorDocument, onProgress: (fraction: number, stage: string) => void): Promise<BuiltLayout> {
+  return buildLayout(document, onProgress, (graph, progress) => routingPool().run({ kind: "floyd-warshall", graph }, { onProgress: progress }));
+}

@@ -1,0 +1,62 @@
+import "server-only";
+import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
+import { getDraft } from "@/db/floor-plans";
+import { AlreadyPublishedError, insertLayoutVersion } from "@/db/layout-versions";
+import { audit } from "@/db/audit";
+import { HttpError } from "@/lib/http/errors";
+import { checkDocument } from "@/lib/editor/checks";
+import type { SignedInUser } from "@/lib/auth/session";
+import { computeLayout } from "./compute";
+import { rackRunOfBins } from "./build";
+
+export type PublishResult = { layoutVersionId: number; number: number };
+
+/**
+ * Starts publishing the draft as saved at `draftVersion` and returns its job at once; the browser
+ * polls the job. A second request for the same saved draft joins the same job.
+ */
+export async function startPublish(user: SignedInUser, floorPlanId: number, draftVersion: number, ip: string): Promise<JobDTO> {
+  const draft = await getDraft(user.siteId, floorPlanId);
+  if (!draft) throw new HttpError(404, "No such floor plan at this site.");
+  if (draft.version !== draftVersion) {
+    throw new HttpError(409, `The draft was saved again since you loaded it (now save ${draft.version}${draft.updatedByName ? `, by ${draft.updatedByName}` : ""}). Reload it, check it, then publish.`);
+  }
+  const errors = checkDocument(draft.document).filter((p) => p.severity === "error");
+  if (errors.length > 0) {
+    throw new HttpError(422, `This draft has ${errors.length} problem${errors.length === 1 ? "" : "s"} to fix before it can be published.`, { problems: errors });
+  }
+  const { job, created } = await createOrJoinJob(user.siteId, "publish-layout", `publish:${floorPlanId}@${draftVersion}`, user.id, "Waiting to start");
+  if (created) {
+    await audit({ event: "layout.publish_started", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, ip, detail: { draftVersion, job: job.id } });
+    void runPublish(job.id, floorPlanId, draftVersion, user);
+  }
+  return job;
+}
+
+async function runPublish(jobId: string, floorPlanId: number, draftVersion: number, user: SignedInUser): Promise<void> {
+  let lastWrite = 0;
+  const progress = (fraction: number, message: string) => {
+    // Progress comes from the worker many times a second; the database needs a few writes at most.
+    const now = Date.now();
+    if (now - lastWrite < 250 && fraction < 1) return;
+    lastWrite = now;
+    void updateJob(jobId, { status: "running", progress: fraction, message }).catch(() => undefined);
+  };
+  try {
+    await updateJob(jobId, { status: "running", progress: 0, message: "Reading the draft" });
+    const draft = await getDraft(user.siteId, floorPlanId);
+    if (!draft || draft.version !== draftVersion) throw new Error("The draft changed while publishing started. Reload it and publish again.");
+    const { graph, matrix } = await computeLayout(draft.document, (f, stage) => progress(0.05 + f * 0.8, stage));
+    progress(0.9, `Storing ${graph.nodes.length} junctions, ${graph.edges.length} corridors and ${graph.bins.length} bins`);
+    const stored = await insertLayoutVersion({ floorPlanId, fromDraftVersion: draftVersion, document: draft.document, graph, matrix, rackRunOfBin: rackRunOfBins(draft.document), userId: user.id });
+    await updateJob(jobId, { status: "done", progress: 1, message: `Published as version ${stored.number}`, result: { layoutVersionId: stored.id, number: stored.number } });
+    await audit({ event: "layout.published", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, detail: { version: stored.number, bins: graph.bins.length } });
+  } catch (e) {
+    if (e instanceof AlreadyPublishedError) {
+      await updateJob(jobId, { status: "done", progress: 1, message: `Already published as version ${e.existing.number}`, result: { layoutVersionId: e.existing.id, number: e.existing.number } });
+      return;
+    }
+    console.error(`publish job ${jobId} failed`, e);
+    await updateJob(jobId, { status: "failed", message: `Publishing failed: ${(e as Error).message}` }).catch(() => undefined);
+  }
+}

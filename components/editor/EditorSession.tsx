@@ -37,6 +37,8 @@ export function EditorSession({ planId, canEdit, version, document, onReload }: 
     rawDispatch(i);
   }, []);
   const sync = useDraftSync(planId, version, state, dispatch);
+  // A located problem stays outlined until the next edit, which may well have fixed it.
+  useEffect(() => setFocus(null), [doc]);
 
   // Checks run on a deferred copy so dragging stays smooth on large plans.
   const checkedDoc = useDeferredValue(doc);

@@ -8,7 +8,7 @@ export type FloorPlanSummary = {
   name: string;
   draftVersion: number;
   draftUpdatedAt: string;
-  latestVersion: { id: number; number: number; publishedAt: string; binCount: number } | null;
+  latestVersion: { id: number; number: number; publishedAt: string; binCount: number; fromDraftVersion: number } | null;
 };
 
 export type DraftDTO = { floorPlanId: number; version: number; document: EditorDocument; updatedAt: string; updatedByName: string | null };
@@ -22,7 +22,7 @@ export async function listFloorPlans(siteId: number): Promise<FloorPlanSummary[]
   const latest = await db()("layout_versions as v")
     .whereIn("v.floor_plan_id", plans.map((p: { id: number }) => p.id))
     .whereRaw("v.number = (select max(number) from layout_versions w where w.floor_plan_id = v.floor_plan_id)")
-    .select("v.id", "v.floor_plan_id", "v.number", "v.published_at", "v.bin_count");
+    .select("v.id", "v.floor_plan_id", "v.number", "v.published_at", "v.bin_count", "v.from_draft_version");
   return plans.map((p: { id: number; name: string; version: number; updated_at: Date }) => {
     const v = latest.find((l: { floor_plan_id: number }) => l.floor_plan_id === p.id);
     return {
@@ -30,7 +30,7 @@ export async function listFloorPlans(siteId: number): Promise<FloorPlanSummary[]
       name: p.name,
       draftVersion: p.version,
       draftUpdatedAt: p.updated_at.toISOString(),
-      latestVersion: v ? { id: v.id, number: v.number, publishedAt: v.published_at.toISOString(), binCount: v.bin_count } : null,
+      latestVersion: v ? { id: v.id, number: v.number, publishedAt: v.published_at.toISOString(), binCount: v.bin_count, fromDraftVersion: v.from_draft_version } : null,
     };
   });
 }

@@ -6,12 +6,28 @@ import { DataTable, type DataColumn } from "@/components/DataTable";
 import { requestJson } from "@/lib/client/fetch-json";
 import type { EditorDocument } from "@/lib/editor/document";
 import type { BinRowDTO } from "@/db/layout-versions";
+import { documentBins } from "@/lib/editor/bin-codes";
+
+export type VersionBin = BinRowDTO & { fromDepot: { depot: string; mm: number } | null };
 
 type Answer = { from: string; to: string; distanceMm: number; cells: number[] };
 
 const metres = (mm: number) => `${(mm / 1000).toLocaleString("en-GB", { maximumFractionDigits: 1 })} m`;
 
-export function VersionExplorer({ layoutVersionId, document, bins }: { layoutVersionId: number; document: EditorDocument; bins: BinRowDTO[] }) {
+export function VersionExplorer({ layoutVersionId, document, bins }: { layoutVersionId: number; document: EditorDocument; bins: VersionBin[] }) {
+  const [hovered, setHovered] = useState<number | null>(null);
+  const binByCode = useMemo(() => new Map(bins.map((b) => [b.code, b])), [bins]);
+  // Rack cell → its bins, to answer "how far is this from the depot?" under the pointer.
+  const codesByCell = useMemo(() => {
+    const m = new Map<number, string[]>();
+    for (const b of documentBins(document)) {
+      const c = b.y * document.width + b.x;
+      m.set(c, [...(m.get(c) ?? []), b.code]);
+    }
+    return m;
+  }, [document]);
+  const hoverCodes = hovered === null ? [] : (codesByCell.get(hovered) ?? []);
+  const hoverBin = hoverCodes[0] ? binByCode.get(hoverCodes[0]) : undefined;
   const [from, setFrom] = useState(bins[0]?.code ?? "");
   const [to, setTo] = useState(bins[bins.length - 1]?.code ?? "");
   const [answer, setAnswer] = useState<Answer | null>(null);
@@ -32,13 +48,14 @@ export function VersionExplorer({ layoutVersionId, document, bins }: { layoutVer
     }
   }
 
-  const columns = useMemo<DataColumn<BinRowDTO>[]>(
+  const columns = useMemo<DataColumn<VersionBin>[]>(
     () => [
       { accessorKey: "code", header: "Location code" },
       { accessorKey: "aisle", header: "Aisle" },
       { accessorKey: "bay", header: "Bay" },
       { accessorKey: "level", header: "Level" },
       { accessorKey: "rackRun", header: "Rack run" },
+      { id: "fromDepot", accessorFn: (b) => b.fromDepot?.mm ?? Number.MAX_SAFE_INTEGER, header: "Walk from depot", cell: ({ row }) => (row.original.fromDepot ? metres(row.original.fromDepot.mm) : "not reachable") },
       { id: "ap", accessorFn: (b) => b.accessPoint, header: "Access point", cell: ({ row }) => `#${row.original.accessPoint} (cell ${row.original.x}, ${row.original.y})` },
     ],
     [],
@@ -67,7 +84,12 @@ export function VersionExplorer({ layoutVersionId, document, bins }: { layoutVer
         {error && <p role="alert" className="notice-error w-full">{error}</p>}
       </form>
       <div className="card overflow-hidden p-2">
-        <FloorPlanView document={document} route={route} />
+        <FloorPlanView document={document} route={route} onCellHover={(c) => setHovered(c?.index ?? null)} label="Published floor plan" />
+        <p className="mt-2 min-h-tap px-2 text-base" aria-live="polite" data-testid="hover-info">
+          {hoverBin
+            ? `${hoverCodes.join(", ")}: ${hoverBin.fromDepot ? `${metres(hoverBin.fromDepot.mm)} walk from ${hoverBin.fromDepot.depot}` : "no depot reaches this bay"}`
+            : "Point at a rack bay to see how far it is from the depot."}
+        </p>
       </div>
       <section aria-labelledby="bins-title">
         <h2 id="bins-title" className="mb-3">Bins ({bins.length.toLocaleString("en")})</h2>

@@ -152,7 +152,7 @@ export function RouteLayer({ route, width, id }: { route: RouteOverlay; width: n
   return (
     <g pointerEvents="none">
       <polyline points={pts.join(" ")} fill="none" stroke={C.route} strokeWidth={0.22} strokeLinejoin="round" strokeLinecap="round" opacity={0.85} markerEnd={`url(#${id}-arrow)`} />
-      <polyline points={arrows.length > 1 ? arrows.join(" ") : ""} fill="none" stroke="none" markerMid={`url(#${id}-arrow)`} />
+      <polyline points={arrows.length > 1 ? arrows.join(" ") : ""} fill="none" stroke="none" strokeWidth={0.22} markerMid={`url(#${id}-arrow)`} />
       {route.stops.map((s, i) => (
         <g key={`${s.label}-${i}`}>
           <circle cx={s.x + 0.5} cy={s.y + 0.5} r={0.48} fill={C.floor} stroke={C.route} strokeWidth={0.12} />

@@ -27,7 +27,8 @@ export default async function FloorPlansPage() {
             <li key={p.id} className="card flex flex-col gap-3">
               <h2>{p.name}</h2>
               <p className="text-ink-soft">
-                Draft saved {p.draftVersion} {p.draftVersion === 1 ? "time" : "times"}, last {new Date(p.draftUpdatedAt).toLocaleString("en-GB")}.
+                Draft last saved {new Date(p.draftUpdatedAt).toLocaleString("en-GB")}
+                {p.latestVersion && p.latestVersion.fromDraftVersion === p.draftVersion ? " — the same as the published version." : p.latestVersion ? " — it has changes not yet published." : "."}
                 <br />
                 {p.latestVersion
                   ? `Published as version ${p.latestVersion.number} on ${new Date(p.latestVersion.publishedAt).toLocaleString("en-GB")} with ${p.latestVersion.binCount.toLocaleString("en")} bins.`

@@ -5,6 +5,8 @@ import { requireRole } from "@/lib/auth/guard";
 import { getFloorPlan } from "@/db/floor-plans";
 import { getLayoutVersion, listLayoutBins } from "@/db/layout-versions";
 import { VersionExplorer } from "@/components/floor-plans/VersionExplorer";
+import { layoutGraph } from "@/lib/layout/graph-cache";
+import { binDistancesFromDepots } from "@/lib/layout/depot-distances";
 
 export const metadata: Metadata = { title: "Layout version" };
 
@@ -18,7 +20,13 @@ export default async function LayoutVersionPage({ params }: { params: Promise<{ 
   const plan = planId ? await getFloorPlan(user.siteId, planId) : null;
   const version = plan && n ? await getLayoutVersion(user.siteId, plan.id, n) : null;
   if (!plan || !version) notFound();
-  const bins = await listLayoutBins(version.id);
+  const [rows, { graph, matrix }] = await Promise.all([listLayoutBins(version.id), layoutGraph(version.id)]);
+  const fromDepot = binDistancesFromDepots(graph, matrix);
+  const depotName = new Map(version.document.depots.map((d) => [d.id, d.name]));
+  const bins = rows.map((b) => {
+    const d = fromDepot.get(b.code) ?? null;
+    return { ...b, fromDepot: d ? { depot: depotName.get(d.depot) ?? d.depot, mm: d.mm } : null };
+  });
   return (
     <>
       <p className="mb-2 text-sm">

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
-import { FieldErrors } from "./FieldErrors";
+import { FailureNotice } from "@/components/FailureNotice";
 
 export function SignInForm({ next }: { next?: string }) {
   const [failure, setFailure] = useState<ApiFailure | null>(null);
@@ -37,12 +37,7 @@ export function SignInForm({ next }: { next?: string }) {
         <label htmlFor="password" className="label">Password</label>
         <input id="password" name="password" type="password" autoComplete="current-password" required className="field" />
       </div>
-      {failure && (
-        <div role="alert" className="notice-error">
-          <p className="font-semibold">{failure.message}</p>
-          <FieldErrors issues={failure.issues} />
-        </div>
-      )}
+      <FailureNotice failure={failure} />
       <button type="submit" className="btn-primary w-full" disabled={busy}>
         {busy ? "Signing in…" : "Sign in"}
       </button>

@@ -1,5 +1,6 @@
 "use client";
 
+import { FileField } from "@/components/FileField";
 import { useState } from "react";
 import type { EditorDocument } from "@/lib/editor/document";
 import type { Intent } from "@/lib/editor/editor-state";
@@ -28,21 +29,13 @@ export function BackgroundPanel({ planId, doc, dispatch }: Props) {
 
   return (
     <div className="space-y-3">
-      <label className="block">
-        <span className="label">Background picture (PNG or JPEG)</span>
-        <input
-          className="field py-2"
-          type="file"
-          accept="image/png,image/jpeg"
-          disabled={busy}
-          onChange={(e) => {
-            const f = e.target.files?.[0];
-            e.target.value = "";
-            if (f) void onFile(f);
-          }}
-        />
-        <span className="mt-1 block text-sm text-ink-soft">It is stretched over the whole grid; size the grid to the picture first.</span>
-      </label>
+      <FileField
+        label="Background picture (PNG or JPEG)"
+        accept="image/png,image/jpeg"
+        disabled={busy}
+        onFile={(f) => void onFile(f)}
+        hint="It is stretched over the whole grid; size the grid to the picture first."
+      />
       {busy && <p role="status">Uploading…</p>}
       {error && (
         <p className="notice-error text-sm" role="alert">

@@ -1,5 +1,6 @@
 "use client";
 
+import { FileField } from "@/components/FileField";
 import { useState } from "react";
 import type { RackRun } from "@/lib/editor/document";
 import { importRunBins, runBinsUrl, type BadRow } from "./api";
@@ -51,20 +52,12 @@ export function RunBinsSpreadsheet({ planId, run, ensureSaved, onCodes }: Props)
           Download .csv
         </a>
       </div>
-      <label className="block">
-        <span className="label">Import codes (.xlsx or .csv)</span>
-        <input
-          className="field py-2"
-          type="file"
-          accept=".xlsx,.csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet,text/csv"
-          disabled={busy}
-          onChange={(e) => {
-            const f = e.target.files?.[0];
-            e.target.value = "";
-            if (f) void onFile(f);
-          }}
-        />
-      </label>
+      <FileField
+        label="Import codes (.xlsx or .csv)"
+        accept=".xlsx,.csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet,text/csv"
+        disabled={busy}
+        onFile={(f) => void onFile(f)}
+      />
       {busy && <p className="text-sm" role="status">Reading the sheet…</p>}
       {done && <p className="notice-info text-sm" role="status">{done}</p>}
       {error && (

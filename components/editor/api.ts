@@ -1,6 +1,6 @@
 import type { EditorDocument, RackRun } from "@/lib/editor/document";
 import type { Problem } from "@/lib/editor/checks";
-import { postJson, requestJson, type ApiResult } from "@/lib/client/fetch-json";
+import { postJson, requestJson, uploadFile, type ApiResult } from "@/lib/client/fetch-json";
 
 /** The draft API's answers (contract with app/api/floor-plans/[id]/…). */
 export type DraftResponse = {
@@ -27,19 +27,4 @@ export function publishProblems(r: ApiResult<unknown>): Problem[] {
   if (r.ok || r.status !== 422) return [];
   const body = r.body as { problems?: Problem[] } | null | undefined;
   return Array.isArray(body?.problems) ? body.problems : [];
-}
-
-/** Multipart upload of one file in the field "file", answered like requestJson. */
-async function uploadFile<T>(url: string, file: File): Promise<ApiResult<T>> {
-  const form = new FormData();
-  form.append("file", file);
-  let res: Response;
-  try {
-    res = await fetch(url, { method: "POST", body: form, credentials: "same-origin" });
-  } catch {
-    return { ok: false, status: 0, message: "No connection to Trailbin. Check the Wi-Fi and try again." };
-  }
-  const data = (await res.json().catch(() => null)) as (T & { error?: string }) | null;
-  if (res.ok) return { ok: true, status: res.status, data: data as T };
-  return { ok: false, status: res.status, message: data?.error ?? `The server answered ${res.status}. Try again in a moment.`, body: data };
 }

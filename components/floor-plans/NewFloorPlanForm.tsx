@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
-import { FieldErrors } from "@/components/FieldErrors";
+import { FailureNotice } from "@/components/FailureNotice";
 
 export function NewFloorPlanForm() {
   const [failure, setFailure] = useState<ApiFailure | null>(null);
@@ -39,9 +39,7 @@ export function NewFloorPlanForm() {
           </select>
         </label>
       </div>
-      {failure && (
-        <div role="alert" className="notice-error"><p className="font-semibold">{failure.message}</p><FieldErrors issues={failure.issues} /></div>
-      )}
+      <FailureNotice failure={failure} />
       <button className="btn-primary" disabled={busy}>{busy ? "Creating…" : "Create and open the editor"}</button>
     </form>
   );

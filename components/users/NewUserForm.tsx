@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
-import { FieldErrors } from "@/components/FieldErrors";
+import { FailureNotice } from "@/components/FailureNotice";
 import { ROLE_LABEL, ROLES } from "@/lib/auth/permissions";
 import type { UserDTO } from "@/db/users";
 
@@ -46,12 +46,7 @@ export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<
           <input name="password" type="password" autoComplete="new-password" className="field" required minLength={12} />
         </label>
       </div>
-      {failure && (
-        <div role="alert" className="notice-error">
-          <p className="font-semibold">{failure.message}</p>
-          <FieldErrors issues={failure.issues} />
-        </div>
-      )}
+      <FailureNotice failure={failure} />
       <button type="submit" className="btn-primary" disabled={busy}>{busy ? "Adding…" : "Add user"}</button>
     </form>
   );

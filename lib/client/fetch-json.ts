@@ -6,11 +6,13 @@ export type ApiResult<T> = { ok: true; status: number; data: T } | ApiFailure;
 /** Turns any answer (or no answer) into something the screen can show a person. */
 export async function requestJson<T>(method: string, url: string, body?: unknown): Promise<ApiResult<T>> {
   let res: Response;
+  // A FormData body goes as multipart (the browser sets the boundary); anything else as JSON.
+  const form = body instanceof FormData;
   try {
     res = await fetch(url, {
       method,
-      headers: body === undefined ? {} : { "content-type": "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      headers: body === undefined || form ? {} : { "content-type": "application/json" },
+      body: body === undefined ? undefined : form ? body : JSON.stringify(body),
       credentials: "same-origin",
     });
   } catch {
@@ -28,6 +30,13 @@ export async function requestJson<T>(method: string, url: string, body?: unknown
 }
 
 export const postJson = <T>(url: string, body: unknown) => requestJson<T>("POST", url, body);
+
+/** Multipart upload of one file in the field "file", answered like any other request. */
+export function uploadFile<T>(url: string, file: File): Promise<ApiResult<T>> {
+  const form = new FormData();
+  form.append("file", file);
+  return requestJson<T>("POST", url, form);
+}
 export const patchJson = <T>(url: string, body: unknown) => requestJson<T>("PATCH", url, body);
 
 /** SWR fetcher: throws an Error whose message is the server's. */

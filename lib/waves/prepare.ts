@@ -1,0 +1,105 @@
+import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
+import { UnreachableStopError } from "@/lib/routing/errors";
+import type { CompactGraph, GraphBin } from "@/lib/routing/graph";
+import { planPick } from "@/lib/routing/plan";
+import type { CartLimits, UnbatchableOrder, WaveOrder } from "./types";
+import { compareUrgency, cutoffMs } from "./urgency";
+import { InsertionRoute, type WalkCosts } from "./walk-costs";
+
+/** An order that passed the checks, with what batching needs precomputed. */
+export type PreparedOrder = {
+  order: WaveOrder;
+  cutoffMs: number;
+  lineCount: number;
+  weightG: number;
+  /** Distinct WalkCosts points of its lines, ascending. */
+  points: number[];
+  /** Position in the first-come queue (0 = most urgent). */
+  rank: number;
+  /**
+   * The cheap insertion route cannot walk this order's stops although a full search can (possible
+   * only with one-way aisles in an awkward order): it then rides alone in its own batch.
+   */
+  alone: boolean;
+};
+
+function grams(g: number): string {
+  return g >= 1000 ? `${(g / 1000).toFixed(1)} kg` : `${Math.round(g)} g`;
+}
+
+/** Why this order can never be batched on this layout with these limits, or null. */
+function problem(order: WaveOrder, limits: CartLimits, bins: Map<string, GraphBin>, weightG: number): string | null {
+  const name = `Order ${order.orderNumber}`;
+  if (order.lines.length === 0) return `${name} has no lines; add its lines or cancel it.`;
+  if (Number.isNaN(cutoffMs(order))) return `${name} has a cut-off "${order.cutoffAt}" that is not a date and time; correct it and plan again.`;
+  if (!Number.isFinite(order.priority)) return `${name} has no valid priority; set it to 1, 2 or 3.`;
+  const badQty = order.lines.find((l) => !(l.quantity > 0) || !Number.isFinite(l.quantity));
+  if (badQty) return `${name}: line ${badQty.lineId} (${badQty.sku}) has quantity ${badQty.quantity}; quantities must be positive.`;
+  const badWeight = order.lines.find((l) => !(l.unitWeightG >= 0) || !Number.isFinite(l.unitWeightG));
+  if (badWeight) return `${name}: ${badWeight.sku} has no valid unit weight in the item master; correct it and plan again.`;
+  const unknown = [...new Set(order.lines.map((l) => l.binCode).filter((c) => !bins.has(c)))];
+  if (unknown.length > 0) {
+    return `${name} picks from ${unknown.join(", ")}, which ${unknown.length === 1 ? "is" : "are"} not on the published layout; correct the item master or publish a floor plan with ${unknown.length === 1 ? "that bin" : "those bins"}.`;
+  }
+  if (order.lines.length > limits.maxLines) {
+    return `${name} has ${order.lines.length} lines but a cart takes at most ${limits.maxLines}; split the order or raise the cart's line limit.`;
+  }
+  if (weightG > limits.maxWeightG) {
+    return `${name} weighs ${grams(weightG)} but a cart takes at most ${grams(limits.maxWeightG)}; split the order or raise the cart's weight limit.`;
+  }
+  return null;
+}
+
+/**
+ * Checks every order, registers the access points of the good ones with `costs`, and returns the
+ * good ones in first-come order. Every other order comes back with a reason, never dropped.
+ */
+export function prepareOrders(
+  graph: CompactGraph,
+  dm: DistanceMatrix,
+  ends: { from: string; to: string },
+  costs: WalkCosts,
+  orders: readonly WaveOrder[],
+  limits: CartLimits,
+): { prepared: PreparedOrder[]; unbatchable: UnbatchableOrder[] } {
+  const bins = new Map(graph.bins.map((b) => [b.code, b]));
+  const unbatchable: UnbatchableOrder[] = [];
+  const seen = new Set<number>();
+  const good: Omit<PreparedOrder, "rank" | "points" | "alone">[] = [];
+  for (const order of orders) {
+    if (seen.has(order.orderId)) {
+      unbatchable.push({ orderId: order.orderId, reason: `Order ${order.orderNumber} appears more than once in the wave (id ${order.orderId}); only its first copy was batched.` });
+      continue;
+    }
+    seen.add(order.orderId);
+    const weightG = order.lines.reduce((s, l) => s + l.quantity * l.unitWeightG, 0);
+    const reason = problem(order, limits, bins, weightG);
+    if (reason) unbatchable.push({ orderId: order.orderId, reason });
+    else good.push({ order, cutoffMs: cutoffMs(order), lineCount: order.lines.length, weightG });
+  }
+  good.sort(compareUrgency);
+  const withPoints = good.map((g, rank) => {
+    const aps = new Set(g.order.lines.map((l) => (bins.get(l.binCode) as GraphBin).accessPoint));
+    return { ...g, rank, alone: false, points: [...aps].map((ap) => costs.pointOf(ap)).sort((a, b) => a - b) };
+  });
+  const prepared: PreparedOrder[] = [];
+  for (const p of withPoints) {
+    if (new InsertionRoute(costs).addedLength(p.points) < Infinity) {
+      prepared.push(p);
+      continue;
+    }
+    // Insertion found no walk; the exact planner decides whether one exists at all.
+    try {
+      planPick(graph, dm, { ...ends, binCodes: p.order.lines.map((l) => l.binCode) });
+      prepared.push({ ...p, alone: true });
+    } catch (e) {
+      if (!(e instanceof UnreachableStopError)) throw e;
+      const where = e.codes.length > 0 ? ` (${e.codes.join(", ")})` : "";
+      unbatchable.push({
+        orderId: p.order.orderId,
+        reason: `Order ${p.order.orderNumber} has bins${where} that no walk from the depot to the drop-off can reach; check one-way aisles and blocked floor on the floor plan, or move the items.`,
+      });
+    }
+  }
+  return { prepared, unbatchable };
+}

@@ -33,7 +33,8 @@ export function RunBinsSpreadsheet({ planId, run, ensureSaved, onCodes }: Props)
     setBusy(false);
     if (r.ok) {
       onCodes(r.data.customCodes);
-      setDone(`${r.data.customCodes.length} codes differ from the pattern. Undo takes the import back.`);
+      const n = r.data.customCodes.length;
+      setDone(n === 0 ? "Every code matches the pattern; nothing to change." : `${n} ${n === 1 ? "code differs" : "codes differ"} from the pattern. Undo takes the import back.`);
     } else {
       const rows = (r.body as { rows?: BadRow[] } | null | undefined)?.rows;
       setError({ message: r.message, rows: Array.isArray(rows) ? rows : [] });

@@ -8,6 +8,7 @@ import { buildLayout } from "@/lib/layout/build";
 import { accessDistance } from "@/lib/routing/access";
 import { findBin } from "@/lib/routing/graph";
 import { editorDocumentSchema } from "@/lib/editor/document";
+import { smallDocument } from "../support/documents";
 
 const RULER_PX = 28;
 
@@ -118,6 +119,36 @@ describe("drawing a floor plan by mouse and publishing it", () => {
     await page.mouse.move(box.x + (5.5 / W) * box.width, box.y + (2.5 / 7) * box.height);
     await expect(page.getByTestId("hover-info").textContent()).resolves.toMatch(/m walk from/);
     await page.screenshot({ path: path.join(ARTIFACTS, "layout-version.png"), fullPage: true });
+    await context.close();
+  });
+});
+
+describe("editor uploads", () => {
+  const PNG = Buffer.from("89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082", "hex");
+
+  it("imports a rack run's codes from a CSV, shows bad rows by number, and lays a picture under the grid", async () => {
+    const { context, page } = await signedInPage(browser, "admin", { width: 1400, height: 1000 });
+    const origin = new URL(APP_URL).origin;
+    const created = await context.request.post(`${APP_URL}/api/floor-plans`, { headers: { Origin: origin }, data: { name: `Uploads ${Date.now()}`, widthM: 12, heightM: 7, cellMm: 1000 } });
+    const { id } = (await created.json()) as { id: number };
+    const saved = await context.request.put(`${APP_URL}/api/floor-plans/${id}/draft`, { headers: { Origin: origin }, data: { version: 1, document: smallDocument() } });
+    expect(saved.ok()).toBe(true);
+
+    await page.goto(`${APP_URL}/floor-plans/${id}`);
+    await page.getByRole("application").waitFor();
+    await tool(page, "Select");
+    await click(page, 12, [3, 2]);
+    const upload = page.getByLabel("Import codes (.xlsx or .csv)");
+    await upload.setInputFiles({ name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from("Location code,Bay,Level\nX-1,1,1\nX-2,99,1\n") });
+    await page.getByText(/row 3/i).first().waitFor();
+    await upload.setInputFiles({ name: "good.csv", mimeType: "text/csv", buffer: Buffer.from("Location code,Bay,Level\nDOCK-SPARES,1,1\n") });
+    await page.getByText(/1 code differs from the pattern/).waitFor();
+    await page.getByText("DOCK-SPARES").first().waitFor();
+
+    await page.getByText("Background picture", { exact: true }).click();
+    await page.getByLabel("Background picture (PNG or JPEG)").setInputFiles({ name: "plan.png", mimeType: "image/png", buffer: PNG });
+    await page.locator("svg[role=application] image").waitFor({ state: "attached" });
+    await page.screenshot({ path: path.join(ARTIFACTS, "editor-uploads.png"), fullPage: true });
     await context.close();
   });
 });

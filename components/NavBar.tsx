@@ -8,6 +8,8 @@ import type { SignedInUser } from "@/lib/auth/session";
 const LINKS: { href: string; label: string; access: Access }[] = [
   { href: "/floor-plans", label: "Floor plans", access: "floorplans.read" },
   { href: "/waves", label: "Waves", access: "waves.read" },
+  { href: "/orders", label: "Orders", access: "waves.read" },
+  { href: "/items", label: "Item master", access: "waves.read" },
   { href: "/my-batches", label: "My batches", access: "picks.work" },
   { href: "/admin/users", label: "Users", access: "users.manage" },
 ];

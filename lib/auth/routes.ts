@@ -16,6 +16,10 @@ export const PAGE_ACCESS: Record<string, Access> = {
   "/waves": "waves.read",
   "/my-batches": "picks.work",
   "/admin/users": "users.manage",
+  "/items": "waves.read",
+  "/orders": "waves.read",
+  "/waves/[id]": "waves.read",
+  "/waves/[id]/batches/[number]": "waves.read",
 };
 
 export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
@@ -32,5 +36,15 @@ export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
   "/api/floor-plans/[id]/background/[fileId]": { GET: "floorplans.read" },
   "/api/floor-plans/[id]/rack-runs/[runId]/bins": { GET: "floorplans.read", POST: "floorplans.edit" },
   "/api/layout-versions/[id]/distance": { GET: "floorplans.read" },
-  "/api/jobs/[id]": { GET: "signed-in" },
+  "/api/jobs/[id]": { GET: "signed-in", DELETE: "signed-in" },
+  "/api/items": { GET: "waves.read" },
+  "/api/items/export": { GET: "waves.read" },
+  "/api/orders": { GET: "waves.read" },
+  "/api/imports/[kind]": { POST: "waves.plan" },
+  "/api/imports/[kind]/preview": { POST: "waves.plan" },
+  "/api/imports/[kind]/template": { GET: "waves.plan" },
+  "/api/waves": { GET: "waves.read", POST: "waves.plan" },
+  "/api/waves/[id]": { GET: "waves.read" },
+  "/api/waves/[id]/plan": { POST: "waves.plan" },
+  "/api/waves/[id]/release": { POST: "waves.plan" },
 };

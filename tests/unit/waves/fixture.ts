@@ -1,0 +1,14 @@
+import { bramblegateDocument } from "@/lib/editor/demo-bramblegate";
+import { buildLayout, type BuiltLayout } from "@/lib/layout/build";
+import { demoItems, type DemoItem } from "@/lib/waves/demo-orders";
+
+let built: Promise<{ layout: BuiltLayout; items: DemoItem[] }> | undefined;
+
+/** The demo floor plan built once per test file, with the demo item master slotted into it. */
+export function demoLayout(): Promise<{ layout: BuiltLayout; items: DemoItem[] }> {
+  built ??= (async () => {
+    const doc = bramblegateDocument();
+    return { layout: await buildLayout(doc), items: demoItems(doc) };
+  })();
+  return built;
+}

@@ -1,8 +1,14 @@
 // Node-only: runs routing jobs in worker_threads so long solves never block the server's event loop.
 import path from "node:path";
 import { Worker } from "node:worker_threads";
-import type { JobResult, RoutingJob, WorkerMessage } from "./jobs";
+import type { JobResult, RoutingJob, SerializedError } from "./jobs";
 import { deserializeError } from "./jobs";
+
+/** What a worker entry sends back; any entry speaking it (see ./serve-jobs) can back a pool. */
+type PoolMessage =
+  | { type: "progress"; jobId: number; fraction: number }
+  | { type: "done"; jobId: number; result: unknown }
+  | { type: "error"; jobId: number; error: SerializedError };
 
 export type JobFailure = "timeout" | "cancelled" | "crashed" | "closed";
 
@@ -33,7 +39,7 @@ export interface RunOptions {
 
 interface Pending {
   id: number;
-  job: RoutingJob;
+  job: unknown;
   opts: RunOptions;
   resolve: (v: unknown) => void;
   reject: (e: Error) => void;
@@ -46,7 +52,8 @@ interface Slot {
   onAbort: (() => void) | null;
 }
 
-export class RoutingPool {
+/** A pool of worker threads running one kind of job; the entry decides what a job means. */
+export class WorkerPool<Job, Result> {
   private readonly size: number;
   private readonly timeoutMs: number;
   private readonly entry: string;
@@ -63,10 +70,10 @@ export class RoutingPool {
     this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath ?? "lib/routing/worker.ts");
   }
 
-  run<J extends RoutingJob>(job: J, opts: RunOptions = {}): Promise<JobResult<J>> {
+  run(job: Job, opts: RunOptions = {}): Promise<Result> {
     if (this.closed) return Promise.reject(new RoutingJobError("closed", "the routing pool is closed"));
     if (opts.signal?.aborted) return Promise.reject(new RoutingJobError("cancelled", "job cancelled before it started"));
-    return new Promise<JobResult<J>>((resolve, reject) => {
+    return new Promise<Result>((resolve, reject) => {
       const p: Pending = { id: this.nextId++, job, opts, resolve: resolve as (v: unknown) => void, reject };
       const onQueuedAbort = () => {
         const i = this.queue.indexOf(p);
@@ -105,7 +112,7 @@ export class RoutingPool {
     const worker = new Worker(bootstrap, { eval: true, execArgv: ["--import", "tsx"] });
     worker.unref();
     const slot: Slot = { worker, running: null, timer: null, onAbort: null };
-    worker.on("message", (m: WorkerMessage) => this.onMessage(slot, m));
+    worker.on("message", (m: PoolMessage) => this.onMessage(slot, m));
     worker.on("error", (e) => this.fail(slot, "crashed", `routing worker crashed: ${e.message}`));
     worker.on("exit", (code) => this.fail(slot, "crashed", `routing worker exited with code ${code}`));
     this.slots.push(slot);
@@ -133,7 +140,7 @@ export class RoutingPool {
     slot.worker.postMessage({ jobId: p.id, job: p.job });
   }
 
-  private onMessage(slot: Slot, m: WorkerMessage): void {
+  private onMessage(slot: Slot, m: PoolMessage): void {
     const p = slot.running;
     if (!p || m.jobId !== p.id) return;
     if (m.type === "progress") p.opts.onProgress?.(m.fraction);
@@ -167,5 +174,12 @@ export class RoutingPool {
     slot.running = null;
     p?.reject(new RoutingJobError(reason, message));
     if (!this.closed) this.pump();
+  }
+}
+
+/** The routing engine's pool: sequencing and Floyd–Warshall jobs, typed by kind. */
+export class RoutingPool extends WorkerPool<RoutingJob, unknown> {
+  override run<J extends RoutingJob>(job: J, opts: RunOptions = {}): Promise<JobResult<J>> {
+    return super.run(job, opts) as Promise<JobResult<J>>;
   }
 }

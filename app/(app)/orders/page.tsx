@@ -1,0 +1,21 @@
+import type { Metadata } from "next";
+import { requireRole } from "@/lib/auth/guard";
+import { roleMay } from "@/lib/auth/permissions";
+import { getSite } from "@/db/sites";
+import { PageHeader } from "@/components/PageHeader";
+import { OrdersScreen } from "@/components/orders/OrdersScreen";
+import { layoutVersionOptions } from "@/components/imports/versions";
+
+export const metadata: Metadata = { title: "Orders" };
+
+export default async function OrdersPage() {
+  const user = await requireRole("waves.read", "/orders");
+  const canPlan = roleMay(user.role, "waves.plan");
+  const site = await getSite(user.siteId);
+  return (
+    <>
+      <PageHeader title="Orders" lead="Orders imported from order-line spreadsheets, with their cut-off and priority. Open orders are the ones waves are planned from." />
+      <OrdersScreen canPlan={canPlan} versions={canPlan ? await layoutVersionOptions(user.siteId) : []} timeZone={site?.timezone ?? "UTC"} />
+    </>
+  );
+}

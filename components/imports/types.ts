@@ -1,0 +1,36 @@
+import type { ImportKind } from "@/lib/imports/fields";
+
+export type RowProblem = { row: number; message: string };
+export type ImportCounts = { rows: number; items?: number; inserted?: number; updated?: number; orders?: number; lines?: number };
+
+/** POST /api/imports/[kind]/preview */
+export type PreviewAnswer = {
+  headers: string[];
+  mapping: Record<string, number | null>;
+  fields: { key: string; label: string; required: boolean }[];
+  preview: string[][];
+  problems: RowProblem[];
+  counts: ImportCounts;
+  duplicate: { importedAt: string; filename: string } | null;
+};
+
+/** POST /api/imports/[kind]: 201 { counts } or 200 { alreadyImported, … } */
+export type ImportAnswer = { counts: ImportCounts; alreadyImported?: undefined } | { alreadyImported: true; importedAt: string; filename: string; counts: ImportCounts };
+
+export type VersionOption = { id: number; label: string };
+
+export function importedSentence(kind: ImportKind, a: ImportAnswer): string {
+  const c = a.counts;
+  if (a.alreadyImported) {
+    return `This file was already imported on ${new Date(a.importedAt).toLocaleString("en-GB")} (as “${a.filename}”, ${c.orders ?? 0} orders, ${c.lines ?? 0} lines). Nothing was added again.`;
+  }
+  if (kind === "items") return `Imported ${c.items ?? 0} SKUs: ${c.inserted ?? 0} new, ${c.updated ?? 0} updated (their bins replaced).`;
+  return `Imported ${c.orders ?? 0} orders with ${c.lines ?? 0} order lines.`;
+}
+
+/** Spreadsheet column letters, so "Column C" matches what the person sees in their sheet. */
+export function columnLetter(i: number): string {
+  let s = "";
+  for (let n = i + 1; n > 0; n = Math.floor((n - 1) / 26)) s = String.fromCharCode(65 + ((n - 1) % 26)) + s;
+  return s;
+}

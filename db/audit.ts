@@ -13,7 +13,10 @@ export type AuditEvent =
   | "user.changed"
   | "layout.publish_started"
   | "layout.published"
-  | "floor_plan.saved";
+  | "floor_plan.saved"
+  | "wave.created"
+  | "wave.plan_started"
+  | "wave.released";
 
 export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
 

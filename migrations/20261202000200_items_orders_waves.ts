@@ -85,6 +85,7 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp("created_at", { precision: 3 }).notNullable().defaultTo(knex.fn.now(3));
     t.timestamp("planned_at", { precision: 3 }).nullable();
     t.timestamp("released_at", { precision: 3 }).nullable();
+    t.string("released_by", 32).nullable();
     t.foreign("site_id").references("sites.id");
     t.foreign("layout_version_id").references("layout_versions.id");
     t.foreign("created_by").references("users.id").onDelete("SET NULL");

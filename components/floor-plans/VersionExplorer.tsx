@@ -12,7 +12,7 @@ export type VersionBin = BinRowDTO & { fromDepot: { depot: string; mm: number } 
 
 type Answer = { from: string; to: string; distanceMm: number; cells: number[] };
 
-const metres = (mm: number) => `${(mm / 1000).toLocaleString("en-GB", { maximumFractionDigits: 1 })} m`;
+import { metres } from "@/lib/format/units";
 
 export function VersionExplorer({ layoutVersionId, document, bins }: { layoutVersionId: number; document: EditorDocument; bins: VersionBin[] }) {
   const [hovered, setHovered] = useState<number | null>(null);

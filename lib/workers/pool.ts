@@ -1,11 +1,21 @@
 import "server-only";
-import { RoutingPool } from "@/lib/routing/pool";
+import { RoutingPool, WorkerPool } from "@/lib/routing/pool";
+import type { BatchingResult } from "@/lib/waves/types";
+import type { WaveJob } from "./wave-job";
 
-// One pool per server process. A single worker: the machine has two cores, and the other one
-// keeps serving pickers while a publish or a wave plan runs.
-const globalForPool = globalThis as unknown as { trailbinPool?: RoutingPool };
+// One worker per kind of work: the machine has two cores, and the other one keeps serving pickers
+// while a publish or a wave plan runs.
+const globalForPool = globalThis as unknown as { trailbinPool?: RoutingPool; trailbinWavePool?: WorkerPool<WaveJob, BatchingResult> };
 
 export function routingPool(): RoutingPool {
   globalForPool.trailbinPool ??= new RoutingPool({ size: 1, defaultTimeoutMs: 120_000 });
   return globalForPool.trailbinPool;
+}
+
+/** A 1,000-order wave plans in seconds (npm run bench); ten minutes means something is wrong. */
+export const WAVE_TIME_LIMIT_MS = 10 * 60 * 1000;
+
+export function wavePool(): WorkerPool<WaveJob, BatchingResult> {
+  globalForPool.trailbinWavePool ??= new WorkerPool<WaveJob, BatchingResult>({ size: 1, defaultTimeoutMs: WAVE_TIME_LIMIT_MS, workerPath: "lib/workers/wave-worker.ts" });
+  return globalForPool.trailbinWavePool;
 }

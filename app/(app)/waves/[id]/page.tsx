@@ -1,0 +1,62 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { requireRole } from "@/lib/auth/guard";
+import { roleMay } from "@/lib/auth/permissions";
+import { getWave, listBatches } from "@/db/waves";
+import { getSite } from "@/db/sites";
+import { WaveResults } from "@/components/waves/WaveResults";
+import { WaveActions } from "@/components/waves/WaveActions";
+import { SavingsChart } from "@/components/waves/SavingsChart";
+import { estimateSeconds } from "@/lib/waves/estimate";
+import { metres, minutes, savingsPct } from "@/lib/format/units";
+
+export const metadata: Metadata = { title: "Wave" };
+
+export default async function WavePage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await requireRole("waves.read", `/waves/${id}`);
+  const wave = /^\d{1,9}$/.test(id) ? await getWave(user.siteId, Number(id)) : null;
+  if (!wave) notFound();
+  const [batches, site] = await Promise.all([listBatches(wave.id), getSite(user.siteId)]);
+  const timing = { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? 1000, secondsPerLine: site?.secondsPerLine ?? 15 };
+  const rows = batches.map((b) => ({ ...b, seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing) }));
+  const totalSeconds = rows.reduce((a, b) => a + b.seconds, 0);
+  const s = wave.settings;
+  return (
+    <>
+      <p className="mb-2 text-sm"><Link className="underline" href="/waves">Waves</Link> › {wave.name}</p>
+      <h1>{wave.name}</h1>
+      <p className="mt-1 text-ink-soft">
+        {wave.orderCount} orders on {wave.floorPlanName}, layout version {wave.layoutVersionNumber}. Carts of {s.totesPerCart} totes, at most {s.maxLines} lines and {s.maxWeightG / 1000} kg; from {s.depotId} to {s.dropoffId};{" "}
+        {s.method === "savings" ? "batched by route savings" : "batched first come by cut-off"}.
+      </p>
+      <WaveActions waveId={wave.id} status={wave.status} version={wave.version} canPlan={roleMay(user.role, "waves.plan")} />
+      {wave.unbatchable.length > 0 && (
+        <div className="notice-error mt-4" role="alert">
+          <p className="font-semibold">{wave.unbatchable.length} orders could not be batched:</p>
+          <ul className="list-disc pl-5">
+            {wave.unbatchable.slice(0, 20).map((u) => <li key={u.orderId}><span className="font-semibold">{u.orderNumber ?? u.orderId}</span>: {u.reason}</li>)}
+          </ul>
+        </div>
+      )}
+      {batches.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
+        <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">
+          <dl className="card grid grid-cols-2 gap-3">
+            <dt className="text-ink-soft">Batches</dt><dd className="text-xl font-bold">{batches.length}</dd>
+            <dt className="text-ink-soft">Planned walk</dt><dd className="text-xl font-bold">{metres(wave.distanceMm)}</dd>
+            <dt className="text-ink-soft">Usual walk</dt><dd className="text-xl">{metres(wave.baselineMm)}</dd>
+            <dt className="text-ink-soft">Savings</dt><dd className="text-xl font-bold text-trail-dark">{savingsPct(wave.distanceMm, wave.baselineMm)}</dd>
+            <dt className="text-ink-soft">Estimated time</dt><dd className="text-xl">{minutes(totalSeconds)}</dd>
+            <dd className="col-span-2 text-sm text-ink-soft">Estimates assume {timing.walkingSpeedMmPerS / 1000} m/s walking and {timing.secondsPerLine} s per line (common practice; set your site&apos;s own figures).</dd>
+          </dl>
+          <SavingsChart batches={batches} />
+        </section>
+      )}
+      <section className="mt-6" aria-labelledby="batches-title">
+        <h2 id="batches-title" className="mb-3">Batches</h2>
+        <WaveResults waveId={wave.id} batches={rows} />
+      </section>
+    </>
+  );
+}

@@ -1,0 +1,11 @@
+import { z } from "zod";
+import { route } from "@/lib/http/route";
+import { intParam } from "@/lib/http/params";
+import { startPlanWave } from "@/lib/wave-planning/plan-wave";
+
+const Plan = z.object({ version: z.number().int().positive() });
+
+export const POST = route({ access: "waves.plan", body: Plan }, async ({ user, params, body, ip }) => {
+  const job = await startPlanWave(user, intParam(params, "id", "wave"), body.version, ip);
+  return Response.json({ jobId: job.id, job }, { status: 202 });
+});

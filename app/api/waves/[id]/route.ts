@@ -1,0 +1,12 @@
+import { route } from "@/lib/http/route";
+import { HttpError } from "@/lib/http/errors";
+import { intParam } from "@/lib/http/params";
+import { getWave, listBatches } from "@/db/waves";
+
+export const dynamic = "force-dynamic";
+
+export const GET = route({ access: "waves.read" }, async ({ user, params }) => {
+  const wave = await getWave(user.siteId, intParam(params, "id", "wave"));
+  if (!wave) throw new HttpError(404, "No such wave at this site.");
+  return Response.json({ wave, batches: await listBatches(wave.id) });
+});

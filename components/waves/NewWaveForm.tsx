@@ -1,0 +1,96 @@
+"use client";
+
+import { useState } from "react";
+import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
+import { FailureNotice } from "@/components/FailureNotice";
+
+export type LayoutChoice = { id: number; label: string; depots: { id: string; name: string }[]; dropoffs: { id: string; name: string }[] };
+
+export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
+  const [layoutId, setLayoutId] = useState(layouts[0]?.id ?? 0);
+  const [failure, setFailure] = useState<ApiFailure | null>(null);
+  const [busy, setBusy] = useState(false);
+  const layout = layouts.find((l) => l.id === layoutId);
+
+  if (layouts.length === 0) {
+    return <p className="notice-info mt-8">Waves are planned on a published floor plan. Ask a layout admin to publish one first.</p>;
+  }
+
+  async function submit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    if (busy) return;
+    const f = new FormData(e.currentTarget);
+    const cutoff = String(f.get("cutoffBefore") ?? "");
+    setBusy(true);
+    const r = await postJson<{ id: number }>("/api/waves", {
+      name: String(f.get("name") ?? ""),
+      layoutVersionId: layoutId,
+      settings: {
+        totesPerCart: Number(f.get("totesPerCart")),
+        maxLines: Number(f.get("maxLines")),
+        maxWeightG: Math.round(Number(f.get("maxWeightKg")) * 1000),
+        depotId: String(f.get("depotId")),
+        dropoffId: String(f.get("dropoffId")),
+        method: String(f.get("method")),
+      },
+      cutoffBefore: cutoff ? new Date(cutoff).toISOString() : undefined,
+      priorities: f.getAll("priority").map(Number),
+    });
+    if (r.ok) return window.location.assign(`/waves/${r.data.id}`);
+    setFailure(r);
+    setBusy(false);
+  }
+
+  return (
+    <form onSubmit={submit} className="card mt-8 max-w-4xl space-y-5" noValidate aria-labelledby="new-wave">
+      <h2 id="new-wave">Start a wave</h2>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <label><span className="label">Name</span><input name="name" className="field" required maxLength={120} placeholder="e.g. Tuesday morning" /></label>
+        <label>
+          <span className="label">Layout version</span>
+          <select className="field" value={layoutId} onChange={(e) => setLayoutId(Number(e.target.value))}>
+            {layouts.map((l) => <option key={l.id} value={l.id}>{l.label}</option>)}
+          </select>
+        </label>
+      </div>
+      <fieldset className="grid gap-4 sm:grid-cols-3">
+        <legend className="label">Which open orders</legend>
+        <label><span className="label text-sm">Cut-off up to (optional)</span><input name="cutoffBefore" type="datetime-local" className="field" /></label>
+        <div className="sm:col-span-2">
+          <span className="label text-sm">Priorities</span>
+          <div className="flex flex-wrap gap-3">
+            {[1, 2, 3].map((p) => (
+              <label key={p} className="flex min-h-tap items-center gap-2 rounded-md border-2 border-rack-light px-3">
+                <input type="checkbox" name="priority" value={p} defaultChecked className="h-5 w-5" /> {p === 1 ? "1 (urgent)" : p === 2 ? "2 (normal)" : "3 (low)"}
+              </label>
+            ))}
+          </div>
+        </div>
+      </fieldset>
+      <fieldset className="grid gap-4 sm:grid-cols-3">
+        <legend className="label">Cart</legend>
+        <label><span className="label text-sm">Totes per cart (one order per tote)</span><input name="totesPerCart" type="number" min={1} max={40} defaultValue={6} className="field" /></label>
+        <label><span className="label text-sm">Most lines per batch</span><input name="maxLines" type="number" min={1} max={500} defaultValue={30} className="field" /></label>
+        <label><span className="label text-sm">Most weight per cart (kg)</span><input name="maxWeightKg" type="number" min={1} step="0.5" defaultValue={120} className="field" /></label>
+        <label>
+          <span className="label text-sm">Carts start at</span>
+          <select name="depotId" className="field">{layout?.depots.map((d) => <option key={d.id} value={d.id}>{d.name} ({d.id})</option>)}</select>
+        </label>
+        <label>
+          <span className="label text-sm">Carts end at</span>
+          <select name="dropoffId" className="field">{layout?.dropoffs.map((d) => <option key={d.id} value={d.id}>{d.name} ({d.id})</option>)}</select>
+        </label>
+        <label>
+          <span className="label text-sm">Batching</span>
+          <select name="method" className="field" defaultValue="savings">
+            <option value="savings">By route savings (least added walking)</option>
+            <option value="first-come">First come, by cut-off</option>
+          </select>
+        </label>
+      </fieldset>
+      <p className="text-sm text-ink-soft">Check the cart weight limit against your site&apos;s rules for pushing carts and lifting; Trailbin does not know them.</p>
+      <FailureNotice failure={failure} />
+      <button className="btn-primary" disabled={busy}>{busy ? "Creating…" : "Create the wave"}</button>
+    </form>
+  );
+}

@@ -1,0 +1,29 @@
+"use client";
+
+import Link from "next/link";
+import { useMemo } from "react";
+import { DataTable, type DataColumn } from "@/components/DataTable";
+import type { BatchSummaryDTO } from "@/db/waves";
+import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
+
+type Row = BatchSummaryDTO & { seconds: number };
+
+export function WaveResults({ waveId, batches }: { waveId: number; batches: Row[] }) {
+  const columns = useMemo<DataColumn<Row>[]>(
+    () => [
+      { accessorKey: "number", header: "Batch", cell: ({ row }) => <Link className="font-semibold underline" href={`/waves/${waveId}/batches/${row.original.number}`}>#{row.original.number}</Link> },
+      { accessorKey: "stopCount", header: "Stops" },
+      { accessorKey: "lineCount", header: "Lines" },
+      { accessorKey: "toteCount", header: "Totes" },
+      { accessorKey: "weightG", header: "Weight", cell: ({ row }) => kilograms(row.original.weightG) },
+      { accessorKey: "distanceMm", header: "Walk", cell: ({ row }) => metres(row.original.distanceMm) },
+      { accessorKey: "seconds", header: "Est. time", cell: ({ row }) => minutes(row.original.seconds) },
+      { accessorKey: "baselineMm", header: "Usual walk", cell: ({ row }) => metres(row.original.baselineMm) },
+      { id: "savings", accessorFn: (b) => (b.baselineMm > 0 ? 1 - b.distanceMm / b.baselineMm : 0), header: "Savings", cell: ({ row }) => savingsPct(row.original.distanceMm, row.original.baselineMm) },
+      { id: "kind", accessorFn: (b) => (b.optimal ? "exact" : "heuristic"), header: "Route", cell: ({ getValue }) => (getValue() === "exact" ? "✓ exact" : "≈ heuristic") },
+      { accessorKey: "status", header: "Status" },
+    ],
+    [waveId],
+  );
+  return <DataTable data={batches} columns={columns} rowId={(b) => String(b.id)} searchLabel="batches (route kind, status)" empty="Not planned yet: plan the wave to see its batches." pageSize={20} />;
+}

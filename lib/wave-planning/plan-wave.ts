@@ -1,0 +1,69 @@
+import "server-only";
+import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
+import { getWave, ordersOfWave, storePlan } from "@/db/waves";
+import { audit } from "@/db/audit";
+import { HttpError } from "@/lib/http/errors";
+import { layoutGraph } from "@/lib/layout/graph-cache";
+import { wavePool } from "@/lib/workers/pool";
+import { cancellable, finished } from "@/lib/jobs/cancel";
+import { RoutingJobError } from "@/lib/routing/pool";
+import type { SignedInUser } from "@/lib/auth/session";
+import { toStoredBatch } from "./to-stored";
+
+/** Starts (or joins) planning the wave as it stands at `version`; the browser polls the job. */
+export async function startPlanWave(user: SignedInUser, waveId: number, version: number, ip: string): Promise<JobDTO> {
+  const wave = await getWave(user.siteId, waveId);
+  if (!wave) throw new HttpError(404, "No such wave at this site.");
+  if (wave.status === "released") throw new HttpError(409, "This wave is released; its batches are locked. Create a new wave for further orders.");
+  if (wave.version !== version) throw new HttpError(409, "Someone changed this wave while you were looking. Reload it and plan again.");
+  if (wave.orderCount === 0) throw new HttpError(422, "This wave has no orders to plan.");
+  const { job, created } = await createOrJoinJob(user.siteId, "plan-wave", `plan-wave:${waveId}@${version}`, user.id, "Waiting to start");
+  if (created) {
+    await audit({ event: "wave.plan_started", actorUserId: user.id, subject: `wave:${waveId}`, ip, detail: { version, job: job.id } });
+    void runPlan(job.id, user.siteId, waveId, version);
+  }
+  return job;
+}
+
+async function runPlan(jobId: string, siteId: number, waveId: number, version: number): Promise<void> {
+  const signal = cancellable(jobId);
+  let lastWrite = 0;
+  try {
+    await updateJob(jobId, { status: "running", progress: 0, message: "Loading orders and the layout" });
+    const wave = await getWave(siteId, waveId);
+    if (!wave) throw new Error("the wave was deleted");
+    const [orders, { graph, matrix }] = await Promise.all([ordersOfWave(waveId), layoutGraph(wave.layoutVersionId)]);
+    const s = wave.settings;
+    const message = `Cutting ${orders.length} orders into batches and routing each (${s.method === "savings" ? "by route savings" : "first come by cut-off"})`;
+    await updateJob(jobId, { status: "running", progress: 0.02, message });
+    const result = await wavePool().run(
+      { graph, matrix, orders, limits: { totesPerCart: s.totesPerCart, maxLines: s.maxLines, maxWeightG: s.maxWeightG }, method: s.method, from: s.depotId, to: s.dropoffId },
+      {
+        signal,
+        onProgress: (f) => {
+          const now = Date.now();
+          if (now - lastWrite < 300) return;
+          lastWrite = now;
+          void updateJob(jobId, { progress: 0.02 + f * 0.9, message }).catch(() => undefined);
+        },
+      },
+    );
+    await updateJob(jobId, { progress: 0.95, message: `Storing ${result.batches.length} batches` });
+    const byId = new Map(orders.map((o) => [o.orderId, o]));
+    const stored = result.batches.map((b) => toStoredBatch(graph, b, byId));
+    const totals = { distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0), baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0) };
+    const unbatchable = result.unbatchable.map((u) => ({ ...u, orderNumber: byId.get(u.orderId)?.orderNumber }));
+    if (!(await storePlan(waveId, version, stored, totals, unbatchable))) {
+      throw new Error("the wave changed while it was being planned (re-planned or released elsewhere); reload it");
+    }
+    const saved = totals.baselineMm > 0 ? Math.round((1 - totals.distanceMm / totals.baselineMm) * 1000) / 10 : 0;
+    await updateJob(jobId, { status: "done", progress: 1, message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`, result: { waveId, batches: stored.length } });
+  } catch (e) {
+    const cancelled = e instanceof RoutingJobError && e.reason === "cancelled";
+    const reason = e instanceof RoutingJobError && e.reason === "timeout" ? "it took longer than the time limit" : (e as Error).message;
+    if (!cancelled) console.error(`wave planning job ${jobId} failed`, e);
+    await updateJob(jobId, cancelled ? { status: "cancelled", message: "Planning was cancelled; the wave is as it was." } : { status: "failed", message: `Planning failed: ${reason}` }).catch(() => undefined);
+  } finally {
+    finished(jobId);
+  }
+}

@@ -1,0 +1,14 @@
+import type { CompactGraph } from "@/lib/routing/graph";
+import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
+import type { BatchingMethod, CartLimits, WaveOrder } from "@/lib/waves/types";
+
+/** Everything the wave worker needs, as plain data for postMessage. */
+export type WaveJob = {
+  graph: CompactGraph;
+  matrix: DistanceMatrix;
+  orders: WaveOrder[];
+  limits: CartLimits;
+  method: BatchingMethod;
+  from: string;
+  to: string;
+};

@@ -5,7 +5,8 @@ import { metres } from "@/lib/format/units";
 export function SavingsChart({ batches }: { batches: BatchSummaryDTO[] }) {
   const shown = batches.slice(0, 60);
   const max = Math.max(1, ...shown.map((b) => b.baselineMm));
-  const w = 14;
+  // Wide bars for a handful of batches, thin ones for many, so the chart keeps a readable width.
+  const w = Math.max(10, Math.min(44, Math.floor(640 / Math.max(1, shown.length))));
   const h = 140;
   return (
     <figure className="card overflow-x-auto">
@@ -23,7 +24,7 @@ export function SavingsChart({ batches }: { batches: BatchSummaryDTO[] }) {
             <g key={b.id}>
               <title>{`Batch ${b.number}: planned ${metres(b.distanceMm)}, usual ${metres(b.baselineMm)}`}</title>
               <rect x={x} y={h - base + 12} width={w - 3} height={base} fill="#dfe4ea" />
-              <rect x={x + 3} y={h - plan + 12} width={w - 9} height={plan} fill="#0e6b58" />
+              <rect x={x + Math.floor(w / 5)} y={h - plan + 12} width={Math.max(2, w - 3 - 2 * Math.floor(w / 5))} height={plan} fill="#0e6b58" />
             </g>
           );
         })}

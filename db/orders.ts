@@ -60,8 +60,8 @@ export async function insertOrders(trx: Knex.Transaction, siteId: number, import
 
 /** What one import file put in: for answering a repeated submit of the same file. */
 export async function countsOfImport(importFileId: number): Promise<{ orders: number; lines: number }> {
-  const r = await db()("orders as o").leftJoin("order_lines as l", "l.order_id", "o.id").where("o.import_file_id", importFileId).first(db().raw("count(distinct o.id) as orders"), db().raw("count(l.id) as lines"));
-  return { orders: Number(r?.orders ?? 0), lines: Number(r?.lines ?? 0) };
+  const r = await db()("orders as o").leftJoin("order_lines as l", "l.order_id", "o.id").where("o.import_file_id", importFileId).first(db().raw("count(distinct o.id) as order_count"), db().raw("count(l.id) as line_count"));
+  return { orders: Number(r?.order_count ?? 0), lines: Number(r?.line_count ?? 0) };
 }
 
 export type PlanningLine = { lineId: number; lineNo: number; sku: string; quantity: number; unitWeightG: number; binCodes: string[] };

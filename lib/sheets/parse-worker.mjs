@@ -19,8 +19,8 @@ try {
   if (!sheet) {
     parentPort.postMessage({ ok: false, message: "The file has no sheet to read." });
   } else {
-    const rows = XLSX.utils.sheet_to_json(sheet, { header: 1, raw: false, defval: "", blankrows: false });
-    // Copy into plain strings: none of the parser's own objects leave this thread.
+    const rows = XLSX.utils.sheet_to_json(sheet, { header: 1, raw: false, defval: "", blankrows: true });
+    // Blank rows stay, so the row numbers reported back match the sheet. Copy into plain strings: none of the parser's own objects leave this thread.
     const out = rows.slice(0, maxRows).map((r) => (Array.isArray(r) ? r.slice(0, maxColumns).map((c) => (c == null ? "" : String(c))) : []));
     parentPort.postMessage({ ok: true, rows: out, truncated: rows.length > maxRows });
   }

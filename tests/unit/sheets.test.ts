@@ -70,3 +70,10 @@ describe("header mapping", () => {
     expect(problems).toEqual([{ row: 1, message: "No column “SKU” in the header row." }]);
   });
 });
+
+describe("row numbers", () => {
+  it("keep blank rows, so a problem on sheet row 5 is reported as row 5", async () => {
+    const { rows } = await readSheet(new TextEncoder().encode("a,b\n1,2\n,\n\n3,4\n"));
+    expect(rows.findIndex((r) => r[0] === "3") + 1).toBe(5);
+  });
+});

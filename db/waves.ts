@@ -125,7 +125,10 @@ export async function createWave(siteId: number, input: { name: string; layoutVe
     const [id] = await trx("waves").insert({ site_id: siteId, name: input.name.trim(), layout_version_id: input.layoutVersionId, settings: JSON.stringify(input.settings), created_by: userId });
     const waveId = Number(id);
     for (let i = 0; i < input.orderIds.length; i += 1000) {
-      await trx("wave_orders").insert(input.orderIds.slice(i, i + 1000).map((order_id) => ({ order_id, wave_id: waveId })));
+      const chunk = input.orderIds.slice(i, i + 1000);
+      await trx("wave_orders").insert(chunk.map((order_id) => ({ order_id, wave_id: waveId })));
+      // "planned" = in a wave; the order lists show it apart from the open ones still to plan.
+      await trx("orders").whereIn("id", chunk).update({ status: "planned" });
     }
     return waveId;
   });

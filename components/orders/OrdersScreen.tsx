@@ -11,7 +11,7 @@ type Order = { id: number; orderNumber: string; customerRef: string | null; prio
 
 const STATUSES = [
   { value: "open", label: "Open (not yet in a wave)" },
-  { value: "planned", label: "Planned" },
+  { value: "planned", label: "In a wave, not yet released" },
   { value: "released", label: "Released" },
   { value: "all", label: "All orders" },
 ] as const;

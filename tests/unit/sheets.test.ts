@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import * as XLSX from "xlsx";
-import { readSheet, sniffSheet, SheetError, MAX_UNPACKED_BYTES } from "@/lib/sheets/read";
+import { readSheet, sniffSheet, SheetError, MAX_UNPACKED_BYTES, MAX_ROWS } from "@/lib/sheets/read";
 import { zipUnpackedBytes } from "@/lib/sheets/zip-size";
 import { csvText, safeCell } from "@/lib/sheets/write";
 import { mapColumns } from "@/lib/sheets/columns";
@@ -75,5 +75,17 @@ describe("row numbers", () => {
   it("keep blank rows, so a problem on sheet row 5 is reported as row 5", async () => {
     const { rows } = await readSheet(new TextEncoder().encode("a,b\n1,2\n,\n\n3,4\n"));
     expect(rows.findIndex((r) => r[0] === "3") + 1).toBe(5);
+  });
+});
+
+describe("row cap", () => {
+  const csv = (dataRows: number) => new TextEncoder().encode("n\n" + Array.from({ length: dataRows }, (_, i) => String(i)).join("\n") + "\n");
+  it(`reads a sheet of exactly ${MAX_ROWS.toLocaleString("en")} data rows below its header`, async () => {
+    const { rows } = await readSheet(csv(MAX_ROWS));
+    expect(rows).toHaveLength(MAX_ROWS + 1);
+    expect(rows.at(-1)).toEqual([String(MAX_ROWS - 1)]);
+  });
+  it("refuses one row more, saying to split the file", async () => {
+    await expect(readSheet(csv(MAX_ROWS + 1))).rejects.toMatchObject({ status: 413, message: expect.stringMatching(/Split it/) });
   });
 });

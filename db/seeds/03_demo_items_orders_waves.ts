@@ -60,6 +60,9 @@ export async function seed(knex: Knex): Promise<void> {
     }
     const mondayWave = await getWave(site.id, monday);
     await releaseWave(site.id, monday, mondayWave!.version, planner.id);
+    // Monday's first two batches are on Priya's handheld; the rest wait to be taken.
+    const picker = await knex("users").where({ site_id: site.id, email: "picker@bramblegate.example" }).first("id");
+    await knex("batches").where({ wave_id: monday }).whereIn("number", [1, 2]).update({ assigned_to: picker.id });
   } finally {
     await closeDb();
   }

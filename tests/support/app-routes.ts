@@ -35,5 +35,8 @@ export function discoverRoutes() {
 /** A concrete URL for a pattern: dynamic segments get a value that exists nowhere. */
 export const concrete = (pattern: string) => pattern.replace(/\[[^\]]+\]/g, "no-such-id");
 
-/** Pages render real records: the seeded demo floor plan is 1 and its first layout version is 1. */
-export const concretePage = (pattern: string) => pattern.replace(/\[(id|number)\]/g, "1");
+/**
+ * Pages render real records: the seeded demo floor plan is 1 and its first layout version is 1; wave 1
+ * is Monday's, released, and its batch 1 (id 1) is assigned to the demo picker.
+ */
+export const concretePage = (pattern: string) => pattern.replace(/\[(id|number|batchId)\]/g, "1");

@@ -9,7 +9,7 @@ const securityHeaders = [
 
 const nextConfig = {
   // knex pulls optional drivers it never loads; bundling it breaks the build.
-  serverExternalPackages: ["knex", "mysql2", "@node-rs/argon2", "xlsx"],
+  serverExternalPackages: ["knex", "mysql2", "@node-rs/argon2", "xlsx", "bwip-js"],
   poweredByHeader: false,
   reactStrictMode: true,
   // npm test builds into its own folder so it never disturbs a running npm start.

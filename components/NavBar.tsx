@@ -17,7 +17,7 @@ const LINKS: { href: string; label: string; access: Access }[] = [
 export function NavBar({ user }: { user: SignedInUser }) {
   const links = LINKS.filter((l) => roleMay(user.role, l.access));
   return (
-    <header className="border-b-4 border-trail bg-ink text-paper">
+    <header className="border-b-4 border-trail bg-ink text-paper print:hidden">
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
         <Link href="/" className="flex min-h-tap items-center gap-2 font-bold text-lg">
           <Logo className="h-8 w-8" />

@@ -16,7 +16,8 @@ export type AuditEvent =
   | "floor_plan.saved"
   | "wave.created"
   | "wave.plan_started"
-  | "wave.released";
+  | "wave.released"
+  | "batch.printed";
 
 export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
 

@@ -316,3 +316,17 @@ export async function unclaimedOpenOrderIds(siteId: number, filter: { cutoffBefo
   const rows = await q.orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number").select("o.id");
   return rows.map((r: { id: number }) => r.id);
 }
+
+/** Counts a print of each listed batch and returns how often each had been printed before. */
+export async function recordPrinted(waveId: number, numbers: number[]): Promise<Map<number, number>> {
+  return db().transaction(async (trx) => {
+    const rows = await trx("batches").where({ wave_id: waveId }).whereIn("number", numbers).forUpdate().select("number", "print_count");
+    await trx("batches").where({ wave_id: waveId }).whereIn("number", numbers).increment("print_count", 1);
+    return new Map(rows.map((r: { number: number; print_count: number }) => [r.number, r.print_count]));
+  });
+}
+
+export async function printCounts(waveId: number): Promise<Map<number, number>> {
+  const rows = await db()("batches").where({ wave_id: waveId }).select("number", "print_count");
+  return new Map(rows.map((r: { number: number; print_count: number }) => [r.number, r.print_count]));
+}

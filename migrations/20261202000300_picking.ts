@@ -5,6 +5,8 @@ export async function up(knex: Knex): Promise<void> {
     t.enu("status", ["planned", "released", "picking", "done"]).notNullable().defaultTo("planned").alter();
     t.timestamp("started_at", { precision: 3 }).nullable();
     t.timestamp("finished_at", { precision: 3 }).nullable();
+    // How often its pick list was printed: every print after the first says "reprint" on the paper.
+    t.integer("print_count").unsigned().notNullable().defaultTo(0);
   });
 
   await knex.schema.alterTable("batch_lines", (t) => {
@@ -36,5 +38,6 @@ export async function down(knex: Knex): Promise<void> {
   await knex.schema.alterTable("batches", (t) => {
     t.dropColumn("started_at");
     t.dropColumn("finished_at");
+    t.dropColumn("print_count");
   });
 }

@@ -21,6 +21,8 @@ export const PAGE_ACCESS: Record<string, Access> = {
   "/orders": "waves.read",
   "/waves/[id]": "waves.read",
   "/waves/[id]/batches/[number]": "waves.read",
+  "/waves/[id]/batches/[number]/print": "waves.read",
+  "/waves/[id]/print": "waves.read",
 };
 
 export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
@@ -52,4 +54,5 @@ export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
   "/api/waves/[id]": { GET: "waves.read" },
   "/api/waves/[id]/plan": { POST: "waves.plan" },
   "/api/waves/[id]/release": { POST: "waves.plan" },
+  "/api/waves/[id]/printed": { POST: "waves.plan" },
 };

@@ -54,7 +54,10 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
         </section>
       )}
       <section className="mt-6" aria-labelledby="batches-title">
-        <h2 id="batches-title" className="mb-3">Batches</h2>
+        <div className="mb-3 flex flex-wrap items-center justify-between gap-3">
+          <h2 id="batches-title">Batches</h2>
+          {batches.length > 0 && <Link className="btn-quiet" href={`/waves/${wave.id}/print`}>Pick lists of all batches</Link>}
+        </div>
         <WaveResults waveId={wave.id} batches={rows} />
       </section>
     </>

@@ -34,7 +34,10 @@ export default async function BatchPage({ params }: { params: Promise<{ id: stri
       <p className="mb-2 text-sm">
         <Link className="underline" href="/waves">Waves</Link> › <Link className="underline" href={`/waves/${wave.id}`}>{wave.name}</Link> › batch {batch.number}
       </p>
-      <h1>Batch {batch.number}</h1>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>Batch {batch.number}</h1>
+        <Link className="btn-quiet" href={`/waves/${wave.id}/batches/${batch.number}/print`}>Pick list</Link>
+      </div>
       <p className="mt-1 mb-4 text-ink-soft">
         {batch.stops.length} stops, {batch.lineCount} lines in {batch.toteCount} totes, {kilograms(batch.weightG)}. Walk {metres(batch.distanceMm)} ({batch.optimal ? "exact route, proven shortest" : "heuristic route: good, not proven shortest"}) against {metres(batch.baselineMm)} in
         the usual order: {savingsPct(batch.distanceMm, batch.baselineMm)} less. About {minutes(seconds)}.

@@ -1,0 +1,45 @@
+import "server-only";
+import { getBatch, listBatches, printCounts, type WaveDTO } from "@/db/waves";
+import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
+import { getSite } from "@/db/sites";
+import { layoutGraph } from "@/lib/layout/graph-cache";
+import { batchRouteCells } from "@/lib/wave-planning/batch-route";
+import { documentBins } from "@/lib/editor/bin-codes";
+import { estimateSeconds } from "@/lib/waves/estimate";
+import type { PickListProps } from "@/components/print/PickList";
+import { code128Svg } from "./barcode";
+import { batchLabel } from "./batch-label";
+
+/** Bins from this level up are out of reach from the floor (common practice: level 3 and above). */
+const HIGH_LEVEL = 3;
+
+/** Everything the pick lists of a wave's batches show; `numbers` picks some, default all. */
+export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: number[]): Promise<PickListProps[]> {
+  const v = await getLayoutVersionById(siteId, wave.layoutVersionId);
+  const version = v ? await getLayoutVersion(siteId, v.floorPlanId, v.number) : null;
+  if (!version) return [];
+  const [{ graph, matrix }, site, counts, all] = await Promise.all([layoutGraph(wave.layoutVersionId), getSite(siteId), printCounts(wave.id), listBatches(wave.id)]);
+  const timing = { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? 1000, secondsPerLine: site?.secondsPerLine ?? 15 };
+  const highLevels = new Set(documentBins(version.document).filter((b) => b.level >= HIGH_LEVEL).map((b) => b.code));
+  const dropoff = [...version.document.dropoffs, ...version.document.depots].find((p) => p.id === wave.settings.dropoffId);
+  const out: PickListProps[] = [];
+  for (const summary of all) {
+    if (numbers && !numbers.includes(summary.number)) continue;
+    const batch = await getBatch(wave.id, summary.number);
+    if (!batch) continue;
+    const label = batchLabel(wave.id, batch.number);
+    out.push({
+      label,
+      barcodeSvg: code128Svg(label),
+      waveName: wave.name,
+      batch,
+      printedBefore: counts.get(batch.number) ?? 0,
+      seconds: estimateSeconds({ distanceMm: batch.distanceMm, lines: batch.lineCount }, timing),
+      document: version.document,
+      routeCells: batchRouteCells(graph, matrix, wave.settings.depotId, wave.settings.dropoffId, batch.stops.map((s) => s.accessPoint)).cells,
+      dropoff: dropoff ? `${dropoff.name} (${dropoff.id})` : wave.settings.dropoffId,
+      highLevels,
+    });
+  }
+  return out;
+}

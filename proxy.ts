@@ -15,5 +15,5 @@ export function proxy(request: NextRequest) {
 
 export const config = {
   // Pages only: API routes answer 401 JSON themselves; static files and the sign-in page stay open.
-  matcher: ["/((?!api/|_next/|sign-in|favicon.ico|.*\\.(?:png|jpg|svg|woff2|ico)$).*)"],
+  matcher: ["/((?!api/|_next/|sign-in|set-password|forgot-password|favicon.ico|.*\\.(?:png|jpg|svg|woff2|ico)$).*)"],
 };

@@ -17,7 +17,10 @@ export type AuditEvent =
   | "wave.created"
   | "wave.plan_started"
   | "wave.released"
-  | "batch.printed";
+  | "batch.printed"
+  | "batch.taken"
+  | "pick.confirmed"
+  | "pick.short";
 
 export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
 

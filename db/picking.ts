@@ -1,0 +1,227 @@
+import "server-only";
+import { db } from "./knex";
+
+export type PickBatchStatus = "planned" | "released" | "picking" | "done";
+
+/** The batch's row with its wave, as the picking routes need it to decide who may work it. */
+export type PickBatchRow = {
+  id: number;
+  waveId: number;
+  waveName: string;
+  number: number;
+  status: PickBatchStatus;
+  version: number;
+  assignedTo: string | null;
+  assignedName: string | null;
+  layoutVersionId: number;
+  depotId: string;
+  dropoffId: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+};
+
+const json = <T>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
+const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
+
+export async function getPickBatch(siteId: number, batchId: number): Promise<PickBatchRow | null> {
+  const r = await db()("batches as b")
+    .join("waves as w", "w.id", "b.wave_id")
+    .leftJoin("users as u", "u.id", "b.assigned_to")
+    .where({ "b.id": batchId, "w.site_id": siteId })
+    .first("b.id", "b.wave_id", "w.name as wave_name", "b.number", "b.status", "b.version", "b.assigned_to", "u.display_name as assigned_name", "w.layout_version_id", "w.settings", "b.started_at", "b.finished_at");
+  if (!r) return null;
+  const settings = json<{ depotId: string; dropoffId: string }>(r.settings);
+  return {
+    id: Number(r.id),
+    waveId: Number(r.wave_id),
+    waveName: r.wave_name,
+    number: Number(r.number),
+    status: r.status,
+    version: Number(r.version),
+    assignedTo: r.assigned_to,
+    assignedName: r.assigned_name ?? null,
+    layoutVersionId: Number(r.layout_version_id),
+    depotId: settings.depotId,
+    dropoffId: settings.dropoffId,
+    startedAt: iso(r.started_at),
+    finishedAt: iso(r.finished_at),
+  };
+}
+
+export type PickLineState = {
+  orderLineId: number;
+  stopSeq: number;
+  tote: number;
+  binCode: string;
+  orderNumber: string;
+  sku: string;
+  description: string;
+  quantity: number;
+  uom: string;
+  unitWeightG: number;
+  pickStatus: "open" | "picked" | "short";
+  pickedQty: number | null;
+  shortReason: string | null;
+};
+
+/** Every line of a batch with its pick state, in walking order (stop, then tote). */
+export async function pickLines(batchId: number): Promise<PickLineState[]> {
+  const rows = await db()("batch_lines as bl")
+    .join("order_lines as l", "l.id", "bl.order_line_id")
+    .join("orders as o", "o.id", "l.order_id")
+    .join("items as i", "i.id", "l.item_id")
+    .where("bl.batch_id", batchId)
+    .select("bl.order_line_id", "bl.stop_seq", "bl.tote", "bl.bin_code", "bl.pick_status", "bl.picked_qty", "bl.short_reason", "o.order_number", "i.sku", "i.description", "i.uom", "i.unit_weight_g", "l.quantity")
+    .orderBy([{ column: "bl.stop_seq" }, { column: "bl.tote" }, { column: "bl.order_line_id" }]);
+  return rows.map((r: Record<string, unknown>) => ({
+    orderLineId: Number(r.order_line_id),
+    stopSeq: Number(r.stop_seq),
+    tote: Number(r.tote),
+    binCode: String(r.bin_code),
+    orderNumber: String(r.order_number),
+    sku: String(r.sku),
+    description: String(r.description),
+    quantity: Number(r.quantity),
+    uom: String(r.uom),
+    unitWeightG: Number(r.unit_weight_g),
+    pickStatus: r.pick_status as PickLineState["pickStatus"],
+    pickedQty: r.picked_qty === null ? null : Number(r.picked_qty),
+    shortReason: (r.short_reason as string | null) ?? null,
+  }));
+}
+
+export type MyBatchDTO = {
+  id: number;
+  waveId: number;
+  waveName: string;
+  number: number;
+  status: PickBatchStatus;
+  version: number;
+  stopCount: number;
+  lineCount: number;
+  openLines: number;
+  shortLines: number;
+};
+
+function batchesWithCounts(siteId: number) {
+  return db()("batches as b")
+    .join("waves as w", "w.id", "b.wave_id")
+    .where("w.site_id", siteId)
+    .select(
+      "b.id",
+      "b.wave_id",
+      "w.name as wave_name",
+      "b.number",
+      "b.status",
+      "b.version",
+      db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"),
+      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id) as line_count"),
+      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'open') as open_lines"),
+      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_lines"),
+    );
+}
+
+const toMyBatch = (r: Record<string, unknown>): MyBatchDTO => ({
+  id: Number(r.id),
+  waveId: Number(r.wave_id),
+  waveName: String(r.wave_name),
+  number: Number(r.number),
+  status: r.status as PickBatchStatus,
+  version: Number(r.version),
+  stopCount: Number(r.stop_count),
+  lineCount: Number(r.line_count),
+  openLines: Number(r.open_lines),
+  shortLines: Number(r.short_lines),
+});
+
+/** Batches on this picker's handheld that still have work: the one being picked first, then by wave and number. */
+export async function myBatches(siteId: number, userId: string): Promise<MyBatchDTO[]> {
+  const rows = await batchesWithCounts(siteId)
+    .where("b.assigned_to", userId)
+    .whereIn("b.status", ["released", "picking"])
+    .orderByRaw("b.status = 'picking' desc, w.released_at, b.wave_id, b.number");
+  return rows.map(toMyBatch);
+}
+
+/** The oldest released batch nobody holds yet: the one "Take the next batch" offers. */
+export async function nextUnassignedBatch(siteId: number): Promise<MyBatchDTO | null> {
+  const r = await batchesWithCounts(siteId).whereNull("b.assigned_to").where("b.status", "released").orderByRaw("w.released_at, b.wave_id, b.number").first();
+  return r ? toMyBatch(r) : null;
+}
+
+/** Assigns a released batch to the user if nobody holds it and it is still at `version`: exactly one taker wins. */
+export async function takeBatch(siteId: number, batchId: number, version: number, userId: string): Promise<boolean> {
+  const n = await db()("batches")
+    .where({ id: batchId, version, status: "released" })
+    .whereNull("assigned_to")
+    .whereIn("wave_id", db()("waves").where({ site_id: siteId }).select("id"))
+    .update({ assigned_to: userId, version: version + 1 });
+  return Number(n) === 1;
+}
+
+export type StoredAnswer = { status: number; body: Record<string, unknown> };
+
+export type ConfirmInput = {
+  batchId: number;
+  userId: string;
+  key: string;
+  requestSha256: string;
+  orderLineId: number;
+  scan?: string;
+  quantity: number;
+  short?: { reason: string };
+};
+
+export type ConfirmOutcome =
+  | { kind: "fresh"; answer: StoredAnswer; event: "pick.confirmed" | "pick.short" | null }
+  | { kind: "replay"; answer: StoredAnswer }
+  | { kind: "mismatch" };
+
+const isDuplicate = (e: unknown) => (e as { code?: string; errno?: number })?.code === "ER_DUP_ENTRY" || (e as { errno?: number })?.errno === 1062;
+
+/**
+ * One confirmation in one transaction. The confirmation row goes in first, so a repeat of the same key
+ * waits for the first to commit and then finds its stored answer; whatever the first one answered
+ * (success or refusal) is what every repeat gets. The line changes only while it is still open.
+ */
+export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batchStatus: PickBatchStatus) => Decision): Promise<ConfirmOutcome> {
+  try {
+    return await db().transaction(async (trx) => {
+      await trx("pick_confirmations").insert({ idempotency_key: input.key, batch_id: input.batchId, user_id: input.userId, request_sha256: input.requestSha256, response: JSON.stringify({ status: 0, body: {} }) });
+      const batch = await trx("batches").where({ id: input.batchId }).forUpdate().first("status");
+      const line = await trx("batch_lines as bl")
+        .join("order_lines as l", "l.id", "bl.order_line_id")
+        .join("items as i", "i.id", "l.item_id")
+        .where({ "bl.batch_id": input.batchId, "bl.order_line_id": input.orderLineId })
+        .forUpdate()
+        .first("bl.order_line_id", "bl.bin_code", "bl.pick_status", "i.sku", "l.quantity");
+      const d = decide(
+        line ? { orderLineId: Number(line.order_line_id), binCode: String(line.bin_code), sku: String(line.sku), quantity: Number(line.quantity), pickStatus: line.pick_status } : null,
+        batch.status,
+      );
+      let answer: StoredAnswer = d.answer;
+      if (d.apply) {
+        await trx("batch_lines")
+          .where({ batch_id: input.batchId, order_line_id: input.orderLineId, pick_status: "open" })
+          .update({ pick_status: d.apply.status, picked_qty: d.apply.pickedQty, short_reason: d.apply.shortReason, confirmed_at: trx.fn.now(3), confirmed_by: input.userId });
+        if (batch.status === "released") await trx("batches").where({ id: input.batchId }).update({ status: "picking", started_at: trx.fn.now(3) });
+        const open = await trx("batch_lines").where({ batch_id: input.batchId, pick_status: "open" }).count({ n: "*" }).first();
+        const done = Number(open?.n ?? 0) === 0;
+        if (done) await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3) });
+        answer = { status: 200, body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: Number(open?.n ?? 0) } } };
+      }
+      await trx("pick_confirmations").where({ idempotency_key: input.key }).update({ response: JSON.stringify(answer) });
+      return { kind: "fresh" as const, answer, event: d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null };
+    });
+  } catch (e) {
+    if (!isDuplicate(e)) throw e;
+    const stored = await db()("pick_confirmations").where({ idempotency_key: input.key }).first("user_id", "batch_id", "request_sha256", "response");
+    if (!stored) throw e;
+    if (stored.request_sha256 !== input.requestSha256 || stored.user_id !== input.userId || Number(stored.batch_id) !== input.batchId) return { kind: "mismatch" };
+    return { kind: "replay", answer: json<StoredAnswer>(stored.response) };
+  }
+}
+
+export type PickLineRowForCheck = { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: "open" | "picked" | "short" };
+
+export type Decision = { answer: StoredAnswer; apply?: { status: "picked" | "short"; pickedQty: number; shortReason: string | null } };

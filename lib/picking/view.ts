@@ -1,0 +1,63 @@
+import "server-only";
+import { getBatch } from "@/db/waves";
+import { pickLines, type PickBatchRow, type PickLineState } from "@/db/picking";
+import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
+import { layoutGraph } from "@/lib/layout/graph-cache";
+import { documentBins } from "@/lib/editor/bin-codes";
+import type { EditorDocument } from "@/lib/editor/document";
+import { batchLegs } from "./legs";
+import { cautionsOf, HIGH_LEVEL, type Caution } from "./rules";
+
+export type PickStopDTO = {
+  seq: number;
+  x: number;
+  y: number;
+  binCodes: string[];
+  lines: PickLineState[];
+  cautions: Caution[];
+  /** The path from the previous stop (the depot for the first), as floor-plan cells. */
+  pathCells: number[];
+  legMm: number;
+};
+
+export type PickViewDTO = {
+  batch: { id: number; waveName: string; number: number; status: PickBatchRow["status"]; assignedName: string | null };
+  depot: string;
+  dropoff: string;
+  stops: PickStopDTO[];
+  finalLeg: { cells: number[]; mm: number };
+};
+
+const placeName = (doc: EditorDocument, id: string) => {
+  const p = [...doc.depots, ...doc.dropoffs].find((x) => x.id === id);
+  return p ? `${p.id} ${p.name}` : id;
+};
+
+/** Everything the handheld shows of a batch; the document comes along for the page's map. */
+export async function pickView(siteId: number, b: PickBatchRow): Promise<{ view: PickViewDTO; document: EditorDocument | null }> {
+  const v = await getLayoutVersionById(siteId, b.layoutVersionId);
+  const [detail, lines, version, loaded] = await Promise.all([getBatch(b.waveId, b.number), pickLines(b.id), v ? getLayoutVersion(siteId, v.floorPlanId, v.number) : null, layoutGraph(b.layoutVersionId)]);
+  const stops = detail?.stops ?? [];
+  const legs = batchLegs(loaded.graph, loaded.matrix, b.depotId, b.dropoffId, stops.map((s) => s.accessPoint));
+  const highLevels = new Set(version ? documentBins(version.document).filter((x) => x.level >= HIGH_LEVEL).map((x) => x.code) : []);
+  const view: PickViewDTO = {
+    batch: { id: b.id, waveName: b.waveName, number: b.number, status: b.status, assignedName: b.assignedName },
+    depot: version ? placeName(version.document, b.depotId) : b.depotId,
+    dropoff: version ? placeName(version.document, b.dropoffId) : b.dropoffId,
+    stops: stops.map((s, i) => {
+      const here = lines.filter((l) => l.stopSeq === s.seq);
+      return {
+        seq: s.seq,
+        x: s.x,
+        y: s.y,
+        binCodes: [...new Set(here.map((l) => l.binCode))],
+        lines: here,
+        cautions: cautionsOf(here, highLevels),
+        pathCells: legs[i]?.cells ?? [],
+        legMm: legs[i]?.mm ?? 0,
+      };
+    }),
+    finalLeg: legs[stops.length] ?? { cells: [], mm: 0 },
+  };
+  return { view, document: version?.document ?? null };
+}

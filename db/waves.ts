@@ -242,12 +242,19 @@ export type BatchSummaryDTO = {
   optimal: boolean;
   method: string;
   status: string;
+  pickedLines: number;
+  shortLines: number;
 };
 
 export async function listBatches(waveId: number): Promise<BatchSummaryDTO[]> {
   const rows = await db()("batches as b")
     .where("b.wave_id", waveId)
-    .select("b.*", db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"))
+    .select(
+      "b.*",
+      db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"),
+      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'picked') as picked_count"),
+      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_count"),
+    )
     .orderBy("b.number");
   return rows.map((r: Record<string, unknown>) => ({
     id: Number(r.id),
@@ -261,6 +268,32 @@ export async function listBatches(waveId: number): Promise<BatchSummaryDTO[]> {
     optimal: Boolean(r.optimal),
     method: String(r.method),
     status: String(r.status),
+    pickedLines: Number(r.picked_count),
+    shortLines: Number(r.short_count),
+  }));
+}
+
+export type ShortPickDTO = { batchNumber: number; orderNumber: string; binCode: string; sku: string; ordered: number; picked: number; reason: string | null; at: string | null };
+
+/** Lines a picker could not fill completely: the planner's follow-up list. */
+export async function shortPicksOfWave(waveId: number): Promise<ShortPickDTO[]> {
+  const rows = await db()("batch_lines as bl")
+    .join("batches as b", "b.id", "bl.batch_id")
+    .join("order_lines as l", "l.id", "bl.order_line_id")
+    .join("orders as o", "o.id", "l.order_id")
+    .join("items as i", "i.id", "l.item_id")
+    .where({ "b.wave_id": waveId, "bl.pick_status": "short" })
+    .select("b.number", "o.order_number", "bl.bin_code", "i.sku", "l.quantity", "bl.picked_qty", "bl.short_reason", "bl.confirmed_at")
+    .orderBy([{ column: "b.number" }, { column: "bl.stop_seq" }]);
+  return rows.map((r: { number: number; order_number: string; bin_code: string; sku: string; quantity: number; picked_qty: number | null; short_reason: string | null; confirmed_at: Date | null }) => ({
+    batchNumber: r.number,
+    orderNumber: r.order_number,
+    binCode: r.bin_code,
+    sku: r.sku,
+    ordered: r.quantity,
+    picked: r.picked_qty ?? 0,
+    reason: r.short_reason,
+    at: r.confirmed_at ? r.confirmed_at.toISOString() : null,
   }));
 }
 

@@ -5,10 +5,12 @@ import { useMemo } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import type { BatchSummaryDTO } from "@/db/waves";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
+import { estimateSeconds, type SiteTiming } from "@/lib/waves/estimate";
 
 type Row = BatchSummaryDTO & { seconds: number };
 
-export function WaveResults({ waveId, batches }: { waveId: number; batches: Row[] }) {
+export function WaveResults({ waveId, batches: summaries, timing }: { waveId: number; batches: BatchSummaryDTO[]; timing: SiteTiming }) {
+  const batches = useMemo<Row[]>(() => summaries.map((b) => ({ ...b, seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing) })), [summaries, timing]);
   const columns = useMemo<DataColumn<Row>[]>(
     () => [
       { accessorKey: "number", header: "Batch", cell: ({ row }) => <Link className="font-semibold underline" href={`/waves/${waveId}/batches/${row.original.number}`}>#{row.original.number}</Link> },
@@ -22,6 +24,16 @@ export function WaveResults({ waveId, batches }: { waveId: number; batches: Row[
       { id: "savings", accessorFn: (b) => (b.baselineMm > 0 ? 1 - b.distanceMm / b.baselineMm : 0), header: "Savings", cell: ({ row }) => savingsPct(row.original.distanceMm, row.original.baselineMm) },
       { id: "kind", accessorFn: (b) => (b.optimal ? "exact" : "heuristic"), header: "Route", cell: ({ getValue }) => (getValue() === "exact" ? "✓ exact" : "≈ heuristic") },
       { accessorKey: "status", header: "Status" },
+      {
+        id: "progress",
+        accessorFn: (b) => (b.lineCount ? (b.pickedLines + b.shortLines) / b.lineCount : 0),
+        header: "Picked",
+        cell: ({ row }) => {
+          const b = row.original;
+          const done = b.pickedLines + b.shortLines;
+          return done === 0 ? "—" : `${done}/${b.lineCount}${b.shortLines ? ` (${b.shortLines} short ⚠)` : ""}`;
+        },
+      },
     ],
     [waveId],
   );

@@ -142,3 +142,26 @@ describe("cancelling", () => {
     expect(wave.status).toBe(job.status === "cancelled" ? "draft" : "planned");
   });
 });
+
+describe("the planner sees picking as it happens", () => {
+  it("a short pick on the floor shows in the wave's short-pick list and its batch's progress", async () => {
+    const planner = await signInAs("planner");
+    const picker = await signInAs("picker");
+    const id = await newWave(planner, "2026-11-27T12:00:00Z", "first-come");
+    const { wave } = await plan(planner, id);
+    expect((await api().post(`/api/waves/${id}/release`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: wave.version })).status).toBe(200);
+    const batch = await db()("batches").where({ wave_id: id, number: 1 }).first("id", "version");
+    const took = await api().post(`/api/batches/${batch.id}/take`).set("Cookie", picker).set("Origin", ORIGIN).send({ version: batch.version });
+    expect(took.status, JSON.stringify(took.body)).toBe(200);
+    const line = await db()("batch_lines as bl").join("order_lines as l", "l.id", "bl.order_line_id").where("bl.batch_id", batch.id).first("bl.order_line_id", "bl.bin_code", "l.quantity");
+    const short = await api()
+      .post(`/api/batches/${batch.id}/confirm`)
+      .set("Cookie", picker)
+      .set("Origin", ORIGIN)
+      .send({ idempotencyKey: `short-${id}-${line.order_line_id}`, orderLineId: line.order_line_id, quantity: 0, short: { reason: "empty bin" } });
+    expect(short.status, JSON.stringify(short.body)).toBeLessThan(300);
+    const seen = (await api().get(`/api/waves/${id}`).set("Cookie", planner)).body;
+    expect(seen.shortPicks).toEqual([expect.objectContaining({ batchNumber: 1, binCode: line.bin_code, ordered: line.quantity, picked: 0, reason: "empty bin" })]);
+    expect(seen.batches.find((b: { number: number }) => b.number === 1)).toMatchObject({ shortLines: 1, pickedLines: 0 });
+  });
+});

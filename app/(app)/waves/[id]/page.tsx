@@ -3,9 +3,9 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
 import { roleMay } from "@/lib/auth/permissions";
-import { getWave, listBatches } from "@/db/waves";
+import { getWave, listBatches, shortPicksOfWave } from "@/db/waves";
 import { getSite } from "@/db/sites";
-import { WaveResults } from "@/components/waves/WaveResults";
+import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
 import { estimateSeconds } from "@/lib/waves/estimate";
@@ -18,7 +18,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
   const user = await requireRole("waves.read", `/waves/${id}`);
   const wave = /^\d{1,9}$/.test(id) ? await getWave(user.siteId, Number(id)) : null;
   if (!wave) notFound();
-  const [batches, site] = await Promise.all([listBatches(wave.id), getSite(user.siteId)]);
+  const [batches, site, shortPicks] = await Promise.all([listBatches(wave.id), getSite(user.siteId), shortPicksOfWave(wave.id)]);
   const timing = { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? 1000, secondsPerLine: site?.secondsPerLine ?? 15 };
   const rows = batches.map((b) => ({ ...b, seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing) }));
   const totalSeconds = rows.reduce((a, b) => a + b.seconds, 0);
@@ -58,7 +58,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
           <h2 id="batches-title">Batches</h2>
           {batches.length > 0 && <Link className="btn-quiet" href={`/waves/${wave.id}/print`}>Pick lists of all batches</Link>}
         </div>
-        <WaveResults waveId={wave.id} batches={rows} />
+        <WaveLive initial={{ wave, batches, shortPicks }} timing={timing} />
       </section>
     </>
   );

@@ -1,12 +1,13 @@
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
-import { getWave, listBatches } from "@/db/waves";
+import { getWave, listBatches, shortPicksOfWave } from "@/db/waves";
 
 export const dynamic = "force-dynamic";
 
 export const GET = route({ access: "waves.read" }, async ({ user, params }) => {
   const wave = await getWave(user.siteId, intParam(params, "id", "wave"));
   if (!wave) throw new HttpError(404, "No such wave at this site.");
-  return Response.json({ wave, batches: await listBatches(wave.id) });
+  const [batches, shortPicks] = await Promise.all([listBatches(wave.id), shortPicksOfWave(wave.id)]);
+  return Response.json({ wave, batches, shortPicks });
 });

@@ -8,6 +8,7 @@ import { getSite } from "@/db/sites";
 import { layoutGraph } from "@/lib/layout/graph-cache";
 import { batchRouteCells } from "@/lib/wave-planning/batch-route";
 import { BatchRoute } from "@/components/waves/BatchRoute";
+import { BatchLiveStatus } from "@/components/waves/BatchLiveStatus";
 import { estimateSeconds } from "@/lib/waves/estimate";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 
@@ -42,6 +43,7 @@ export default async function BatchPage({ params }: { params: Promise<{ id: stri
         {batch.stops.length} stops, {batch.lineCount} lines in {batch.toteCount} totes, {kilograms(batch.weightG)}. Walk {metres(batch.distanceMm)} ({batch.optimal ? "exact route, proven shortest" : "heuristic route: good, not proven shortest"}) against {metres(batch.baselineMm)} in
         the usual order: {savingsPct(batch.distanceMm, batch.baselineMm)} less. About {minutes(seconds)}.
       </p>
+      <BatchLiveStatus waveId={wave.id} number={batch.number} live={wave.status === "released"} />
       <BatchRoute document={version.document} cells={cells} stops={batch.stops} legsMm={legsMm} from={wave.settings.depotId} to={wave.settings.dropoffId} />
     </>
   );

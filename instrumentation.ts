@@ -8,4 +8,11 @@ export async function register() {
   } catch (e) {
     console.error("could not clear jobs left over from the previous run:", (e as Error).message);
   }
+  try {
+    // One outbox sender per server process; the claim in db/outbox.ts keeps several processes apart.
+    const { startOutboxSender } = await import("./lib/mail/sender");
+    await startOutboxSender();
+  } catch (e) {
+    console.error("could not start the outbox sender:", (e as Error).message);
+  }
 }

@@ -3,15 +3,17 @@
 #   Debian packages (MariaDB) -> node_modules -> private MariaDB in .data/demo on 127.0.0.1:33061
 #   -> database "trailbin" + user from .env.local (made on first run) -> migrations + seed
 #   -> next build (only when sources changed) -> next start on http://127.0.0.1:3000
-# Then waits; Ctrl-C (or SIGTERM) stops the app, then MariaDB, and prints "Stopped.".
+# Then waits; Ctrl-C (or SIGTERM) stops the app, the mail sink, then MariaDB, and prints "Stopped.".
 #
-# Overrides: PORT (app, default 3000), DB_PORT (MariaDB, default DB_PORT in .env.local, else 33061).
+# Overrides: PORT (app, default 3000), DB_PORT (MariaDB, default DB_PORT in .env.local, else 33061),
+# MAIL_SINK_PORT (the local SMTP sink whose messages /admin/mail shows, default 2525).
 # The data stays in .data/demo between runs; delete that folder (and .env.local) to start afresh.
 set -euo pipefail
 
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
 source "$TRAILBIN_ROOT/scripts/lib/app.sh"
+source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
 cd "$TRAILBIN_ROOT"
 
 DEMO_DIR=$TRAILBIN_ROOT/.data/demo
@@ -20,6 +22,9 @@ APP_PORT=${PORT:-3000}
 APP_URL=http://127.0.0.1:$APP_PORT
 NEXT_PIDFILE=$DEMO_DIR/next.pid
 NEXT_LOG=$DEMO_DIR/next.log
+MAIL_SINK_PORT=${MAIL_SINK_PORT:-2525}
+MAIL_PIDFILE=$DEMO_DIR/mail-sink.pid
+MAIL_LOG=$DEMO_DIR/mail-sink.log
 MDB_PID=
 NEXT_PID=
 
@@ -64,6 +69,7 @@ shutdown() {
   trap - INT TERM EXIT
   next_stop
   rm -f "$NEXT_PIDFILE"
+  mail_sink_stop "$MAIL_PIDFILE"
   mariadb_stop
   rm -f "$DEMO_DIR/start.pid"
   echo "Stopped."
@@ -81,6 +87,7 @@ print_welcome() {
   if [[ -f scripts/demo-accounts.ts ]]; then
     node --import tsx scripts/demo-accounts.ts || warn "could not list the demo accounts"
   fi
+  echo "Mail (invitations, password resets) goes to a local sink on 127.0.0.1:$MAIL_SINK_PORT; admins read it at $APP_URL/admin/mail"
   echo "Press Ctrl-C to stop."
 }
 
@@ -96,14 +103,19 @@ main() {
   trap 'rc=$?; shutdown; exit $rc' EXIT
 
   next_stop_stale "$NEXT_PIDFILE"
-  # Check both ports before starting anything, so a clash costs nothing.
+  mail_sink_stop_stale "$MAIL_PIDFILE"
+  # Check the ports before starting anything, so a clash costs nothing.
   require_free_port "$APP_PORT" "the web app" "run with PORT=<another port>"
+  require_free_port "$MAIL_SINK_PORT" "the mail sink" "run with MAIL_SINK_PORT=<another port>"
   if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "MariaDB" "run with DB_PORT=<another port>"; fi
 
   mariadb_init
   mariadb_start
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
   migrate_and_seed
+  # Mail goes to the local sink (SMTP_HOST/SMTP_PORT); links in it point at this app.
+  mail_sink_start "$MAIL_SINK_PORT" "$MAIL_LOG" "$MAIL_PIDFILE"
+  export APP_ORIGIN=$APP_URL
 
   export NEXT_DIST_DIR=.next
   build_if_needed

@@ -10,12 +10,15 @@
 # Settings (environment):
 #   TEST_SUITES   which suites to run, comma or space separated: unit,integration,browser (default all)
 #   TEST_PORT     app port (default 3001)        TEST_DB_PORT  MariaDB port (default 33062)
-# The suites see APP_URL, DB_HOST, DB_PORT, DB_NAME, DB_USER, DB_PASSWORD and CHROMIUM_PATH.
+#   TEST_MAIL_SINK_PORT  the local SMTP sink (default 2526)
+# The suites see APP_URL, APP_ORIGIN, DB_HOST, DB_PORT, DB_NAME, DB_USER, DB_PASSWORD, SMTP_HOST,
+# SMTP_PORT and CHROMIUM_PATH.
 set -euo pipefail
 
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
 source "$TRAILBIN_ROOT/scripts/lib/app.sh"
+source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
 cd "$TRAILBIN_ROOT"
 
 TEST_DIR=$TRAILBIN_ROOT/.data/test
@@ -24,6 +27,9 @@ APP_PORT=${TEST_PORT:-3001}
 DB_PORT_TEST=${TEST_DB_PORT:-33062}
 NEXT_PIDFILE=$TEST_DIR/next.pid
 NEXT_LOG=$TEST_DIR/next.log
+MAIL_SINK_PORT_TEST=${TEST_MAIL_SINK_PORT:-2526}
+MAIL_PIDFILE=$TEST_DIR/mail-sink.pid
+MAIL_LOG=$TEST_DIR/mail-sink.log
 MDB_PID=
 NEXT_PID=
 TOTAL_PASSED=0
@@ -66,6 +72,7 @@ load_test_env() {
 cleanup() {
   next_stop
   rm -f "$NEXT_PIDFILE"
+  mail_sink_stop "$MAIL_PIDFILE"
   mariadb_stop
   rm -f "$TEST_DIR/test.pid"
 }
@@ -100,13 +107,17 @@ run_vitest() {
 # start_services : everything the integration and browser suites talk to.
 start_services() {
   next_stop_stale "$NEXT_PIDFILE"
+  mail_sink_stop_stale "$MAIL_PIDFILE"
   require_free_port "$APP_PORT" "the test app" "run with TEST_PORT=<another port>"
+  require_free_port "$MAIL_SINK_PORT_TEST" "the test mail sink" "run with TEST_MAIL_SINK_PORT=<another port>"
   mariadb_configure "$TEST_DIR" "$DB_PORT"
   if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "the test MariaDB" "run with TEST_DB_PORT=<another port>"; fi
   mariadb_init
   mariadb_start
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate
   migrate_and_seed
+  mail_sink_start "$MAIL_SINK_PORT_TEST" "$MAIL_LOG" "$MAIL_PIDFILE"
+  export APP_ORIGIN=http://127.0.0.1:$APP_PORT
   export NEXT_DIST_DIR=.next-test
   # Uploaded files of a test run stay with the test data, apart from the demo's.
   rm -rf "$TEST_DIR/uploads"

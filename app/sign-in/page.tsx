@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { redirect } from "next/navigation";
 import { Logo } from "@/components/Logo";
 import { SignInForm } from "@/components/SignInForm";
@@ -26,7 +27,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <h1 className="mb-5">Sign in</h1>
         <SignInForm next={next} />
       </div>
-      <p className="mt-6 text-sm text-ink-soft">Forgot your password or locked out? Ask your site&apos;s layout admin.</p>
+      <p className="mt-6 text-sm text-ink-soft">
+        <Link href="/forgot-password" className="underline">Forgot your password?</Link> Locked out? Ask your site&apos;s layout admin.
+      </p>
     </main>
   );
 }

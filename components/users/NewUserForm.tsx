@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
@@ -9,6 +10,9 @@ import type { UserDTO } from "@/db/users";
 export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<void> }) {
   const [failure, setFailure] = useState<ApiFailure | null>(null);
   const [busy, setBusy] = useState(false);
+  // By default the person gets an invitation mail and chooses their own password.
+  const [invite, setInvite] = useState(true);
+  const [done, setDone] = useState<string | null>(null);
 
   async function submit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -16,16 +20,22 @@ export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<
     const formEl = e.currentTarget;
     const f = new FormData(formEl);
     setBusy(true);
-    const r = await postJson<{ user: UserDTO }>("/api/users", {
+    setDone(null);
+    const r = await postJson<{ user: UserDTO; invited: boolean }>("/api/users", {
       email: String(f.get("email") ?? ""),
       displayName: String(f.get("displayName") ?? ""),
       role: String(f.get("role") ?? ""),
-      password: String(f.get("password") ?? ""),
+      ...(invite ? {} : { password: String(f.get("password") ?? "") }),
     });
     setBusy(false);
     if (!r.ok) return setFailure(r);
     setFailure(null);
     formEl.reset();
+    setDone(
+      r.data.invited
+        ? `${r.data.user.displayName} was added. An invitation mail with a link to choose a password (valid 72 hours) is on its way to ${r.data.user.email}.`
+        : `${r.data.user.displayName} was added with the first password you gave.`,
+    );
     await onCreated(r.data.user);
   }
 
@@ -41,13 +51,31 @@ export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<
             {ROLES.map((r) => <option key={r} value={r}>{ROLE_LABEL[r]}</option>)}
           </select>
         </label>
-        <label>
-          <span className="label">First password (at least 12 characters)</span>
-          <input name="password" type="password" autoComplete="new-password" className="field" required minLength={12} />
-        </label>
+        <fieldset>
+          <legend className="label">Password</legend>
+          <label className="flex min-h-tap items-center gap-2">
+            <input type="radio" name="how" checked={invite} onChange={() => setInvite(true)} />
+            Send an invitation mail; they choose it
+          </label>
+          <label className="flex min-h-tap items-center gap-2">
+            <input type="radio" name="how" checked={!invite} onChange={() => setInvite(false)} />
+            I give a first password
+          </label>
+        </fieldset>
+        {!invite && (
+          <label>
+            <span className="label">First password (at least 12 characters)</span>
+            <input name="password" type="password" autoComplete="new-password" className="field" required minLength={12} />
+          </label>
+        )}
       </div>
       <FailureNotice failure={failure} />
-      <button type="submit" className="btn-primary" disabled={busy}>{busy ? "Adding…" : "Add user"}</button>
+      {done && (
+        <p role="status" className="notice-info">
+          {done} Sent mail is listed under <Link href="/admin/mail" className="underline">Mail</Link>.
+        </p>
+      )}
+      <button type="submit" className="btn-primary" disabled={busy}>{busy ? "Adding…" : invite ? "Add and invite" : "Add user"}</button>
     </form>
   );
 }

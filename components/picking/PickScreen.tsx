@@ -1,8 +1,308 @@
 "use client";
 
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import Link from "next/link";
+import useSWR from "swr";
+import { postJson, swrFetcher } from "@/lib/client/fetch-json";
+import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/editor/document";
+import type { PickLineState } from "@/db/picking";
 import type { PickViewDTO } from "@/lib/picking/view";
+import { CAUTION_TEXT, scanMatches, SHORT_REASONS, walkingOrder, type ShortReason } from "@/lib/picking/rules";
+import { enqueue, flushQueue, readQueue, type QueuedConfirmation } from "@/lib/picking/queue";
 
-export function PickScreen({ initial }: { initial: PickViewDTO; document: EditorDocument | null }) {
-  return <h1>Batch {initial.batch.number}</h1>;
+type Local = { status: "picked" | "short"; pickedQty: number; shortReason: string | null };
+type Feedback = { kind: "wrong" | "ok" | "error"; text: string } | null;
+
+const store = () => (typeof window === "undefined" ? null : window.localStorage);
+
+/** The handheld: one stop at a time, confirmed by a scan or a tap, queued on the device when offline. */
+export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; document: EditorDocument | null }) {
+  const url = `/api/batches/${initial.batch.id}/pick`;
+  const { data, mutate } = useSWR<PickViewDTO>(url, swrFetcher, { fallbackData: initial, revalidateOnFocus: false });
+  const view = data ?? initial;
+  const batchId = view.batch.id;
+  const [local, setLocal] = useState<Record<number, Local>>({});
+  const [skipped, setSkipped] = useState<number[]>([]);
+  const [waiting, setWaiting] = useState(0);
+  const [feedback, setFeedback] = useState<Feedback>(null);
+  const [scan, setScan] = useState("");
+  const [shortOpen, setShortOpen] = useState(false);
+  const [shortQty, setShortQty] = useState(0);
+  const [shortReason, setShortReason] = useState<ShortReason>("empty bin");
+  const scanRef = useRef<HTMLInputElement>(null);
+  const flushing = useRef(false);
+  const again = useRef(false);
+
+  const stateOf = useCallback((l: PickLineState) => local[l.orderLineId]?.status ?? l.pickStatus, [local]);
+  const order = useMemo(() => walkingOrder(view.stops.map((s) => s.seq), skipped), [view.stops, skipped]);
+  const openStops = order.map((seq) => view.stops.find((s) => s.seq === seq)!).filter((s) => s.lines.some((l) => stateOf(l) === "open"));
+  const stop = openStops[0] ?? null;
+  const nextStop = openStops[1] ?? null;
+  const line = stop?.lines.find((l) => stateOf(l) === "open") ?? null;
+  const doneStops = view.stops.length - openStops.length;
+  const openLines = view.stops.reduce((n, s) => n + s.lines.filter((l) => stateOf(l) === "open").length, 0);
+
+  const focusScan = () => setTimeout(() => scanRef.current?.focus(), 0);
+
+  const flush = useCallback(async () => {
+    const s = store();
+    if (!s) return;
+    if (flushing.current) {
+      again.current = true;
+      return;
+    }
+    flushing.current = true;
+    try {
+      await flushQueue(
+        s,
+        batchId,
+        async (c) => {
+          const r = await postJson<unknown>(`/api/batches/${batchId}/confirm`, c);
+          return { status: r.status, body: r.ok ? r.data : r.body };
+        },
+        (c, r) => {
+          // "Already confirmed" means the line is done either way; any other refusal undoes the tick.
+          if (r.status !== 200 && r.status !== 409) {
+            setLocal((m) => {
+              const { [c.orderLineId]: _gone, ...rest } = m;
+              return rest;
+            });
+            const msg = (r.body as { error?: string } | null)?.error ?? `The server refused a confirmation (${r.status}).`;
+            setFeedback({ kind: "error", text: msg });
+          }
+        },
+      );
+    } finally {
+      flushing.current = false;
+      setWaiting(readQueue(s, batchId).length);
+      await mutate();
+    }
+    if (again.current) {
+      again.current = false;
+      if (readQueue(s, batchId).length) setTimeout(() => void flushRef.current(), 0);
+    }
+  }, [batchId, mutate]);
+  const flushRef = useRef(flush);
+  flushRef.current = flush;
+
+  useEffect(() => {
+    scanRef.current?.focus();
+    const s = store();
+    if (s) {
+      // Confirmations queued before a reload still count on this screen.
+      const queued = readQueue(s, batchId);
+      setWaiting(queued.length);
+      setLocal((m) => ({ ...Object.fromEntries(queued.map((c) => [c.orderLineId, { status: c.short ? "short" : "picked", pickedQty: c.quantity, shortReason: c.short?.reason ?? null } as Local])), ...m }));
+    }
+    void flush();
+    const online = () => void flush();
+    window.addEventListener("online", online);
+    return () => window.removeEventListener("online", online);
+  }, [batchId, flush]);
+
+  function record(l: PickLineState, c: Omit<QueuedConfirmation, "idempotencyKey">) {
+    const s = store();
+    // One key per action, made here on the device: every resend of this action carries it.
+    const q: QueuedConfirmation = { idempotencyKey: crypto.randomUUID(), ...c };
+    setLocal((m) => ({ ...m, [l.orderLineId]: { status: c.short ? "short" : "picked", pickedQty: c.quantity, shortReason: c.short?.reason ?? null } }));
+    if (s) setWaiting(enqueue(s, batchId, q).length);
+    void flush();
+    focusScan();
+  }
+
+  function onScan(e: React.FormEvent) {
+    e.preventDefault();
+    if (!line) return;
+    const value = scan.trim();
+    setScan("");
+    if (!value) return;
+    if (!scanMatches(value, line)) {
+      navigator.vibrate?.(200);
+      setFeedback({ kind: "wrong", text: `Wrong scan. That is ${value}; this stop is bin ${line.binCode} (SKU ${line.sku}). Scan again.` });
+      focusScan();
+      return;
+    }
+    setFeedback({ kind: "ok", text: `${line.quantity} ${line.uom} ${line.sku} into tote ${line.tote}: picked.` });
+    record(line, { orderLineId: line.orderLineId, scan: value, quantity: line.quantity });
+  }
+
+  function onTap() {
+    if (!line) return;
+    setFeedback({ kind: "ok", text: `${line.quantity} ${line.uom} ${line.sku} into tote ${line.tote}: picked.` });
+    record(line, { orderLineId: line.orderLineId, quantity: line.quantity });
+  }
+
+  function onShort(e: React.FormEvent) {
+    e.preventDefault();
+    if (!line) return;
+    const qty = Math.max(0, Math.min(line.quantity - 1, Math.floor(shortQty)));
+    setShortOpen(false);
+    setFeedback({ kind: "ok", text: `Short pick recorded: ${qty} of ${line.quantity} ${line.uom} ${line.sku} (${shortReason}).` });
+    record(line, { orderLineId: line.orderLineId, quantity: qty, short: { reason: shortReason } });
+  }
+
+  function onSkip() {
+    if (!stop) return;
+    setSkipped((s) => [...s.filter((x) => x !== stop.seq), stop.seq]);
+    setFeedback({ kind: "ok", text: `Stop at ${stop.binCodes.join(", ")} skipped: it comes again after the others.` });
+    setShortOpen(false);
+    focusScan();
+  }
+
+  const waitingNote = waiting > 0 && (
+    <p className="notice-info flex flex-wrap items-center justify-between gap-2" role="status" data-testid="queue-waiting">
+      <span>
+        {waiting} confirmation{waiting === 1 ? "" : "s"} waiting to send
+      </span>
+      <button type="button" className="btn-quiet" onClick={() => void flush()}>
+        Send now
+      </button>
+    </p>
+  );
+
+  const progress = (
+    <div>
+      <p className="flex justify-between text-sm font-semibold">
+        <span data-testid="stop-progress">{stop ? `Stop ${doneStops + 1} of ${view.stops.length}` : `${view.stops.length} of ${view.stops.length} stops`}</span>
+        <span className="text-ink-soft">
+          Batch {view.batch.number} · {view.batch.waveName}
+        </span>
+      </p>
+      <div className="mt-1 h-3 overflow-hidden rounded-full bg-paper-sunk" role="progressbar" aria-label="Stops done" aria-valuemin={0} aria-valuemax={view.stops.length} aria-valuenow={doneStops}>
+        <div className="h-full bg-trail" style={{ width: `${view.stops.length ? (100 * doneStops) / view.stops.length : 100}%` }} />
+      </div>
+    </div>
+  );
+
+  if (!stop || !line) {
+    const shorts = view.stops.flatMap((s) => s.lines).filter((l) => stateOf(l) === "short").length;
+    return (
+      <div className="mx-auto max-w-md space-y-4" data-testid="batch-done" data-open-lines={0}>
+        {progress}
+        <h1>Batch {view.batch.number} done</h1>
+        <p className="notice-info text-lg font-semibold">Take the cart to {view.dropoff}.</p>
+        {shorts > 0 && (
+          <p>
+            {shorts} short pick{shorts === 1 ? "" : "s"} recorded: the planner sees {shorts === 1 ? "it" : "them"}.
+          </p>
+        )}
+        {waitingNote}
+        {doc && <FloorPlanView document={doc} route={{ cells: view.finalLeg.cells, stops: [] }} label={`Path to ${view.dropoff}`} />}
+        <Link className="btn-primary w-full" href="/my-batches">
+          Back to my batches
+        </Link>
+      </div>
+    );
+  }
+
+  const planned = view.stops.findIndex((s) => s.seq === stop.seq);
+  const from = planned === 0 ? view.depot : `stop ${view.stops[planned - 1]?.seq}`;
+
+  return (
+    <div className="mx-auto max-w-md space-y-4" data-open-lines={openLines}>
+      {progress}
+      {waitingNote}
+      <section aria-label="This stop" className="card space-y-3 p-4">
+        <p className="text-sm text-ink-soft">Go to</p>
+        <p className="font-mono text-3xl font-bold tracking-wide" data-testid="stop-location">
+          {line.binCode}
+        </p>
+        <ul className="space-y-2">
+          {stop.lines.map((l) => {
+            const st = stateOf(l);
+            return (
+              <li key={l.orderLineId} className={`rounded-md border-2 p-3 ${l === line ? "border-trail" : "border-rack-light"}`} data-testid="stop-line">
+                <p className="text-xl font-bold">
+                  {l.quantity} {l.uom} · {l.sku}
+                </p>
+                <p>{l.description}</p>
+                <p className="text-lg">
+                  Into tote <span className="font-bold">{l.tote}</span> <span className="text-sm text-ink-soft">({l.orderNumber})</span>
+                </p>
+                {st !== "open" && <p className="font-semibold">✓ {st === "short" ? "short" : "picked"}</p>}
+              </li>
+            );
+          })}
+        </ul>
+        {stop.cautions.map((c) => (
+          <p key={c} className="notice-info font-semibold" data-testid="caution">
+            ⚠ {CAUTION_TEXT[c]}
+          </p>
+        ))}
+      </section>
+
+      {feedback && (
+        <p role={feedback.kind === "ok" ? "status" : "alert"} data-testid={feedback.kind === "wrong" ? "wrong-scan" : "feedback"} className={feedback.kind === "ok" ? "notice-info" : "notice-error font-semibold"}>
+          {feedback.kind === "ok" ? "✓ " : "✕ "}
+          {feedback.text}
+        </p>
+      )}
+
+      <form onSubmit={onScan} className="space-y-2">
+        <label className="label" htmlFor="scan">
+          Scan the bin or the SKU
+        </label>
+        <input id="scan" ref={scanRef} className="field font-mono text-xl" autoFocus autoComplete="off" autoCapitalize="characters" spellCheck={false} enterKeyHint="done" value={scan} onChange={(e) => setScan(e.target.value)} />
+      </form>
+      <button type="button" className="btn-primary min-h-16 w-full text-xl" onClick={onTap}>
+        Picked {line.quantity} {line.uom}
+      </button>
+      <div className="grid grid-cols-2 gap-2">
+        <button
+          type="button"
+          className="btn-danger"
+          aria-expanded={shortOpen}
+          onClick={() => {
+            setShortOpen((o) => !o);
+            setShortQty(0);
+          }}
+        >
+          Short pick
+        </button>
+        <button type="button" className="btn-quiet" onClick={onSkip} disabled={openStops.length < 2}>
+          Skip, come back later
+        </button>
+      </div>
+      {shortOpen && (
+        <form onSubmit={onShort} className="card space-y-3 p-4" aria-label="Short pick">
+          <div>
+            <label className="label" htmlFor="short-qty">
+              Quantity found (0 to {line.quantity - 1})
+            </label>
+            <input id="short-qty" className="field" type="number" inputMode="numeric" min={0} max={line.quantity - 1} value={shortQty} onChange={(e) => setShortQty(Number(e.target.value))} />
+          </div>
+          <div>
+            <label className="label" htmlFor="short-reason">
+              Reason
+            </label>
+            <select id="short-reason" className="field" value={shortReason} onChange={(e) => setShortReason(e.target.value as ShortReason)}>
+              {SHORT_REASONS.map((r) => (
+                <option key={r} value={r}>
+                  {r}
+                </option>
+              ))}
+            </select>
+          </div>
+          <button type="submit" className="btn-danger w-full">
+            Record short pick
+          </button>
+        </form>
+      )}
+
+      {doc && (
+        <section aria-label="Map" className="card p-2">
+          <FloorPlanView document={doc} route={{ cells: stop.pathCells, stops: [{ x: stop.x, y: stop.y, label: String(stop.seq) }] }} label={`Path from ${from} to this stop`} />
+          <p className="mt-1 px-2 text-sm text-ink-soft">Path from {from} to this stop.</p>
+        </section>
+      )}
+      {nextStop ? (
+        <p className="text-ink-soft" data-testid="next-stop">
+          Next: <span className="font-mono font-semibold">{nextStop.binCodes.join(", ")}</span> — {nextStop.lines.map((l) => `${l.quantity} ${l.uom} ${l.sku}`).join(", ")}
+        </p>
+      ) : (
+        <p className="text-ink-soft">Last stop: then to {view.dropoff}.</p>
+      )}
+    </div>
+  );
 }

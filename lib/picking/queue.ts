@@ -59,7 +59,8 @@ export async function flushQueue(
   onAnswer?: (c: QueuedConfirmation, r: SendResult) => void,
 ): Promise<{ sent: number; left: number }> {
   let sent = 0;
-  for (const c of readQueue(store, batchId)) {
+  // The head each time, so confirmations queued while this runs go out in the same run.
+  for (let c = readQueue(store, batchId)[0]; c; c = readQueue(store, batchId)[0]) {
     const r = await send(c);
     if (r.status === 0 || r.status >= 500) return { sent, left: readQueue(store, batchId).length };
     dropFromQueue(store, batchId, c.idempotencyKey);

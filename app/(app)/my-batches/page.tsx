@@ -1,18 +1,18 @@
 import type { Metadata } from "next";
 import { requireRole } from "@/lib/auth/guard";
 import { PageHeader } from "@/components/PageHeader";
-import { EmptyState } from "@/components/EmptyState";
+import { myBatches, nextUnassignedBatch } from "@/db/picking";
+import { MyBatches } from "@/components/picking/MyBatches";
 
 export const metadata: Metadata = { title: "My batches" };
 
 export default async function MyBatchesPage() {
   const user = await requireRole("picks.work", "/my-batches");
+  const [batches, next] = await Promise.all([myBatches(user.siteId, user.id), nextUnassignedBatch(user.siteId)]);
   return (
-    <>
+    <div className="mx-auto max-w-xl">
       <PageHeader title="My batches" lead={`Batches assigned to ${user.displayName}, in the order to pick them.`} />
-      <EmptyState title="No batches for you right now">
-        When a planner releases a batch to you it appears here with its numbered stops. Ask your planner if you expected one.
-      </EmptyState>
-    </>
+      <MyBatches initial={{ batches, next }} />
+    </div>
   );
 }

@@ -10,6 +10,7 @@ import { smtpTransport } from "@/lib/mail/transport";
 import { LINK_DEAD, RESET_ANSWER } from "@/lib/mail/answers";
 import { newId } from "@/lib/auth/session";
 import { InvalidAddressError } from "@/lib/mail/headers";
+import { MAX_RESETS_PER_ACCOUNT } from "@/lib/mail/reset-throttle";
 
 afterAll(async () => {
   await db().destroy();
@@ -131,6 +132,19 @@ describe("password reset", () => {
     expect(res.status).toBe(200);
     expect(res.body.message).toBe(RESET_ANSWER);
     expect((await listOutbox(200)).some((m) => m.to === email)).toBe(false);
+  });
+});
+
+describe("reset throttle", () => {
+  it(`after ${MAX_RESETS_PER_ACCOUNT} requests for one address in 15 minutes the next waits (429), account or not`, async () => {
+    const email = uniqueAddress("often");
+    for (let i = 0; i < MAX_RESETS_PER_ACCOUNT; i++) {
+      const r = await api().post("/api/password/reset-request").set("Origin", ORIGIN).send({ email });
+      expect(r.status).toBe(200);
+    }
+    const r = await api().post("/api/password/reset-request").set("Origin", ORIGIN).send({ email });
+    expect(r.status).toBe(429);
+    expect(r.body.retryAt).toBeTruthy();
   });
 });
 

@@ -110,8 +110,14 @@ export async function claimMail(id: number, now: Date): Promise<OutboxRow | null
   return row ? toDTO(row) : null;
 }
 
+/**
+ * A sent row keeps its envelope and subject for the record but loses its body: bodies hold one-time
+ * links whose tokens the database otherwise keeps only as hashes.
+ */
 export async function markSent(id: number, now: Date): Promise<void> {
-  await db()("outbox").where({ id, status: "sending" }).update({ status: "sent", sent_at: now, attempts: db().raw("attempts + 1"), last_error: null });
+  await db()("outbox")
+    .where({ id, status: "sending" })
+    .update({ status: "sent", sent_at: now, attempts: db().raw("attempts + 1"), last_error: null, text_body: "", html_body: null });
 }
 
 export async function markAttemptFailed(id: number, attempts: number, error: string, next: { status: "pending"; nextAttemptAt: Date } | { status: "failed" }): Promise<void> {

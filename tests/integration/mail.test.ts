@@ -186,6 +186,7 @@ describe("outbox", () => {
     const row = (await getOutboxMailByKey(key))!;
     expect(row.status).toBe("sent");
     expect(row.attempts).toBeGreaterThan(1);
+    expect(row.text).toBe("");
     await waitForMail(to);
     await new Promise((r) => setTimeout(r, 1500));
     expect(await sinkMessagesTo(to)).toHaveLength(1);

@@ -12,6 +12,7 @@ const LINKS: { href: string; label: string; access: Access }[] = [
   { href: "/items", label: "Item master", access: "waves.read" },
   { href: "/my-batches", label: "My batches", access: "picks.work" },
   { href: "/admin/users", label: "Users", access: "users.manage" },
+  { href: "/admin/mail", label: "Mail", access: "users.manage" },
 ];
 
 export function NavBar({ user }: { user: SignedInUser }) {

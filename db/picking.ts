@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "./knex";
+import { queueShortPickSummaryIfWaveDone } from "./wave-mail";
 
 export type PickBatchStatus = "planned" | "released" | "picking" | "done";
 
@@ -207,7 +208,10 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
         if (batch.status === "released") await trx("batches").where({ id: input.batchId }).update({ status: "picking", started_at: trx.fn.now(3) });
         const open = await trx("batch_lines").where({ batch_id: input.batchId, pick_status: "open" }).count({ n: "*" }).first();
         const done = Number(open?.n ?? 0) === 0;
-        if (done) await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3) });
+        if (done) {
+          await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3) });
+          await queueShortPickSummaryIfWaveDone(trx, input.batchId);
+        }
         answer = { status: 200, body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: Number(open?.n ?? 0) } } };
       }
       await trx("pick_confirmations").where({ idempotency_key: input.key }).update({ response: JSON.stringify(answer) });

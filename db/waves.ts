@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
+import { queueWaveReleasedMail } from "./wave-mail";
 import type { WaveOrder } from "@/lib/waves/types";
 
 export type WaveSettings = {
@@ -226,6 +227,7 @@ export async function releaseWave(siteId: number, waveId: number, expectedVersio
     await trx("waves").where({ id: waveId }).update({ status: "released", version: expectedVersion + 1, released_at: trx.fn.now(3), released_by: userId });
     await trx("batches").where({ wave_id: waveId }).update({ status: "released" });
     await trx("orders").whereIn("id", trx("wave_orders").where({ wave_id: waveId }).select("order_id")).update({ status: "released" });
+    await queueWaveReleasedMail(trx, waveId);
     return "released";
   });
 }

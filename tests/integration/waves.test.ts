@@ -115,6 +115,9 @@ describe("release", () => {
     expect(replan.body.error).toMatch(/released/);
     const statuses = await db()("orders").whereIn("id", db()("wave_orders").where({ wave_id: id }).select("order_id")).distinct().pluck("status");
     expect(statuses).toEqual(["released"]);
+    // The planner's "wave released" mail was queued with the release, once, even with two tries at it.
+    const mails = await db()("outbox").where({ dedupe_key: `wave-released:${id}` }).select("to_address", "subject");
+    expect(mails).toEqual([{ to_address: "planner@bramblegate.example", subject: expect.stringMatching(/^Wave released: .* \(\d+ batches\)$/) }]);
   });
 
   it("a retried release by the same planner answers like the first", async () => {

@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import { enqueueMail, type OutgoingMail } from "./outbox";
-import { DuplicateEmailError, getUser, normaliseEmail, type UserDTO } from "./users";
+import { createUser, type UserDTO } from "./users";
 import type { Role } from "@/lib/auth/permissions";
 import { INVITE_LIFETIME_MS, looksLikeToken, newLinkToken, RESET_LIFETIME_MS, tokenSha256 } from "@/lib/mail/token";
 
@@ -23,31 +23,15 @@ async function insertToken(trx: Knex.Transaction, userId: string, purpose: Token
  * A new account without a password, its invitation token and the invitation mail, in one transaction:
  * there is never a user who was invited but got no mail, nor a mail for a user who does not exist.
  */
-export async function createInvitedUser(
+export function createInvitedUser(
   input: { id: string; siteId: number; email: string; displayName: string; role: Role },
   mail: MailForToken,
   now = new Date(),
 ): Promise<UserDTO> {
-  try {
-    await db().transaction(async (trx) => {
-      await trx("users").insert({
-        id: input.id,
-        site_id: input.siteId,
-        email: normaliseEmail(input.email),
-        display_name: input.displayName.trim(),
-        role: input.role,
-        password_hash: null,
-      });
-      const { token, sha } = await insertToken(trx, input.id, "invite", now);
-      await enqueueMail(trx, { ...mail(token), dedupeKey: `invite:${sha.slice(0, 40)}` });
-    });
-  } catch (e) {
-    if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new DuplicateEmailError(input.email);
-    throw e;
-  }
-  const created = await getUser(input.id);
-  if (!created) throw new Error("user vanished after insert");
-  return created;
+  return createUser({ ...input, passwordHash: null }, async (trx) => {
+    const { token, sha } = await insertToken(trx, input.id, "invite", now);
+    await enqueueMail(trx, { ...mail(token), dedupeKey: `invite:${sha.slice(0, 40)}` });
+  });
 }
 
 /** A reset token and its mail in one transaction; earlier unused reset links of the user stop working. */

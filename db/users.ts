@@ -1,4 +1,5 @@
 import "server-only";
+import type { Knex } from "knex";
 import { db } from "./knex";
 import type { Role } from "@/lib/auth/permissions";
 
@@ -65,22 +66,25 @@ export async function listUsers(siteId: number): Promise<UserDTO[]> {
 
 export class DuplicateEmailError extends Error {}
 
-export async function createUser(input: {
-  id: string;
-  siteId: number;
-  email: string;
-  displayName: string;
-  role: Role;
-  passwordHash: string | null;
-}): Promise<UserDTO> {
+/**
+ * Inserts the user; `alongside` runs in the same transaction (an invitation's token and mail), so
+ * both happen or neither does.
+ */
+export async function createUser(
+  input: { id: string; siteId: number; email: string; displayName: string; role: Role; passwordHash: string | null },
+  alongside?: (trx: Knex.Transaction) => Promise<void>,
+): Promise<UserDTO> {
   try {
-    await db()("users").insert({
-      id: input.id,
-      site_id: input.siteId,
-      email: normaliseEmail(input.email),
-      display_name: input.displayName.trim(),
-      role: input.role,
-      password_hash: input.passwordHash,
+    await db().transaction(async (trx) => {
+      await trx("users").insert({
+        id: input.id,
+        site_id: input.siteId,
+        email: normaliseEmail(input.email),
+        display_name: input.displayName.trim(),
+        role: input.role,
+        password_hash: input.passwordHash,
+      });
+      await alongside?.(trx);
     });
   } catch (e) {
     if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new DuplicateEmailError(input.email);

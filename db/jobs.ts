@@ -22,15 +22,25 @@ const toDTO = (r: JobRow): JobDTO => ({
  * A job for `key`, or the one already queued/running/done for it: a double click or a retried request
  * on flaky Wi-Fi joins the first job instead of starting a second.
  */
-export async function createOrJoinJob(siteId: number, kind: string, key: string, userId: string | null, message: string): Promise<{ job: JobDTO; created: boolean }> {
+export type JobStart = { job: JobDTO; created: boolean; startedBy: { id: string; name: string } | null };
+
+export async function createOrJoinJob(siteId: number, kind: string, key: string, userId: string | null, message: string): Promise<JobStart> {
   return db().transaction(async (trx) => {
     await trx("sites").where({ id: siteId }).forUpdate().first("id");
-    const existing = (await trx("jobs").where({ job_key: key }).whereIn("status", ["queued", "running", "done"]).orderBy("created_at", "desc").first()) as JobRow | undefined;
-    if (existing) return { job: toDTO(existing), created: false };
+    const existing = (await trx("jobs as j")
+      .leftJoin("users as u", "u.id", "j.created_by")
+      .where({ "j.job_key": key })
+      .whereIn("j.status", ["queued", "running", "done"])
+      .orderBy("j.created_at", "desc")
+      .first("j.*", "u.display_name as started_by_name")) as (JobRow & { created_by: string | null; started_by_name: string | null }) | undefined;
+    if (existing) {
+      const startedBy = existing.created_by ? { id: existing.created_by, name: existing.started_by_name ?? "someone" } : null;
+      return { job: toDTO(existing), created: false, startedBy };
+    }
     const id = randomBytes(16).toString("hex");
     await trx("jobs").insert({ id, site_id: siteId, kind, job_key: key, status: "queued", message, created_by: userId });
     const row = (await trx("jobs").where({ id }).first()) as JobRow;
-    return { job: toDTO(row), created: true };
+    return { job: toDTO(row), created: true, startedBy: null };
   });
 }
 

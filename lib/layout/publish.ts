@@ -1,5 +1,6 @@
 import "server-only";
 import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
+import { ownJobOrConflict } from "@/lib/jobs/join";
 import { getDraft } from "@/db/floor-plans";
 import { AlreadyPublishedError, insertLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
@@ -13,7 +14,8 @@ export type PublishResult = { layoutVersionId: number; number: number };
 
 /**
  * Starts publishing the draft as saved at `draftVersion` and returns its job at once; the browser
- * polls the job. A second request for the same saved draft joins the same job.
+ * polls the job. A second request by the same admin for the same saved draft joins the same job;
+ * another admin's gets 409.
  */
 export async function startPublish(user: SignedInUser, floorPlanId: number, draftVersion: number, ip: string): Promise<JobDTO> {
   const draft = await getDraft(user.siteId, floorPlanId);
@@ -25,8 +27,13 @@ export async function startPublish(user: SignedInUser, floorPlanId: number, draf
   if (errors.length > 0) {
     throw new HttpError(422, `This draft has ${errors.length} problem${errors.length === 1 ? "" : "s"} to fix before it can be published.`, { problems: errors });
   }
-  const { job, created } = await createOrJoinJob(user.siteId, "publish-layout", `publish:${floorPlanId}@${draftVersion}`, user.id, "Waiting to start");
-  if (created) {
+  const start = await createOrJoinJob(user.siteId, "publish-layout", `publish:${floorPlanId}@${draftVersion}`, user.id, "Waiting to start");
+  const job = ownJobOrConflict(start, user.id, (by, j) =>
+    j.status === "done"
+      ? `${by} has already published this save of the draft. Reload the floor plan to see the new version.`
+      : `${by} is publishing this save of the draft right now. Wait a moment, then reload the floor plan to see the new version.`,
+  );
+  if (start.created) {
     await audit({ event: "layout.publish_started", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, ip, detail: { draftVersion, job: job.id } });
     void runPublish(job.id, floorPlanId, draftVersion, user);
   }

@@ -1,5 +1,6 @@
 import "server-only";
 import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
+import { ownJobOrConflict } from "@/lib/jobs/join";
 import { getWave, ordersOfWave, storePlan } from "@/db/waves";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
@@ -10,15 +11,20 @@ import { RoutingJobError } from "@/lib/routing/pool";
 import type { SignedInUser } from "@/lib/auth/session";
 import { toStoredBatch } from "./to-stored";
 
-/** Starts (or joins) planning the wave as it stands at `version`; the browser polls the job. */
+/** Starts (or joins, for the same planner) planning the wave as it stands at `version`; the browser polls the job. */
 export async function startPlanWave(user: SignedInUser, waveId: number, version: number, ip: string): Promise<JobDTO> {
   const wave = await getWave(user.siteId, waveId);
   if (!wave) throw new HttpError(404, "No such wave at this site.");
   if (wave.status === "released") throw new HttpError(409, "This wave is released; its batches are locked. Create a new wave for further orders.");
   if (wave.version !== version) throw new HttpError(409, "Someone changed this wave while you were looking. Reload it and plan again.");
   if (wave.orderCount === 0) throw new HttpError(422, "This wave has no orders to plan.");
-  const { job, created } = await createOrJoinJob(user.siteId, "plan-wave", `plan-wave:${waveId}@${version}`, user.id, "Waiting to start");
-  if (created) {
+  const start = await createOrJoinJob(user.siteId, "plan-wave", `plan-wave:${waveId}@${version}`, user.id, "Waiting to start");
+  const job = ownJobOrConflict(start, user.id, (by, j) =>
+    j.status === "done"
+      ? `${by} has just planned this wave. Reload it to see their batches.`
+      : `${by} is planning this wave right now. Wait for their plan, then reload the wave to review it.`,
+  );
+  if (start.created) {
     await audit({ event: "wave.plan_started", actorUserId: user.id, subject: `wave:${waveId}`, ip, detail: { version, job: job.id } });
     void runPlan(job.id, user.siteId, waveId, version);
   }

@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { api, ORIGIN, signInAs } from "../support/app";
+import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { smallDocument } from "../support/documents";
 import { closeDb } from "@/db/knex";
 import { bytesToInt32, countLayoutRows, loadLayoutGraph, matrixChecksum, int32ToBytes } from "@/db/layout-versions";
@@ -110,6 +110,32 @@ describe("publishing", () => {
     expect(d.status).toBe(200);
     expect(d.body.distanceMm).toBe(expected);
     expect(d.body.cells.length).toBeGreaterThan(1);
+  });
+
+  it("two admins publishing the same save at once: exactly one publishes, the other gets 409 naming who did", async () => {
+    const admin = await signInAs("admin");
+    const other = await makeUser("admin");
+    const otherCookie = await signIn(other.email, other.password);
+    const id = await newPlan(admin);
+    const version = await saveSmall(admin, id, 1);
+    const publish = (cookie: string) => api().post(`/api/floor-plans/${id}/publish`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version });
+    const answers = await Promise.all([publish(admin), publish(otherCookie)]);
+    expect(answers.map((a) => a.status).sort()).toEqual([202, 409]);
+    const winner = answers.find((a) => a.status === 202)!;
+    const loser = answers.find((a) => a.status === 409)!;
+    expect(loser.body.error).toMatch(/is publishing this save|has already published this save/);
+    expect(loser.body.jobId).toBe(winner.body.jobId);
+    const winnerName = (await api().get("/api/session").set("Cookie", winner === answers[0] ? admin : otherCookie)).body.user.displayName;
+    expect(loser.body.error).toContain(winnerName);
+    const job = await waitForJob(admin, winner.body.jobId);
+    expect(job.status).toBe("done");
+    // Still refused once it is done, and only one version exists.
+    const late = await publish(winner === answers[0] ? otherCookie : admin);
+    expect(late.status).toBe(409);
+    expect(late.body.error).toMatch(/has already published this save/);
+    const versions = await api().get(`/api/floor-plans/${id}/versions`).set("Cookie", admin);
+    expect(versions.status).toBe(200);
+    expect(versions.body.versions).toHaveLength(1);
   });
 
   it("a draft with problems is refused with the list of problems", async () => {

@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from "vitest";
-import { api, ORIGIN, signInAs } from "../support/app";
+import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
 import { loadLayoutGraph } from "@/db/layout-versions";
 import { planPick } from "@/lib/routing/plan";
@@ -78,6 +78,27 @@ describe("planning a wave", () => {
     expect(a.status).toBe(202);
     expect(b.body.jobId).toBe(a.body.jobId);
     await waitForJob(planner, a.body.jobId);
+  });
+
+  it("two planners re-planning the same wave at once: exactly one plans, the other gets 409 naming who", async () => {
+    const planner = await signInAs("planner");
+    const second = await makeUser("planner");
+    const secondCookie = await signIn(second.email, second.password);
+    const id = await newWave(planner, "2026-11-25T23:59:00Z", "first-come");
+    const first = (await plan(planner, id)).wave;
+    const replan = (cookie: string) => api().post(`/api/waves/${id}/plan`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version: first.version });
+    const answers = await Promise.all([replan(planner), replan(secondCookie)]);
+    expect(answers.map((r) => r.status).sort()).toEqual([202, 409]);
+    const winner = answers.find((r) => r.status === 202)!;
+    const loser = answers.find((r) => r.status === 409)!;
+    expect(loser.body.error).toMatch(/is planning this wave right now|has just planned this wave/);
+    const winnerName = (await api().get("/api/session").set("Cookie", winner === answers[0] ? planner : secondCookie)).body.user.displayName;
+    expect(loser.body.startedBy).toBe(winnerName);
+    expect(loser.body.error).toContain(winnerName);
+    const job = await waitForJob(planner, winner.body.jobId);
+    expect(job.status, job.message).toBe("done");
+    const after = (await api().get(`/api/waves/${id}`).set("Cookie", planner)).body.wave;
+    expect(after.version).toBe(first.version + 1);
   });
 
   it("orders already in a wave are not taken by the next one", async () => {

@@ -1,16 +1,9 @@
 import { NextResponse, type NextRequest } from "next/server";
 
-// A convenience only: sends people without a session cookie to the sign-in page before rendering.
-// Every page and handler still checks the session and role itself (requireRole / route()).
-const COOKIE_NAMES = ["trailbin_session", "__Host-trailbin_session"];
-
-export function proxy(request: NextRequest) {
-  const hasCookie = COOKIE_NAMES.some((n) => request.cookies.has(n));
-  if (hasCookie) return NextResponse.next();
-  const url = request.nextUrl.clone();
-  url.pathname = "/sign-in";
-  url.search = `?next=${encodeURIComponent(request.nextUrl.pathname + request.nextUrl.search)}`;
-  return NextResponse.redirect(url);
+// Pages decide about sessions themselves (requireRole), so that every refused visit, with or without
+// a cookie, reaches the audit log; this proxy only adds what every response needs.
+export function proxy(_request: NextRequest) {
+  return NextResponse.next();
 }
 
 export const config = {

@@ -7,6 +7,8 @@ export type AuditEvent =
   | "sign_in.throttled"
   | "sign_out"
   | "session.expired"
+  | "session.refused"
+  | "access.anonymous"
   | "access.denied"
   | "origin.refused"
   | "user.created"

@@ -6,6 +6,7 @@ import { SESSION_COOKIE } from "./lucia";
 import { validateSessionId, type SignedInUser } from "./session";
 import { roleMay, type Access } from "./permissions";
 import { audit } from "@/db/audit";
+import { auditNoSession } from "./refusals";
 import { clientIp } from "@/lib/http/client-ip";
 
 /** The signed-in user of this request, or null; validated once per render. */
@@ -21,7 +22,10 @@ export const currentUser = cache(async (): Promise<SignedInUser | null> => {
  */
 export async function requireRole(access: Access, path: string): Promise<SignedInUser> {
   const user = await currentUser();
-  if (!user) redirect(`/sign-in?next=${encodeURIComponent(path)}`);
+  if (!user) {
+    await auditNoSession((await cookies()).get(SESSION_COOKIE)?.value ?? null, path, clientIp(await headers()));
+    redirect(`/sign-in?next=${encodeURIComponent(path)}`);
+  }
   if (!roleMay(user.role, access)) {
     await audit({ event: "access.denied", actorUserId: user.id, subject: path, ip: clientIp(await headers()), detail: { access } });
     forbidden();

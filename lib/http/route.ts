@@ -4,6 +4,7 @@ import { SESSION_COOKIE } from "@/lib/auth/lucia";
 import { validateSessionId, type SignedInUser } from "@/lib/auth/session";
 import { roleMay, type Access } from "@/lib/auth/permissions";
 import { audit } from "@/db/audit";
+import { auditNoSession } from "@/lib/auth/refusals";
 import { clientIp } from "./client-ip";
 import { originAllowed } from "./origin";
 import { HttpError, jsonError } from "./errors";
@@ -67,7 +68,10 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
       const signedIn = sessionId ? await validateSessionId(sessionId) : null;
       const user = signedIn?.user ?? null;
       if (opts.access !== "public") {
-        if (!user) return jsonError(401, "Your session has ended or you are not signed in. Sign in and try again.");
+        if (!user) {
+          await auditNoSession(sessionId, `${req.method} ${path}`, ip);
+          return jsonError(401, "Your session has ended or you are not signed in. Sign in and try again.");
+        }
         if (!roleMay(user.role, opts.access)) {
           await audit({ event: "access.denied", actorUserId: user.id, subject: `${req.method} ${path}`, ip, detail: { access: opts.access } });
           return jsonError(403, "Your role does not allow this. Ask a layout admin if you need access.");

@@ -1,6 +1,7 @@
 import net from "node:net";
 import { afterAll, describe, expect, it } from "vitest";
 import { api, makeUser, ORIGIN, signIn, signInAs, APP_URL } from "../support/app";
+import { auditedSince, auditMark } from "../support/audit";
 import { db } from "@/db/knex";
 import { enqueueMail, getOutboxMailByKey, listOutbox } from "@/db/outbox";
 import { sinkMessagesTo, type SinkMessage } from "@/db/mail-sink";
@@ -81,8 +82,10 @@ describe("invitation", () => {
     expect(ok.status).toBe(200);
     expect(await signIn(email, "my own invited password")).toMatch(/^trailbin_session=/);
 
+    const mark = await auditMark();
     const again = await setPassword(token, "someone else's password");
     expect(again.status).toBe(400);
+    expect(await auditedSince(mark, "password.set_refused")).toHaveLength(1);
     expect(again.body.error).toBe(LINK_DEAD);
     expect(await signInStatus(email, "someone else's password")).toBe(401);
     const deadPage = await api().get(new URL(link).pathname + new URL(link).search);

@@ -11,8 +11,10 @@
 #   TEST_SUITES   which suites to run, comma or space separated: unit,integration,browser (default all)
 #   TEST_PORT     app port (default 3001)        TEST_DB_PORT  MariaDB port (default 33062)
 #   TEST_MAIL_SINK_PORT  the local SMTP sink (default 2526)
+#   TEST_SECOND_PORT     a second app a fault test may start from the same build (default TEST_PORT+1)
 # The suites see APP_URL, APP_ORIGIN, DB_HOST, DB_PORT, DB_NAME, DB_USER, DB_PASSWORD, SMTP_HOST,
-# SMTP_PORT and CHROMIUM_PATH.
+# SMTP_PORT, CHROMIUM_PATH, NEXT_DIST_DIR, TEST_SECOND_APP_PORT and TRAILBIN_TEST_SERVICES (the
+# command that stops and starts the test MariaDB or mail sink, scripts/test-services.sh).
 set -euo pipefail
 
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
@@ -123,6 +125,8 @@ start_services() {
   rm -rf "$TEST_DIR/uploads"
   export UPLOAD_DIR=$TEST_DIR/uploads
   build_if_needed
+  export TRAILBIN_TEST_SERVICES=$TRAILBIN_ROOT/scripts/test-services.sh
+  export TEST_SECOND_APP_PORT=${TEST_SECOND_PORT:-$((APP_PORT + 1))}
   NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
 }
 

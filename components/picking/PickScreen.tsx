@@ -14,6 +14,8 @@ import { enqueue, flushQueue, readQueue, type QueuedConfirmation } from "@/lib/p
 type Local = { status: "picked" | "short"; pickedQty: number; shortReason: string | null };
 type Feedback = { kind: "wrong" | "ok" | "error"; text: string } | null;
 
+const RETRY_MS = 5000;
+
 const store = () => (typeof window === "undefined" ? null : window.localStorage);
 
 /** The handheld: one stop at a time, confirmed by a scan or a tap, queued on the device when offline. */
@@ -101,6 +103,14 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
     return () => window.removeEventListener("online", online);
   }, [batchId, flush]);
 
+  // A 503 or a dropped connection leaves picks queued, and the picker may have nothing left to tap
+  // that would send them; so while any wait, try again on a timer until the server takes them.
+  useEffect(() => {
+    if (waiting === 0) return;
+    const timer = setInterval(() => void flushRef.current(), RETRY_MS);
+    return () => clearInterval(timer);
+  }, [waiting]);
+
   function record(l: PickLineState, c: Omit<QueuedConfirmation, "idempotencyKey">) {
     const s = store();
     // One key per action, made here on the device: every resend of this action carries it.
@@ -153,7 +163,7 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   const waitingNote = waiting > 0 && (
     <p className="notice-info flex flex-wrap items-center justify-between gap-2" role="status" data-testid="queue-waiting">
       <span>
-        {waiting} confirmation{waiting === 1 ? "" : "s"} waiting to send
+        {waiting} confirmation{waiting === 1 ? "" : "s"} waiting to send; {waiting === 1 ? "it goes" : "they go"} out by {waiting === 1 ? "itself" : "themselves"} when the server answers again
       </span>
       <button type="button" className="btn-quiet" onClick={() => void flush()}>
         Send now

@@ -9,6 +9,7 @@ import { clientIp } from "./client-ip";
 import { originAllowed } from "./origin";
 import { HttpError, jsonError } from "./errors";
 import { zodIssues } from "./zod-issues";
+import { databaseOutage, databaseOutageResponse } from "./db-errors";
 
 const MAX_JSON_BYTES = 256 * 1024;
 
@@ -95,6 +96,11 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
       });
     } catch (e) {
       if (e instanceof HttpError) return jsonError(e.status, e.message, e.extra);
+      const outage = databaseOutage(e);
+      if (outage) {
+        console.warn(`${req.method} ${path}: database ${outage}: ${(e as Error).message}`);
+        return databaseOutageResponse(outage);
+      }
       const ref = crypto.randomUUID().slice(0, 8);
       console.error(`[${ref}] ${req.method} ${path}`, e);
       return jsonError(500, `Something went wrong on the server (reference ${ref}). Try again; if it keeps happening, tell your admin the reference.`);

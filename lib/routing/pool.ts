@@ -1,6 +1,6 @@
 // Node-only: runs routing jobs in worker_threads so long solves never block the server's event loop.
 import path from "node:path";
-import { Worker } from "node:worker_threads";
+import { Worker, type ResourceLimits } from "node:worker_threads";
 import type { JobResult, RoutingJob, SerializedError } from "./jobs";
 import { deserializeError } from "./jobs";
 
@@ -29,6 +29,8 @@ export interface PoolOptions {
   defaultTimeoutMs?: number;
   /** Worker entry, relative to process.cwd(); default lib/routing/worker.ts. */
   workerPath?: string;
+  /** Heap caps for each worker: a job that needs more fails as "crashed" instead of growing the process. */
+  resourceLimits?: ResourceLimits;
 }
 
 export interface RunOptions {
@@ -57,6 +59,7 @@ export class WorkerPool<Job, Result> {
   private readonly size: number;
   private readonly timeoutMs: number;
   private readonly entry: string;
+  private readonly resourceLimits: ResourceLimits | undefined;
   private readonly slots: Slot[] = [];
   private readonly queue: Pending[] = [];
   private nextId = 1;
@@ -68,6 +71,7 @@ export class WorkerPool<Job, Result> {
     // Resolved from the working directory (repo root under next start and vitest) so that no
     // bundler tries to follow the worker file.
     this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath ?? "lib/routing/worker.ts");
+    this.resourceLimits = options.resourceLimits;
   }
 
   run(job: Job, opts: RunOptions = {}): Promise<Result> {
@@ -109,7 +113,7 @@ export class WorkerPool<Job, Result> {
     // ERR_UNKNOWN_FILE_EXTENSION (tsx issue #354: the hook is not in place for a worker's entry),
     // so a one-line CommonJS bootstrap registers tsx before requiring the .ts entry.
     const bootstrap = `require("tsx/cjs/api").register(); require(${JSON.stringify(this.entry)});`;
-    const worker = new Worker(bootstrap, { eval: true, execArgv: ["--import", "tsx"] });
+    const worker = new Worker(bootstrap, { eval: true, execArgv: ["--import", "tsx"], ...(this.resourceLimits ? { resourceLimits: this.resourceLimits } : {}) });
     worker.unref();
     const slot: Slot = { worker, running: null, timer: null, onAbort: null };
     worker.on("message", (m: PoolMessage) => this.onMessage(slot, m));

@@ -5,7 +5,7 @@ import { getWave, ordersOfWave, storePlan } from "@/db/waves";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout/graph-cache";
-import { wavePool } from "@/lib/workers/pool";
+import { WAVE_TIME_LIMIT_MS, wavePool } from "@/lib/workers/pool";
 import { cancellable, finished } from "@/lib/jobs/cancel";
 import { RoutingJobError } from "@/lib/routing/pool";
 import type { SignedInUser } from "@/lib/auth/session";
@@ -29,6 +29,25 @@ export async function startPlanWave(user: SignedInUser, waveId: number, version:
     void runPlan(job.id, user.siteId, waveId, version);
   }
   return job;
+}
+
+function duration(ms: number): string {
+  if (ms < 1000) return `${ms} ms`;
+  if (ms < 120_000) return `${Math.round(ms / 1000)} seconds`;
+  return `${Math.round(ms / 60_000)} minutes`;
+}
+
+/** What the planner reads on a failed job: what happened, that the wave is untouched, what to do next. */
+function failureMessage(e: unknown): string {
+  const unchanged = "The wave is unchanged and can be planned again.";
+  if (e instanceof RoutingJobError && e.reason === "timeout") {
+    return `Planning failed: it took longer than the time limit of ${duration(WAVE_TIME_LIMIT_MS)} and was stopped. ${unchanged} Plan it again, or make a smaller wave (an earlier cut-off or fewer priorities).`;
+  }
+  if (e instanceof RoutingJobError && e.reason === "crashed") {
+    const memory = /memory/i.test(e.message) ? " because it ran out of memory" : "";
+    return `Planning failed: the planning worker stopped unexpectedly${memory}. ${unchanged} Plan it again; if it fails again, make a smaller wave (an earlier cut-off or fewer priorities) or tell your admin.`;
+  }
+  return `Planning failed: ${(e as Error).message}`;
 }
 
 async function runPlan(jobId: string, siteId: number, waveId: number, version: number): Promise<void> {
@@ -66,9 +85,8 @@ async function runPlan(jobId: string, siteId: number, waveId: number, version: n
     await updateJob(jobId, { status: "done", progress: 1, message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`, result: { waveId, batches: stored.length } });
   } catch (e) {
     const cancelled = e instanceof RoutingJobError && e.reason === "cancelled";
-    const reason = e instanceof RoutingJobError && e.reason === "timeout" ? "it took longer than the time limit" : (e as Error).message;
     if (!cancelled) console.error(`wave planning job ${jobId} failed`, e);
-    await updateJob(jobId, cancelled ? { status: "cancelled", message: "Planning was cancelled; the wave is as it was." } : { status: "failed", message: `Planning failed: ${reason}` }).catch(() => undefined);
+    await updateJob(jobId, cancelled ? { status: "cancelled", message: "Planning was cancelled; the wave is as it was." } : { status: "failed", message: failureMessage(e) }).catch(() => undefined);
   } finally {
     finished(jobId);
   }

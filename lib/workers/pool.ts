@@ -2,6 +2,7 @@ import "server-only";
 import { RoutingPool, WorkerPool } from "@/lib/routing/pool";
 import type { BatchingResult } from "@/lib/waves/types";
 import type { WaveJob } from "./wave-job";
+import { waveTimeLimitMs, waveWorkerMaxHeapMb } from "./settings";
 
 // One worker per kind of work: the machine has two cores, and the other one keeps serving pickers
 // while a publish or a wave plan runs.
@@ -12,10 +13,16 @@ export function routingPool(): RoutingPool {
   return globalForPool.trailbinPool;
 }
 
-/** A 1,000-order wave plans in seconds (npm run bench); ten minutes means something is wrong. */
-export const WAVE_TIME_LIMIT_MS = 10 * 60 * 1000;
+/** Read once per server process: the limits are settings of the running server, not of one job. */
+export const WAVE_TIME_LIMIT_MS = waveTimeLimitMs();
 
 export function wavePool(): WorkerPool<WaveJob, BatchingResult> {
-  globalForPool.trailbinWavePool ??= new WorkerPool<WaveJob, BatchingResult>({ size: 1, defaultTimeoutMs: WAVE_TIME_LIMIT_MS, workerPath: "lib/workers/wave-worker.ts" });
+  const heap = waveWorkerMaxHeapMb();
+  globalForPool.trailbinWavePool ??= new WorkerPool<WaveJob, BatchingResult>({
+    size: 1,
+    defaultTimeoutMs: WAVE_TIME_LIMIT_MS,
+    workerPath: "lib/workers/wave-worker.ts",
+    ...(heap ? { resourceLimits: { maxOldGenerationSizeMb: heap } } : {}),
+  });
   return globalForPool.trailbinWavePool;
 }

@@ -51,6 +51,12 @@ mail_sink_start() {
 # mail_sink_stop [PIDFILE] : SIGTERM, wait; forget the pid file.
 mail_sink_stop() {
   local pidfile=${1:-} pid=${MAIL_PID:-}
+  # A fault test may have stopped ours and started another (scripts/test-services.sh): the pid file
+  # then names the one running. Reap ours if it is a zombie.
+  if [[ -n $pid ]] && ! { pid_alive "$pid" && _mail_sink_pid_is_ours "$pid"; }; then
+    wait "$pid" 2>/dev/null || true
+    pid=
+  fi
   if [[ -z $pid && -n $pidfile ]]; then
     pid=$(cat "$pidfile" 2>/dev/null) || true
     # A pid read back from a file may have been reused by another program since.

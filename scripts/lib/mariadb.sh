@@ -121,6 +121,12 @@ mariadb_start() {
 # mariadb_stop : clean shutdown (InnoDB flushes on SIGTERM), then wait for the process to exit.
 mariadb_stop() {
   local pid=${MDB_PID:-}
+  # The server we started may be gone and another in its place (a fault test restarts it through
+  # scripts/test-services.sh): then the pid file names the one to stop. Reap ours if it is a zombie.
+  if [[ -n $pid ]] && ! { pid_alive "$pid" && _mariadb_pid_is_ours "$pid"; }; then
+    wait "$pid" 2>/dev/null || true
+    pid=
+  fi
   [[ -n $pid ]] || pid=$(mariadb_running_pid)
   [[ -n $pid ]] || return 0
   if pid_alive "$pid" && _mariadb_pid_is_ours "$pid"; then

@@ -8,7 +8,7 @@ import { readSheet, SheetError, MAX_COLUMNS, MAX_ROWS } from "@/lib/sheets/read"
 // Hostile bytes into the spreadsheet reader: whatever arrives, the answer is rows of strings or the
 // reader's own SheetError (its time cap and caps included), and no built-in prototype changes.
 // Every case that reaches the parse worker costs a worker start (~0.3 s here), so the counts below
-// are sized to keep this file near a minute and a half on a busy 2-core machine (measured: 355 cases,
+// are sized to keep this file near a minute and a half on a busy 2-core machine (measured: 360 cases,
 // 60-100 s); cases refused by the signature or zip checks cost nothing. Each test gets its own
 // timeout: the cases are many, and a slow parse may run into the reader's own 15 s cap.
 const TEST_TIMEOUT_MS = 240_000;

@@ -15,6 +15,8 @@ export type GroundChar = (typeof GROUND)[keyof typeof GROUND];
 
 const side = z.enum(["N", "E", "S", "W"]);
 const id = z.string().regex(/^[A-Za-z0-9_-]{1,24}$/, "Ids use letters, digits, - and _ (at most 24).");
+/** The id of a rack run, depot or drop-off. */
+export const elementId = id;
 const cell = z.number().int().min(0).max(MAX_SIDE_CELLS - 1);
 
 /** A location code pattern: literal text with {aisle}, {bay}, {level}, each optionally zero-padded as {bay:3}. */
@@ -45,7 +47,7 @@ export const rackRunSchema = z
     pattern: codePattern,
     /** Codes that differ from the pattern (imported from a spreadsheet), per bay and level. */
     customCodes: z
-      .array(z.object({ bay: z.number().int().min(1), level: z.number().int().min(1), code: z.string().regex(/^[A-Za-z0-9._\/-]{1,32}$/, "Codes use letters, digits and . _ / - (at most 32).") }))
+      .array(z.object({ bay: z.number().int().min(1).max(9999 + 2 * MAX_SIDE_CELLS), level: z.number().int().min(1).max(MAX_LEVELS), code: z.string().regex(/^[A-Za-z0-9._\/-]{1,32}$/, "Codes use letters, digits and . _ / - (at most 32).") }))
       .max(MAX_SIDE_CELLS * MAX_LEVELS),
   })
   .refine((r) => (r.orientation === "h" ? r.facing === "N" || r.facing === "S" : r.facing === "E" || r.facing === "W"), {

@@ -2,6 +2,7 @@ import "server-only";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
 import { zipUnpackedBytes } from "./zip-size";
+import { zipInflatedBytes } from "./zip-inflate";
 
 export const MAX_UPLOAD_BYTES = 5 * 1024 * 1024;
 export const MAX_UNPACKED_BYTES = 50 * 1024 * 1024;
@@ -43,6 +44,10 @@ export async function readSheet(bytes: Uint8Array): Promise<{ kind: SheetKind; r
     const unpacked = zipUnpackedBytes(bytes);
     if (unpacked === null) throw new SheetError(415, "The workbook is damaged (its zip directory cannot be read). Save it again and retry.");
     if (unpacked > MAX_UNPACKED_BYTES) throw new SheetError(413, `The workbook unpacks to ${Math.round(unpacked / 1024 / 1024)} MiB, more than the ${MAX_UNPACKED_BYTES / 1024 / 1024} MiB allowed.`);
+    // The directory's sizes are claims; this measures them (bounded) before the parser unpacks anything.
+    const inflated = await zipInflatedBytes(bytes, MAX_UNPACKED_BYTES);
+    if (!inflated.ok && inflated.reason === "too-large") throw new SheetError(413, `The workbook unpacks to more than the ${MAX_UNPACKED_BYTES / 1024 / 1024} MiB allowed.`);
+    if (!inflated.ok) throw new SheetError(415, "The workbook is damaged (its zip entries do not match their directory). Save it again and retry.");
   }
   // CSV is decoded here as UTF-8 (the parser would read it as Latin-1), without a byte-order mark.
   const text = kind === "csv" ? new TextDecoder("utf-8").decode(bytes).replace(/^\uFEFF/, "") : undefined;

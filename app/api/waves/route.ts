@@ -4,18 +4,21 @@ import { HttpError } from "@/lib/http/errors";
 import { createWave, listWaves, OrdersTakenError, unclaimedOpenOrderIds } from "@/db/waves";
 import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
+import { rowId } from "@/lib/http/body-fields";
+import { elementId } from "@/lib/editor/document";
 
 export const dynamic = "force-dynamic";
 
 const NewWave = z.object({
   name: z.string().trim().min(1, "Name the wave, e.g. “Tuesday morning”.").max(120),
-  layoutVersionId: z.number().int().positive(),
+  layoutVersionId: rowId("layout version"),
   settings: z.object({
     totesPerCart: z.number().int().min(1, "A cart carries at least one tote.").max(40),
     maxLines: z.number().int().min(1).max(500),
     maxWeightG: z.number().int().min(1000, "Allow at least 1 kg per cart.").max(1_000_000),
-    depotId: z.string().min(1),
-    dropoffId: z.string().min(1),
+    // The editor's ids of the layout version's depot and drop-off.
+    depotId: elementId,
+    dropoffId: elementId,
     method: z.enum(["first-come", "savings"]),
   }),
   cutoffBefore: z.iso.datetime({ offset: true }).optional(),

@@ -1,13 +1,14 @@
 import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
+import { rowVersion } from "@/lib/http/body-fields";
 import { countActiveAdmins, getUser, updateUser } from "@/db/users";
 import { audit } from "@/db/audit";
 import { ROLES } from "@/lib/auth/permissions";
 
 const Change = z
   .object({
-    version: z.number().int().positive(),
+    version: rowVersion(),
     role: z.enum(ROLES, { message: "Choose a role: admin, planner or picker." }).optional(),
     disabled: z.boolean().optional(),
     displayName: z.string().trim().min(1).max(120).optional(),

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
+import { rowId } from "@/lib/http/body-fields";
 import { mayWorkBatch } from "@/lib/picking/access";
 import { confirmPick } from "@/lib/picking/confirm";
 import { SHORT_REASONS } from "@/lib/picking/rules";
@@ -9,7 +10,7 @@ import { audit } from "@/db/audit";
 
 const Confirm = z.object({
   idempotencyKey: z.string().trim().min(8).max(64),
-  orderLineId: z.number().int().positive(),
+  orderLineId: rowId("order line"),
   scan: z.string().max(100).optional(),
   quantity: z.number().int().min(0).max(1_000_000),
   short: z.object({ reason: z.enum(SHORT_REASONS) }).optional(),

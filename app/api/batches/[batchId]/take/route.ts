@@ -2,10 +2,11 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
+import { rowVersion } from "@/lib/http/body-fields";
 import { getPickBatch, takeBatch } from "@/db/picking";
 import { audit } from "@/db/audit";
 
-const Take = z.object({ version: z.number().int().positive() });
+const Take = z.object({ version: rowVersion() });
 
 export const POST = route({ access: "picks.work", body: Take }, async ({ user, params, body, ip }) => {
   const id = intParam(params, "batchId", "batch");

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
+import { rowVersion } from "@/lib/http/body-fields";
 import { getDraft, saveDraft } from "@/db/floor-plans";
 import { listLayoutVersions } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
@@ -9,7 +10,7 @@ import { editorDocumentSchema } from "@/lib/editor/document";
 
 export const dynamic = "force-dynamic";
 
-const Save = z.object({ version: z.number().int().positive(), document: editorDocumentSchema });
+const Save = z.object({ version: rowVersion(), document: editorDocumentSchema });
 
 export const GET = route({ access: "floorplans.read" }, async ({ user, params }) => {
   const id = intParam(params, "id", "floor plan");

@@ -1,9 +1,10 @@
 import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { intParam } from "@/lib/http/params";
+import { rowVersion } from "@/lib/http/body-fields";
 import { startPublish } from "@/lib/layout/publish";
 
-const Publish = z.object({ version: z.number().int().positive() });
+const Publish = z.object({ version: rowVersion() });
 
 export const POST = route({ access: "floorplans.edit", body: Publish }, async ({ user, params, body, ip }) => {
   const job = await startPublish(user, intParam(params, "id", "floor plan"), body.version, ip);

@@ -1,9 +1,10 @@
 import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { intParam } from "@/lib/http/params";
+import { rowVersion } from "@/lib/http/body-fields";
 import { startPlanWave } from "@/lib/wave-planning/plan-wave";
 
-const Plan = z.object({ version: z.number().int().positive() });
+const Plan = z.object({ version: rowVersion() });
 
 export const POST = route({ access: "waves.plan", body: Plan }, async ({ user, params, body, ip }) => {
   const job = await startPlanWave(user, intParam(params, "id", "wave"), body.version, ip);

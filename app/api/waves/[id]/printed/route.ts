@@ -5,7 +5,7 @@ import { intParam } from "@/lib/http/params";
 import { getWave, recordPrinted } from "@/db/waves";
 import { audit } from "@/db/audit";
 
-const Printed = z.object({ numbers: z.array(z.number().int().positive()).min(1, "Say which batches were printed.").max(2000) });
+const Printed = z.object({ numbers: z.array(z.number().int().positive().max(10_000, "No wave has that many batches.")).min(1, "Say which batches were printed.").max(2000) });
 
 export const POST = route({ access: "waves.plan", body: Printed }, async ({ user, params, body, ip }) => {
   const wave = await getWave(user.siteId, intParam(params, "id", "wave"));

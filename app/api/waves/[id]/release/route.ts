@@ -2,10 +2,11 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
+import { rowVersion } from "@/lib/http/body-fields";
 import { getWave, releaseWave } from "@/db/waves";
 import { audit } from "@/db/audit";
 
-const Release = z.object({ version: z.number().int().positive() });
+const Release = z.object({ version: rowVersion() });
 
 export const POST = route({ access: "waves.plan", body: Release }, async ({ user, params, body, ip }) => {
   const id = intParam(params, "id", "wave");

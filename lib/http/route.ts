@@ -42,6 +42,10 @@ async function readJson(req: Request): Promise<unknown> {
   const text = await req.text();
   if (text.length > MAX_JSON_BYTES) throw new HttpError(413, `The request is larger than ${MAX_JSON_BYTES / 1024} KiB.`);
   if (text.trim() === "") return undefined;
+  // A form or text body posted from elsewhere is not what our pages send; refusing it keeps the one
+  // parser (and its limits) the only way in.
+  const type = req.headers.get("content-type") ?? "";
+  if (!/^application\/json\s*(;|$)/i.test(type)) throw new HttpError(415, "Send this request as JSON (Content-Type: application/json).");
   try {
     return JSON.parse(text);
   } catch {

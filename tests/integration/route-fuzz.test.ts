@@ -406,6 +406,11 @@ describe("hostile input to every route handler: 4xx with a readable error, never
         count();
         expectReadableRefusal(a, `${url} as ${type}`);
       }
+      // Even a body the schema would pass is refused when it does not say it is JSON.
+      const asText = await send(method, probeAt, cookie, { text: toJsonText(b.probe.body?.(f) ?? example)!, type: "text/plain" });
+      count();
+      expectReadableRefusal(asText, `${url} valid body as text/plain`);
+      expect.soft(asText.status, `${url} valid body as text/plain`).toBe(415);
       // Random bad values, one field at a time (seeded).
       const fields = Object.entries(b.fields);
       await fc.assert(

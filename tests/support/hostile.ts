@@ -67,14 +67,17 @@ export async function buildHostileScenario() {
 
   const users: { id: string; email: string; password: string; displayName: string }[] = [];
   for (const [i, displayName] of HOSTILE.entries()) {
-    const email = `${tag.toLowerCase()}-${i}@tests.example`;
+    // "zz-": the users list sorts by role and e-mail; ours go after the demo people other tests look for.
+    const email = `zz-${tag.toLowerCase()}-${i}@tests.example`;
     const password = "correct horse battery";
     const res = await post("/api/users", admin).send({ email, displayName, role: "picker", password });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     users.push({ id: res.body.user.id, email, password, displayName });
   }
 
-  const planNames = HOSTILE.map((h) => `${h} ${tag}`);
+  // The published one is named from our tag first: layout version choices list floor plans by name
+  // and preselect the first, which must stay the demo's Bramblegate for the other tests.
+  const planNames = HOSTILE.map((h, i) => (i === 0 ? `${tag} ${h}` : `${h} ${tag}`));
   const planIds: number[] = [];
   for (const name of planNames) {
     const res = await post("/api/floor-plans", admin).send({ name, widthM: 12, heightM: 7, cellMm: 1000 });

@@ -173,7 +173,8 @@ export function EditorCanvas({ state, dispatch, problemCells, focus, backgroundU
   const movingRun = drag?.kind === "move-run" ? doc.rackRuns.find((r) => r.id === drag.id) : undefined;
   const preview = previewCells(doc, drag);
   const hoverText = hover ? describeCell(doc, hover, binsByCell.get(idx(hover))) : "Point at a cell to see what it holds.";
-  const cursor = drag?.kind === "pan" ? "grabbing" : state.tool === "select" || !state.canEdit ? "default" : "crosshair";
+  // Classes, not a style attribute: the pages' CSP allows no inline styles.
+  const cursor = drag?.kind === "pan" ? "cursor-grabbing" : state.tool === "select" || !state.canEdit ? "cursor-default" : "cursor-crosshair";
   const paintFill = state.tool === "floor" ? FLOOR_COLOURS.floor : state.tool === "blocked" ? FLOOR_COLOURS.blocked : FLOOR_COLOURS.outside;
 
   return (
@@ -184,7 +185,7 @@ export function EditorCanvas({ state, dispatch, problemCells, focus, backgroundU
           width={doc.width * px + RULER_PX}
           height={doc.height * px + RULER_PX}
           viewBox={`${-RULER_PX / px} ${-RULER_PX / px} ${doc.width + RULER_PX / px} ${doc.height + RULER_PX / px}`}
-          style={{ cursor, touchAction: "none" }}
+          className={`touch-none ${cursor}`}
           role="application"
           aria-label={`Floor plan drawing, ${doc.width} by ${doc.height} cells. Use the toolbar or keys; the checks and bins lists below say the same in words.`}
           onPointerDown={onPointerDown}

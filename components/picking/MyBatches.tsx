@@ -4,6 +4,7 @@ import { useState } from "react";
 import Link from "next/link";
 import useSWR from "swr";
 import { postJson, swrFetcher } from "@/lib/client/fetch-json";
+import { ProgressBar } from "@/components/ProgressBar";
 import type { MyBatchDTO } from "@/db/picking";
 
 type Answer = { batches: MyBatchDTO[]; next: MyBatchDTO | null };
@@ -52,9 +53,7 @@ export function MyBatches({ initial }: { initial: Answer }) {
                 <p className="mt-1">
                   {b.stopCount} stops, {b.lineCount} lines: {done} of {b.lineCount} done{b.shortLines ? `, ${b.shortLines} short` : ""}
                 </p>
-                <div className="mt-2 h-3 overflow-hidden rounded-full bg-paper-sunk" role="progressbar" aria-label={`Batch ${b.number} progress`} aria-valuemin={0} aria-valuemax={b.lineCount} aria-valuenow={done}>
-                  <div className="h-full bg-trail" style={{ width: `${b.lineCount ? (100 * done) / b.lineCount : 0}%` }} />
-                </div>
+                <ProgressBar className="mt-2" label={`Batch ${b.number} progress`} value={done} max={b.lineCount} />
                 <Link className="btn-primary mt-3 w-full" href={`/pick/${b.id}`}>
                   {b.status === "picking" ? "Continue picking" : "Start picking"} batch {b.number}
                 </Link>

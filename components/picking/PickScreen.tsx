@@ -4,6 +4,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import Link from "next/link";
 import useSWR from "swr";
 import { postJson, swrFetcher } from "@/lib/client/fetch-json";
+import { ProgressBar } from "@/components/ProgressBar";
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/editor/document";
 import type { PickLineState } from "@/db/picking";
@@ -179,9 +180,7 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
           Batch {view.batch.number} · {view.batch.waveName}
         </span>
       </p>
-      <div className="mt-1 h-3 overflow-hidden rounded-full bg-paper-sunk" role="progressbar" aria-label="Stops done" aria-valuemin={0} aria-valuemax={view.stops.length} aria-valuenow={doneStops}>
-        <div className="h-full bg-trail" style={{ width: `${view.stops.length ? (100 * doneStops) / view.stops.length : 100}%` }} />
-      </div>
+      <ProgressBar className="mt-1" label="Stops done" value={doneStops} max={view.stops.length} />
     </div>
   );
 

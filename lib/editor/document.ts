@@ -1,5 +1,10 @@
 import { z } from "zod";
 
+// The editor checks rack runs with these schemas in the browser. There zod would first probe
+// `Function("")` to decide whether to compile its parsers, and the pages' CSP forbids eval: the probe
+// fails quietly but is reported as a violation. Parsing without compiling avoids it; servers keep the JIT.
+if (typeof window !== "undefined") z.config({ jitless: true });
+
 /**
  * What the floor-plan editor saves: the admin's drawing in the admin's terms (ground paint, rack runs
  * with their numbering, points). lib/editor/to-drawing.ts turns it into the routing engine's GridDrawing.

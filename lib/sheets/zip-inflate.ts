@@ -1,4 +1,5 @@
 import { inflateRaw } from "node:zlib";
+import { endOfCentralDirectory } from "./zip-size";
 
 export type Inflated = { ok: true; bytes: number } | { ok: false; reason: "damaged" | "too-large" };
 
@@ -15,14 +16,7 @@ const inflateBounded = (data: Uint8Array, maxOutputLength: number) =>
  */
 export async function zipInflatedBytes(bytes: Uint8Array, limit: number): Promise<Inflated> {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const stop = Math.max(0, bytes.length - 65_557);
-  let eocd = -1;
-  for (let i = bytes.length - 22; i >= stop; i--) {
-    if (view.getUint32(i, true) === 0x06054b50) {
-      eocd = i;
-      break;
-    }
-  }
+  const eocd = endOfCentralDirectory(view);
   if (eocd < 0) return { ok: false, reason: "damaged" };
   // The parser takes the last end-of-directory signature in the file; a second one after this makes
   // it read another directory than the one checked here.

@@ -1,18 +1,17 @@
+/** Offset of the end-of-central-directory record, which sits in the last 64 KiB + 22 bytes; -1 if none. */
+export function endOfCentralDirectory(view: DataView): number {
+  const stop = Math.max(0, view.byteLength - 65_557);
+  for (let i = view.byteLength - 22; i >= stop; i--) if (view.getUint32(i, true) === 0x06054b50) return i;
+  return -1;
+}
+
 /**
  * Sum of the uncompressed sizes in a zip's central directory, read before anything is unpacked, so a
  * small upload that would inflate to gigabytes is refused first. Null when the directory is unreadable.
  */
 export function zipUnpackedBytes(bytes: Uint8Array): number | null {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  // The end-of-central-directory record sits in the last 64 KiB + 22 bytes.
-  const stop = Math.max(0, bytes.length - 65_557);
-  let eocd = -1;
-  for (let i = bytes.length - 22; i >= stop; i--) {
-    if (view.getUint32(i, true) === 0x06054b50) {
-      eocd = i;
-      break;
-    }
-  }
+  const eocd = endOfCentralDirectory(view);
   if (eocd < 0) return null;
   const entries = view.getUint16(eocd + 10, true);
   let offset = view.getUint32(eocd + 16, true);

@@ -2,11 +2,12 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { api, APP_URL, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
+import { api, APP_URL, ORIGIN, signInAs } from "../support/app";
 import { ARTIFACTS, launchBrowser } from "../support/browser";
 import { testService } from "../support/test-services";
 import { closeDb, db } from "@/db/knex";
 import { sinkMessagesTo } from "@/db/mail-sink";
+import { pickerWithBatch } from "../support/jobs";
 
 // MariaDB stopped and started again while a picker confirms on the handheld: the picks made while it
 // is down wait on the device (the server answers 503 with words), go out by themselves once it is
@@ -62,14 +63,7 @@ async function tapPicked(page: Page, openBefore: number) {
 
 describe("MariaDB restarted while a picker confirms", () => {
   it("queues the picks made while it is down, sends them when it is back, and counts each once", async () => {
-    // A picker of our own with the next released batch nobody holds.
-    const u = await makeUser("picker");
-    const cookie = await signIn(u.email, u.password);
-    const next = (await api().get("/api/my-batches").set("Cookie", cookie)).body.next;
-    expect(next, "a released batch nobody holds").toBeTruthy();
-    const take = await api().post(`/api/batches/${next.id}/take`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version: next.version });
-    expect(take.status, JSON.stringify(take.body)).toBe(200);
-    const batchId = next.id as number;
+    const { user: u, batchId } = await pickerWithBatch();
     const { wave_id: waveId } = await db()("batches").where({ id: batchId }).first("wave_id");
     const total = Number((await db()("batch_lines").where({ batch_id: batchId, pick_status: "open" }).count({ n: "*" }).first())!.n);
     expect(total).toBeGreaterThan(4);

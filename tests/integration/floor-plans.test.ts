@@ -7,6 +7,7 @@ import { buildLayout } from "@/lib/layout/build";
 import { accessDistance } from "@/lib/routing/access";
 import { findBin } from "@/lib/routing/graph";
 import * as XLSX from "xlsx";
+import { waitForJob } from "../support/jobs";
 
 afterAll(closeDb);
 
@@ -21,16 +22,6 @@ async function saveSmall(cookie: string, id: number, version = 1) {
   const res = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version, document: smallDocument() });
   expect(res.status).toBe(200);
   return res.body.version as number;
-}
-
-async function waitForJob(cookie: string, jobId: string) {
-  for (let i = 0; i < 200; i++) {
-    const res = await api().get(`/api/jobs/${jobId}`).set("Cookie", cookie);
-    expect(res.status).toBe(200);
-    if (["done", "failed", "cancelled"].includes(res.body.job.status)) return res.body.job;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error("job did not finish");
 }
 
 describe("drafts", () => {

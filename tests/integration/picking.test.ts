@@ -4,6 +4,7 @@ import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
 import { DEMO_ACCOUNTS } from "@/lib/demo-accounts";
 import { enqueue, flushQueue, readQueue, type KeyValueStore, type QueuedConfirmation } from "@/lib/picking/queue";
+import { pickerWithBatch } from "../support/jobs";
 
 afterAll(closeDb);
 
@@ -31,17 +32,6 @@ const stateOf = async (batchId: number) => ({
   batch: await db()("batches").where({ id: batchId }).first("status"),
   confirmations: Number((await db()("pick_confirmations").where({ batch_id: batchId }).count({ n: "*" }).first())!.n),
 });
-
-/** A fresh picker who took the next released batch nobody held. */
-async function pickerWithBatch() {
-  const u = await makeUser("picker");
-  const cookie = await signIn(u.email, u.password);
-  const next = (await api().get("/api/my-batches").set("Cookie", cookie)).body.next;
-  expect(next, "a released batch nobody holds").toBeTruthy();
-  const take = await api().post(`/api/batches/${next.id}/take`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version: next.version });
-  expect(take.status, JSON.stringify(take.body)).toBe(200);
-  return { user: u, cookie, batchId: next.id as number };
-}
 
 describe("confirming picks", () => {
   it("refuses a wrong scan and records nothing; records the right scan (case and spaces ignored) once", async () => {

@@ -3,17 +3,9 @@ import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
 import { loadLayoutGraph } from "@/db/layout-versions";
 import { planPick } from "@/lib/routing/plan";
+import { waitForJob } from "../support/jobs";
 
 afterAll(closeDb);
-
-async function waitForJob(cookie: string, jobId: string) {
-  for (let i = 0; i < 600; i++) {
-    const res = await api().get(`/api/jobs/${jobId}`).set("Cookie", cookie);
-    if (["done", "failed", "cancelled"].includes(res.body.job?.status)) return res.body.job;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error("job did not finish");
-}
 
 const LIMITS = { totesPerCart: 4, maxLines: 12, maxWeightG: 60_000 };
 

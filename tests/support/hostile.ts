@@ -3,6 +3,7 @@ import * as XLSX from "xlsx";
 import { api, ORIGIN, signIn, signInAs } from "./app";
 import { run, smallDocument } from "./documents";
 import { db } from "@/db/knex";
+import { waitForJob } from "./jobs";
 
 /**
  * Text that would do something if any page treated it as markup, a template, SQL or a link: the
@@ -41,15 +42,6 @@ function xlsx(rows: (string | number)[][]): Buffer {
   const book = XLSX.utils.book_new();
   XLSX.utils.book_append_sheet(book, XLSX.utils.aoa_to_sheet(rows), "Sheet1");
   return XLSX.write(book, { type: "buffer", bookType: "xlsx" }) as Buffer;
-}
-
-async function waitForJob(cookie: string, jobId: string) {
-  for (let i = 0; i < 600; i++) {
-    const res = await api().get(`/api/jobs/${jobId}`).set("Cookie", cookie);
-    if (["done", "failed", "cancelled"].includes(res.body.job?.status)) return res.body.job;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error("job did not finish");
 }
 
 export type HostileScenario = Awaited<ReturnType<typeof buildHostileScenario>>;

@@ -1,5 +1,6 @@
 import { NextResponse, type NextRequest } from "next/server";
 import { newNonce, pageCsp } from "@/lib/security/csp";
+import { PATH_HEADER } from "@/lib/http/path-header";
 
 // The page's Content-Security-Policy with a fresh nonce, which Next reads back from the request
 // headers to put on its own scripts; that is why every page renders dynamically (app/layout.tsx).
@@ -11,6 +12,7 @@ export function proxy(request: NextRequest) {
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("Content-Security-Policy", csp);
   requestHeaders.delete("Content-Security-Policy-Report-Only");
+  requestHeaders.set(PATH_HEADER, request.nextUrl.pathname + request.nextUrl.search);
   const res = NextResponse.next({ request: { headers: requestHeaders } });
   res.headers.set("Content-Security-Policy", csp);
   return res;

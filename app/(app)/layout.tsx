@@ -1,11 +1,10 @@
-import { redirect } from "next/navigation";
 import { NavBar } from "@/components/NavBar";
-import { currentUser } from "@/lib/auth/guard";
+import { currentUser, signInFirst } from "@/lib/auth/guard";
 
 // The shell only needs to know who is signed in; each page checks its own permission.
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await currentUser();
-  if (!user) redirect("/sign-in");
+  if (!user) return signInFirst();
   return (
     <>
       <NavBar user={user} />

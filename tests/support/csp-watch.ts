@@ -40,5 +40,11 @@ export function clearProblems(problems: PageProblems) {
 
 /** True once React has hydrated the page: it keeps its fiber on every DOM node it took over. */
 export async function isHydrated(page: Page, selector = "main"): Promise<boolean> {
-  return page.locator(selector).first().evaluate((el) => Object.keys(el).some((k) => k.startsWith("__reactFiber$")));
+  // Hydration of a long page (a wave's pick lists) can finish after the network went idle: wait for it.
+  return page
+    .waitForFunction((sel) => {
+      const el = document.querySelector(sel);
+      return !!el && Object.keys(el).some((k) => k.startsWith("__reactFiber$"));
+    }, selector, { timeout: 15_000 })
+    .then(() => true, () => false);
 }

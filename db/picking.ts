@@ -1,6 +1,7 @@
 import "server-only";
 import { db } from "./knex";
 import { queueShortPickSummaryIfWaveDone } from "./wave-mail";
+import { audit } from "./audit";
 
 export type PickBatchStatus = "planned" | "released" | "picking" | "done";
 
@@ -181,26 +182,31 @@ export type ConfirmOutcome =
 const isDuplicate = (e: unknown) => (e as { code?: string; errno?: number })?.code === "ER_DUP_ENTRY" || (e as { errno?: number })?.errno === 1062;
 
 /**
- * One confirmation in one transaction. The confirmation row goes in first, so a repeat of the same key
- * waits for the first to commit and then finds its stored answer; whatever the first one answered
- * (success or refusal) is what every repeat gets. The line changes only while it is still open.
+ * One confirmation in one transaction. The batch row is locked first, so every confirmation of a batch
+ * (a repeat of a key included) waits for the one before it to commit; the repeat then finds the key's
+ * stored answer, and whatever the first one answered (success or refusal) is what every repeat gets.
+ * Nothing shared between batches is locked: the line's item and quantity are read without a lock
+ * (a locking read over the join used to lock the item row, so pickers of the same SKU on different
+ * batches queued behind each other). The line changes only while it is still open, and the audit row
+ * of a pick commits with it.
  */
-export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batchStatus: PickBatchStatus) => Decision): Promise<ConfirmOutcome> {
+export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batchStatus: PickBatchStatus) => Decision, audited: { ip: string | null }): Promise<ConfirmOutcome> {
   try {
     return await db().transaction(async (trx) => {
-      await trx("pick_confirmations").insert({ idempotency_key: input.key, batch_id: input.batchId, user_id: input.userId, request_sha256: input.requestSha256, response: JSON.stringify({ status: 0, body: {} }) });
+      // Locking the batch before inserting the confirmation (whose foreign key takes a shared lock on
+      // the batch row) keeps two sends on one batch from both holding that shared lock and deadlocking
+      // on the upgrade.
       const batch = await trx("batches").where({ id: input.batchId }).forUpdate().first("status");
-      const line = await trx("batch_lines as bl")
-        .join("order_lines as l", "l.id", "bl.order_line_id")
-        .join("items as i", "i.id", "l.item_id")
-        .where({ "bl.batch_id": input.batchId, "bl.order_line_id": input.orderLineId })
-        .forUpdate()
-        .first("bl.order_line_id", "bl.bin_code", "bl.pick_status", "i.sku", "l.quantity");
+      if (!batch) throw new Error(`batch ${input.batchId} vanished while confirming`);
+      await trx("pick_confirmations").insert({ idempotency_key: input.key, batch_id: input.batchId, user_id: input.userId, request_sha256: input.requestSha256, response: JSON.stringify({ status: 0, body: {} }) });
+      const row = await trx("batch_lines").where({ batch_id: input.batchId, order_line_id: input.orderLineId }).forUpdate().first("order_line_id", "bin_code", "pick_status");
+      const item = row ? await trx("order_lines as l").join("items as i", "i.id", "l.item_id").where("l.id", input.orderLineId).first("i.sku", "l.quantity") : null;
       const d = decide(
-        line ? { orderLineId: Number(line.order_line_id), binCode: String(line.bin_code), sku: String(line.sku), quantity: Number(line.quantity), pickStatus: line.pick_status } : null,
+        row && item ? { orderLineId: Number(row.order_line_id), binCode: String(row.bin_code), sku: String(item.sku), quantity: Number(item.quantity), pickStatus: row.pick_status } : null,
         batch.status,
       );
       let answer: StoredAnswer = d.answer;
+      const event = d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null;
       if (d.apply) {
         await trx("batch_lines")
           .where({ batch_id: input.batchId, order_line_id: input.orderLineId, pick_status: "open" })
@@ -213,9 +219,10 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
           await queueShortPickSummaryIfWaveDone(trx, input.batchId);
         }
         answer = { status: 200, body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: Number(open?.n ?? 0) } } };
+        await audit({ event: event!, actorUserId: input.userId, subject: `batch:${input.batchId}`, ip: audited.ip, detail: { orderLineId: input.orderLineId, quantity: input.quantity, reason: input.short?.reason } }, trx);
       }
       await trx("pick_confirmations").where({ idempotency_key: input.key }).update({ response: JSON.stringify(answer) });
-      return { kind: "fresh" as const, answer, event: d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null };
+      return { kind: "fresh" as const, answer, event };
     });
   } catch (e) {
     if (!isDuplicate(e)) throw e;

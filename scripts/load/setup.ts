@@ -79,6 +79,9 @@ async function inBatches<T, R>(items: T[], width: number, fn: (t: T) => Promise<
 
 export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandheld: number; planOrders: number; log: (s: string) => void }): Promise<LoadSetup> {
   const { log } = opts;
+  // Names of this run's people and orders carry a tag, so a second run against the same database
+  // (while profiling, say) does not collide with the first.
+  const tag = Date.now().toString(36).slice(-5).toUpperCase();
   const admin = await signIn(a.origin, "admin@bramblegate.example", account("admin@bramblegate.example").password);
   const planner = await signIn(a.origin, "planner@bramblegate.example", account("planner@bramblegate.example").password);
 
@@ -97,7 +100,7 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
     Array.from({ length: opts.handhelds }, (_, i) => i),
     4,
     async (i) => {
-      const email = `handheld-${String(i + 1).padStart(2, "0")}@load.example`;
+      const email = `handheld-${String(i + 1).padStart(2, "0")}-${tag.toLowerCase()}@load.example`;
       const { body } = await a.call<{ user: { id: string } }>("POST", "/api/users", { cookie: admin, json: { email, displayName: `Handheld ${i + 1}`, role: "picker", password }, expect: [201] });
       return { index: i, email, userId: body.user.id, cookie: await signIn(a.origin, email, password), batches: [] as HandheldAccount["batches"] };
     },
@@ -106,7 +109,7 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
   // Orders of 5 lines fill a 6-tote, 30-line cart. A handheld's last batch overshoots its need by up to
   // a cart's lines; 5 % spare for carts the batching leaves less than full.
   const pickOrders = Math.ceil((opts.handhelds * (opts.linesPerHandheld + LIMITS.maxLines) * 1.05) / 5);
-  const pickSheet = orderSheet("LOAD-H", PICK_DAY, pickOrders, [5, 5], skus, 7);
+  const pickSheet = orderSheet(`LOAD-${tag}-H`, PICK_DAY, pickOrders, [5, 5], skus, 7);
   log(`importing ${pickOrders} orders (${pickSheet.lines} lines) for the handhelds; planning and releasing their wave`);
   await importOrders(a, planner, layoutVersionId, "load-handheld-orders.csv", pickSheet.csv);
   const pickWave = await createWave(a, planner, "Load run: handheld orders", layoutVersionId, ends, "first-come", PICK_DAY);
@@ -148,7 +151,7 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
     },
   );
 
-  const planSheet = orderSheet("LOAD-W", PLAN_DAY, opts.planOrders, [1, 5], skus, 11);
+  const planSheet = orderSheet(`LOAD-${tag}-W`, PLAN_DAY, opts.planOrders, [1, 5], skus, 11);
   log(`importing the ${opts.planOrders.toLocaleString("en")} orders (${planSheet.lines} lines) of the wave to plan during the load`);
   await importOrders(a, planner, layoutVersionId, "load-wave-orders.csv", planSheet.csv);
   const planWave = await createWave(a, planner, `Load run: ${opts.planOrders} orders`, layoutVersionId, ends, "savings", PLAN_DAY);

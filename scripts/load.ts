@@ -11,10 +11,11 @@ import { mulberry32 } from "../lib/routing/random";
 import { api } from "./load/api";
 import { drain, runPhase } from "./load/cannon";
 import { checkLedger } from "./load/check";
+import { cpuSample, perRequest } from "./load/cpu";
 import { DEFAULT_MIX, Handheld, type Ledger } from "./load/handheld";
 import { planDuringLoad, type PlanOutcome } from "./load/planner";
 import { setUpLoad } from "./load/setup";
-import { percentile, phaseRows, summarise, TABLE_HEAD, type PhaseStats } from "./load/stats";
+import { percentile, phaseRows, summarise, TABLE_HEAD, windowRow, type PhaseStats } from "./load/stats";
 
 const HANDHELDS = 50;
 const PLAN_ORDERS = 1000;
@@ -66,19 +67,23 @@ async function main() {
 
   const loadAtStart = loads();
   log(`paced run: ${HANDHELDS} handhelds at ${rate} requests/s each for ${seconds} s, the planner planning ${PLAN_ORDERS} orders at the same time (load average ${loadAtStart})`);
+  const pids = [Number(process.env.NEXT_PID) || undefined, Number(process.env.MDB_PID) || undefined] as const;
+  const cpuAtStart = cpuSample(...pids);
   const planning = planDuringLoad(a, setup.plannerCookie, setup.planWave, { pollEveryMs: 1000, giveUpAfterMs: 10 * 60_000 });
   const paced = await runPhase(origin, handhelds, { seconds, ratePerHandheld: rate });
   const loadAtEnd = loads();
+  const cpuPaced = perRequest(cpuAtStart, cpuSample(...pids), requestsOf(paced.stats));
   const pacedDrain = await drain(origin, handhelds);
   log(`paced run done; ${pacedDrain.sent} confirmations in flight at the end sent again; waiting for the plan`);
   const plan = await planning;
   log(`plan ${plan.status} after ${plan.seconds.toFixed(1)} s: ${plan.message}`);
 
-  let saturation: { stats: PhaseStats; loadAtEnd: string } | null = null;
+  let saturation: { stats: PhaseStats; loadAtEnd: string; cpu: ReturnType<typeof perRequest> } | null = null;
   if (saturationSeconds > 0) {
     log(`unpaced run: ${HANDHELDS} handhelds as fast as the server answers for ${saturationSeconds} s`);
+    const before = cpuSample(...pids);
     const r = await runPhase(origin, handhelds, { seconds: saturationSeconds });
-    saturation = { stats: r.stats, loadAtEnd: loads() };
+    saturation = { stats: r.stats, loadAtEnd: loads(), cpu: perRequest(before, cpuSample(...pids), requestsOf(r.stats)) };
     const d = await drain(origin, handhelds);
     pacedDrain.bad.push(...d.bad);
     pacedDrain.sent += d.sent;
@@ -114,18 +119,20 @@ async function main() {
     "",
   );
   out.push(...TABLE_HEAD, ...phaseRows(paced.stats));
+  out.push(windowRow("all confirmations while the plan ran", paced.stats, plan.startedAt, Math.min(plan.finishedAt, paced.stats.endedAt)));
+  out.push(windowRow("all confirmations after the plan finished", paced.stats, plan.finishedAt, paced.stats.endedAt));
   out.push(`| planner: POST plan | 1 | | ${plan.startMs.toFixed(0)} ms | | | | | | |`);
   if (plan.pollMs.length) {
     const s = [...plan.pollMs].sort((x, y) => x - y);
     out.push(`| planner: GET job (every 1 s) | ${s.length} | | ${percentile(s, 50).toFixed(1)} ms | ${percentile(s, 95).toFixed(1)} ms | ${percentile(s, 99).toFixed(1)} ms | ${s.at(-1)!.toFixed(1)} ms | ${s.length} | 0 | 0 |`);
   }
   out.push("");
-  out.push(`Timeouts ${paced.stats.timeouts}, socket errors ${paced.stats.socketErrors}. Wave plan of ${PLAN_ORDERS.toLocaleString("en")} orders: **${plan.status}** in ${plan.seconds.toFixed(1)} s (${plan.message}).`, "");
+  out.push(`Timeouts ${paced.stats.timeouts}, socket errors ${paced.stats.socketErrors}. CPU per handheld request: web server main thread ${cpuPaced.nextMain}, MariaDB ${cpuPaced.mariadb} (the planner's worker threads not counted). Wave plan of ${PLAN_ORDERS.toLocaleString("en")} orders: **${plan.status}** in ${plan.seconds.toFixed(1)} s (${plan.message}).`, "");
   if (saturation) {
     out.push(`### Unpaced: as fast as the server answers, ${saturation.stats.seconds} s, after the plan`, "");
     out.push("Each handheld sends its next request as soon as the last is answered: the most this machine confirms.", "");
     out.push(...TABLE_HEAD, ...phaseRows(saturation.stats), "");
-    out.push(`Timeouts ${saturation.stats.timeouts}, socket errors ${saturation.stats.socketErrors}; ${dry} of ${HANDHELDS} handhelds ran out of lines by the end.`, "");
+    out.push(`Timeouts ${saturation.stats.timeouts}, socket errors ${saturation.stats.socketErrors}. CPU per request: web server main thread ${saturation.cpu.nextMain}, MariaDB ${saturation.cpu.mariadb}. ${dry} of ${HANDHELDS} handhelds ran out of lines by the end.`, "");
   }
   out.push("### The check in the database", "");
   out.push(
@@ -145,6 +152,9 @@ async function main() {
     process.exitCode = 1;
   }
 }
+
+/** Every handheld request a phase got an answer to. */
+const requestsOf = (p: PhaseStats) => [...p.kinds.values()].reduce((n, k) => n + k.latencies.length, 0);
 
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 

@@ -60,6 +60,7 @@ export async function runPhase(origin: string, handhelds: Handheld[], opts: { se
   });
   const result = await done;
   stats.seconds = result.duration;
+  stats.endedAt = performance.now();
   return { stats, result };
 }
 

@@ -2,7 +2,7 @@
 // browser does (polling GET /api/jobs/[id]), timing the whole plan and each request.
 import type { Api } from "./api";
 
-export type PlanOutcome = { status: string; message: string; seconds: number; batches: number | null; startMs: number; pollMs: number[] };
+export type PlanOutcome = { status: string; message: string; seconds: number; batches: number | null; startMs: number; pollMs: number[]; startedAt: number; finishedAt: number };
 
 export async function planDuringLoad(a: Api, cookie: string, wave: { id: number; version: number }, opts: { pollEveryMs: number; giveUpAfterMs: number }): Promise<PlanOutcome> {
   const t0 = performance.now();
@@ -15,8 +15,8 @@ export async function planDuringLoad(a: Api, cookie: string, wave: { id: number;
     const { job } = body;
     const seconds = (performance.now() - t0) / 1000;
     if (job.status === "done" || job.status === "failed" || job.status === "cancelled") {
-      return { status: job.status, message: job.message, seconds, batches: job.result?.batches ?? null, startMs: started.ms, pollMs };
+      return { status: job.status, message: job.message, seconds, batches: job.result?.batches ?? null, startMs: started.ms, pollMs, startedAt: t0, finishedAt: performance.now() };
     }
-    if (performance.now() - t0 > opts.giveUpAfterMs) return { status: "unfinished", message: job.message, seconds, batches: null, startMs: started.ms, pollMs };
+    if (performance.now() - t0 > opts.giveUpAfterMs) return { status: "unfinished", message: job.message, seconds, batches: null, startMs: started.ms, pollMs, startedAt: t0, finishedAt: performance.now() };
   }
 }

@@ -1,6 +1,8 @@
 // Counts and latencies per request kind, and the tables the load run prints and writes.
 import { EXPECTED, KINDS, type Kind, type Verdict } from "./handheld";
 
+const CONFIRMATION_KINDS: readonly Kind[] = ["confirm", "repeat", "wrong scan", "double tap"];
+
 export type KindStats = { latencies: number[]; statuses: Map<number, number>; ok: number; bad: number };
 
 export class PhaseStats {
@@ -9,8 +11,12 @@ export class PhaseStats {
   timeouts = 0;
   socketErrors = 0;
   seconds = 0;
+  endedAt = Infinity;
+  /** When each confirmation was answered (performance.now()) and how long it took. */
+  readonly confirmationTimes: { at: number; ms: number }[] = [];
 
   record(kind: Kind, status: number, ms: number, verdict: Verdict) {
+    if (CONFIRMATION_KINDS.includes(kind)) this.confirmationTimes.push({ at: performance.now(), ms });
     const k = this.kinds.get(kind)!;
     k.latencies.push(ms);
     k.statuses.set(status, (k.statuses.get(status) ?? 0) + 1);
@@ -24,7 +30,7 @@ export class PhaseStats {
   /** Every POST to /api/batches/[id]/confirm together: the figure the p95 target is about. */
   confirmations(): KindStats {
     const all: KindStats = { latencies: [], statuses: new Map(), ok: 0, bad: 0 };
-    for (const kind of ["confirm", "repeat", "wrong scan", "double tap"] as const) {
+    for (const kind of CONFIRMATION_KINDS) {
       const k = this.kinds.get(kind)!;
       all.latencies.push(...k.latencies);
       for (const [s, n] of k.statuses) all.statuses.set(s, (all.statuses.get(s) ?? 0) + n);
@@ -87,4 +93,12 @@ export function phaseRows(p: PhaseStats): string[] {
     if (k.latencies.length) rows.push(tableRow(LABELS[kind], summarise(k, p.seconds, EXPECTED[kind] >= 400)));
   }
   return rows;
+}
+
+/** p50/p95/max of the confirmations answered between two moments (performance.now()). */
+export function windowRow(label: string, p: PhaseStats, from: number, to: number): string {
+  const inside = p.confirmationTimes.filter((c) => c.at >= from && c.at < to).map((c) => c.ms);
+  const k: KindStats = { latencies: inside, statuses: new Map(), ok: 0, bad: 0 };
+  const s = summarise(k, Math.max(0.001, (Math.min(to, p.endedAt) - from) / 1000), true);
+  return `| ${label} | ${int(s.count)} | ${s.perSecond.toFixed(1)} | ${ms(s.p50)} | ${ms(s.p95)} | ${ms(s.p99)} | ${ms(s.max)} | | | |`;
 }

@@ -9,7 +9,8 @@
 #
 # Settings (environment):
 #   LOAD_SECONDS           length of the paced run (default 60)
-#   LOAD_RATE              confirmations per second per handheld in the paced run (default 2)
+#   LOAD_RATE              requests per second per handheld in the paced run (default 1, ten times a
+#                          fast picker's pace)
 #   LOAD_SATURATION_SECONDS  length of the unpaced run after it (default 10; 0 skips it)
 #   LOAD_PORT, LOAD_DB_PORT, LOAD_MAIL_SINK_PORT  (defaults 3010, 33070, 2530)
 # Arguments go to scripts/load.ts: --write puts the results into docs/benchmarks.md.

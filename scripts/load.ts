@@ -46,7 +46,7 @@ async function main() {
   const origin = process.env.APP_URL;
   if (!origin) throw new Error("APP_URL is not set: run this through npm run load");
   const seconds = envNumber("LOAD_SECONDS", 60);
-  const rate = envNumber("LOAD_RATE", 2);
+  const rate = envNumber("LOAD_RATE", 1);
   const saturationSeconds = envNumber("LOAD_SATURATION_SECONDS", 10);
   const write = process.argv.includes("--write");
   if (seconds < 1 || rate <= 0) throw new Error("LOAD_SECONDS must be at least 1 and LOAD_RATE above 0");
@@ -115,7 +115,7 @@ async function main() {
   );
   out.push(`### Paced: ${rate} requests/s per handheld for ${paced.stats.seconds} s, with the wave plan running`, "");
   out.push(
-    `A person confirms a line every 10–30 s; ${rate} per second per handheld is ${Math.round(rate * 10)}–${Math.round(rate * 30)} times that pace, ${(rate * HANDHELDS).toFixed(0)} requests/s offered in all.`,
+    `A person confirms a line every 10–30 s; ${rate} per second per handheld is ${Math.round(rate * 10)}–${Math.round(rate * 30)} times that pace, ${(rate * HANDHELDS).toFixed(0)} requests/s offered in all. Each handheld sends at most one request per ${Math.round(1000 / rate)} ms window and waits for its answer, as a handheld does; the handhelds' windows are spread evenly, not in lockstep.`,
     "",
   );
   out.push(...TABLE_HEAD, ...phaseRows(paced.stats));

@@ -7,6 +7,31 @@ import { PhaseStats } from "./stats";
 
 type Context = { shot?: Shot; handheld?: Handheld };
 
+// The parts of autocannon's client (lib/httpClient.js of the pinned 9.0.0) that its rate limit uses.
+type PacedClient = { opts: { path?: string }; rateInterval?: ReturnType<typeof setInterval>; reqsMadeThisSecond: number; paused?: boolean; destroyed?: boolean; _doRequest(): void };
+
+/**
+ * autocannon paces a connection by allowing `connectionRate` requests per 1 s window, and every
+ * connection's window timer starts in the same instant: left so, all 50 handhelds would send in
+ * lockstep, 50 requests at once every second, which no floor of pickers does. Each handheld here gets
+ * windows of 1/rate s (one request each) starting at its own phase, spread evenly over a window.
+ */
+function spreadPacing(client: autocannon.Client, ratePerHandheld: number, count: number) {
+  const c = client as unknown as PacedClient;
+  const i = Number(/^\/handheld\/(\d+)/.exec(c.opts.path ?? "")?.[1] ?? 0);
+  const period = 1000 / ratePerHandheld;
+  // autocannon starts its own 1 s timer right after this hook returns: stop it at once.
+  setImmediate(() => c.rateInterval && clearInterval(c.rateInterval));
+  setTimeout(() => {
+    if (c.destroyed) return;
+    c.rateInterval = setInterval(() => {
+      c.reqsMadeThisSecond = 0;
+      if (c.paused) c._doRequest();
+      c.paused = false;
+    }, period);
+  }, (i / count) * period);
+}
+
 export async function runPhase(origin: string, handhelds: Handheld[], opts: { seconds: number; ratePerHandheld?: number }): Promise<{ stats: PhaseStats; result: autocannon.Result }> {
   const stats = new PhaseStats();
   let answered: { shot: Shot; status: number; verdict: ReturnType<Handheld["answered"]> } | null = null;
@@ -22,7 +47,8 @@ export async function runPhase(origin: string, handhelds: Handheld[], opts: { se
     url: urls as unknown as string,
     connections: handhelds.length,
     duration: opts.seconds,
-    ...(opts.ratePerHandheld ? { connectionRate: opts.ratePerHandheld } : {}),
+    // One request per pacing window; the windows are set up per handheld in setupClient.
+    ...(opts.ratePerHandheld ? { connectionRate: 1, setupClient: (client: autocannon.Client) => spreadPacing(client, opts.ratePerHandheld!, handhelds.length) } : {}),
     timeout: 10,
     requests: [
       {

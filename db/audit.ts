@@ -1,4 +1,5 @@
 import "server-only";
+import type { Knex } from "knex";
 import { db } from "./knex";
 
 export type AuditEvent =
@@ -31,8 +32,9 @@ export type AuditEvent =
 
 export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
 
-export async function audit(entry: AuditEntry): Promise<void> {
-  await db()("audit_log").insert({
+/** Writes one audit row; inside `trx` when given, so that it commits (or not) with the change it records. */
+export async function audit(entry: AuditEntry, trx?: Knex.Transaction): Promise<void> {
+  await (trx ?? db())("audit_log").insert({
     event: entry.event,
     actor_user_id: entry.actorUserId ?? null,
     subject: entry.subject?.slice(0, 254) ?? null,

@@ -1,6 +1,7 @@
 import "server-only";
 import { db } from "./knex";
 import { queueShortPickSummaryIfWaveDone } from "./wave-mail";
+import { audit } from "./audit";
 
 export type PickBatchStatus = "planned" | "released" | "picking" | "done";
 
@@ -181,41 +182,60 @@ export type ConfirmOutcome =
 const isDuplicate = (e: unknown) => (e as { code?: string; errno?: number })?.code === "ER_DUP_ENTRY" || (e as { errno?: number })?.errno === 1062;
 
 /**
- * One confirmation in one transaction. The confirmation row goes in first, so a repeat of the same key
- * waits for the first to commit and then finds its stored answer; whatever the first one answered
- * (success or refusal) is what every repeat gets. The line changes only while it is still open.
+ * One confirmation in one transaction, in few round trips (each costs more than the SQL behind it).
+ * The batch row is locked first, so every confirmation of a batch (a repeat of a key included) waits
+ * for the one before it to commit. The key goes in last, with the answer: a repeat does the same
+ * checks, finds its key taken, rolls back and gets the stored answer, so whatever the first send
+ * answered (success or refusal) is what every repeat gets. Nothing shared between batches is locked
+ * (a locking read over the line, order line and item used to lock the item row, so pickers of one SKU
+ * on different batches queued behind each other). The line changes only while it is still open, and
+ * the audit row of a pick commits with it.
  */
-export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batchStatus: PickBatchStatus) => Decision): Promise<ConfirmOutcome> {
+export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batchStatus: PickBatchStatus) => Decision, audited: { ip: string | null }): Promise<ConfirmOutcome> {
   try {
     return await db().transaction(async (trx) => {
-      await trx("pick_confirmations").insert({ idempotency_key: input.key, batch_id: input.batchId, user_id: input.userId, request_sha256: input.requestSha256, response: JSON.stringify({ status: 0, body: {} }) });
-      const batch = await trx("batches").where({ id: input.batchId }).forUpdate().first("status");
-      const line = await trx("batch_lines as bl")
-        .join("order_lines as l", "l.id", "bl.order_line_id")
-        .join("items as i", "i.id", "l.item_id")
-        .where({ "bl.batch_id": input.batchId, "bl.order_line_id": input.orderLineId })
+      // Locks the batch row and the line's row only: the subqueries are plain reads (InnoDB locks
+      // no rows for them), evaluated after the locks are held, so they see every earlier commit.
+      const row = await trx("batches as b")
+        .leftJoin("batch_lines as bl", (j) => j.on("bl.batch_id", "b.id").andOn("bl.order_line_id", trx.raw("?", [input.orderLineId])))
+        .where("b.id", input.batchId)
         .forUpdate()
-        .first("bl.order_line_id", "bl.bin_code", "bl.pick_status", "i.sku", "l.quantity");
+        .first(
+          "b.status",
+          "bl.order_line_id",
+          "bl.bin_code",
+          "bl.pick_status",
+          trx.raw("(select i.sku from order_lines l join items i on i.id = l.item_id where l.id = bl.order_line_id) as sku"),
+          trx.raw("(select l.quantity from order_lines l where l.id = bl.order_line_id) as quantity"),
+          trx.raw("(select count(*) from batch_lines o where o.batch_id = b.id and o.pick_status = 'open') as open_lines"),
+        );
+      if (!row) throw new Error(`batch ${input.batchId} vanished while confirming`);
+      const status = row.status as PickBatchStatus;
       const d = decide(
-        line ? { orderLineId: Number(line.order_line_id), binCode: String(line.bin_code), sku: String(line.sku), quantity: Number(line.quantity), pickStatus: line.pick_status } : null,
-        batch.status,
+        row.order_line_id === null ? null : { orderLineId: Number(row.order_line_id), binCode: String(row.bin_code), sku: String(row.sku), quantity: Number(row.quantity), pickStatus: row.pick_status },
+        status,
       );
       let answer: StoredAnswer = d.answer;
+      const event = d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null;
       if (d.apply) {
-        await trx("batch_lines")
+        const changed = await trx("batch_lines")
           .where({ batch_id: input.batchId, order_line_id: input.orderLineId, pick_status: "open" })
           .update({ pick_status: d.apply.status, picked_qty: d.apply.pickedQty, short_reason: d.apply.shortReason, confirmed_at: trx.fn.now(3), confirmed_by: input.userId });
-        if (batch.status === "released") await trx("batches").where({ id: input.batchId }).update({ status: "picking", started_at: trx.fn.now(3) });
-        const open = await trx("batch_lines").where({ batch_id: input.batchId, pick_status: "open" }).count({ n: "*" }).first();
-        const done = Number(open?.n ?? 0) === 0;
+        // Never answer success for a change that did not happen.
+        if (Number(changed) !== 1) throw new Error(`line ${input.orderLineId} of batch ${input.batchId} was no longer open`);
+        const open = Number(row.open_lines) - 1;
+        const done = open === 0;
         if (done) {
-          await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3) });
+          await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3), ...(status === "released" ? { started_at: trx.fn.now(3) } : {}) });
           await queueShortPickSummaryIfWaveDone(trx, input.batchId);
+        } else if (status === "released") {
+          await trx("batches").where({ id: input.batchId }).update({ status: "picking", started_at: trx.fn.now(3) });
         }
-        answer = { status: 200, body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: Number(open?.n ?? 0) } } };
+        answer = { status: 200, body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: open } } };
+        await audit({ event: event!, actorUserId: input.userId, subject: `batch:${input.batchId}`, ip: audited.ip, detail: { orderLineId: input.orderLineId, quantity: input.quantity, reason: input.short?.reason } }, trx);
       }
-      await trx("pick_confirmations").where({ idempotency_key: input.key }).update({ response: JSON.stringify(answer) });
-      return { kind: "fresh" as const, answer, event: d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null };
+      await trx("pick_confirmations").insert({ idempotency_key: input.key, batch_id: input.batchId, user_id: input.userId, request_sha256: input.requestSha256, response: JSON.stringify(answer) });
+      return { kind: "fresh" as const, answer, event };
     });
   } catch (e) {
     if (!isDuplicate(e)) throw e;

@@ -248,9 +248,11 @@ export type BatchSummaryDTO = {
   shortLines: number;
 };
 
-export async function listBatches(waveId: number): Promise<BatchSummaryDTO[]> {
+/** The wave's batches with their counts; only batch `number` when given (a handheld opening one batch). */
+export async function listBatches(waveId: number, number?: number): Promise<BatchSummaryDTO[]> {
   const rows = await db()("batches as b")
     .where("b.wave_id", waveId)
+    .modify((q) => (number === undefined ? q : q.where("b.number", number)))
     .select(
       "b.*",
       db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"),
@@ -304,7 +306,8 @@ export type BatchDetailDTO = BatchSummaryDTO & {
 };
 
 export async function getBatch(waveId: number, number: number): Promise<BatchDetailDTO | null> {
-  const summary = (await listBatches(waveId)).find((b) => b.number === number);
+  // Counting every batch of a wave to show one made each pick view cost as much as the wave is big.
+  const [summary] = await listBatches(waveId, number);
   if (!summary) return null;
   const [stops, lines] = await Promise.all([
     db()("batch_stops").where({ batch_id: summary.id }).orderBy("seq"),

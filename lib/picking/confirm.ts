@@ -11,7 +11,8 @@ export function requestSha256(batchId: number, b: ConfirmBody): string {
   return createHash("sha256").update(canonical).digest("hex");
 }
 
-export async function confirmPick(batchId: number, userId: string, b: ConfirmBody): Promise<ConfirmOutcome> {
+/** Confirms one line; a pick that is stored is audited in the same transaction, with the sender's address. */
+export async function confirmPick(batchId: number, userId: string, b: ConfirmBody, ip: string | null): Promise<ConfirmOutcome> {
   return confirmLine(
     { batchId, userId, key: b.idempotencyKey, requestSha256: requestSha256(batchId, b), orderLineId: b.orderLineId, scan: b.scan, quantity: b.quantity, short: b.short },
     (line, batchStatus) => {
@@ -19,5 +20,6 @@ export async function confirmPick(batchId: number, userId: string, b: ConfirmBod
       const body: Record<string, unknown> = v.error ? { error: v.error } : { line: { orderLineId: b.orderLineId, pickStatus: v.apply!.status, pickedQty: v.apply!.pickedQty, shortReason: v.apply!.shortReason } };
       return { answer: { status: v.status, body }, apply: v.apply };
     },
+    { ip },
   );
 }

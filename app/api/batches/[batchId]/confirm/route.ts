@@ -6,7 +6,6 @@ import { rowId } from "@/lib/http/body-fields";
 import { mayWorkBatch } from "@/lib/picking/access";
 import { confirmPick } from "@/lib/picking/confirm";
 import { SHORT_REASONS } from "@/lib/picking/rules";
-import { audit } from "@/db/audit";
 
 const Confirm = z.object({
   idempotencyKey: z.string().trim().min(8).max(64),
@@ -20,11 +19,8 @@ export const POST = route({ access: "picks.work", body: Confirm }, async ({ user
   const id = intParam(params, "batchId", "batch");
   const access = await mayWorkBatch(user, id, ip, `POST ${new URL(req.url).pathname}`);
   if (!access.ok) throw new HttpError(access.status, access.message);
-  const outcome = await confirmPick(id, user.id, body);
+  const outcome = await confirmPick(id, user.id, body, ip);
   if (outcome.kind === "mismatch") throw new HttpError(409, "This confirmation key was already used for a different pick. Confirm again.");
-  if (outcome.kind === "fresh" && outcome.event) {
-    await audit({ event: outcome.event, actorUserId: user.id, subject: `batch:${id}`, ip, detail: { orderLineId: body.orderLineId, quantity: body.quantity, reason: body.short?.reason } });
-  }
   // A repeat gets the stored answer unchanged; only a header says it is one.
   return Response.json(outcome.answer.body, { status: outcome.answer.status, headers: outcome.kind === "replay" ? { "idempotent-replayed": "true" } : {} });
 });

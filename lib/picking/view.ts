@@ -3,6 +3,7 @@ import { getBatch } from "@/db/waves";
 import { pickLines, type PickBatchRow, type PickLineState } from "@/db/picking";
 import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
 import { layoutGraph } from "@/lib/layout/graph-cache";
+import { immutableCache } from "@/lib/layout/immutable-cache";
 import { documentBins } from "@/lib/editor/bin-codes";
 import type { EditorDocument } from "@/lib/editor/document";
 import { batchLegs } from "./legs";
@@ -33,17 +34,28 @@ const placeName = (doc: EditorDocument, id: string) => {
   return p ? `${p.id} ${p.name}` : id;
 };
 
+type VersionFacts = { document: EditorDocument | null; highLevels: Set<string> };
+
+// Reading and walking a layout's document costs the web server's thread more than the rest of a
+// pick view; a published version never changes, so it is done once per version, not per request.
+const versionFacts = immutableCache<string, VersionFacts>(8, async (key) => {
+  const [siteId, layoutVersionId] = key.split(":").map(Number) as [number, number];
+  const v = await getLayoutVersionById(siteId, layoutVersionId);
+  const version = v ? await getLayoutVersion(siteId, v.floorPlanId, v.number) : null;
+  const document = version?.document ?? null;
+  return { document, highLevels: new Set(document ? documentBins(document).filter((x) => x.level >= HIGH_LEVEL).map((x) => x.code) : []) };
+});
+
 /** Everything the handheld shows of a batch; the document comes along for the page's map. */
 export async function pickView(siteId: number, b: PickBatchRow): Promise<{ view: PickViewDTO; document: EditorDocument | null }> {
-  const v = await getLayoutVersionById(siteId, b.layoutVersionId);
-  const [detail, lines, version, loaded] = await Promise.all([getBatch(b.waveId, b.number), pickLines(b.id), v ? getLayoutVersion(siteId, v.floorPlanId, v.number) : null, layoutGraph(b.layoutVersionId)]);
+  const [detail, lines, facts, loaded] = await Promise.all([getBatch(b.waveId, b.number), pickLines(b.id), versionFacts(`${siteId}:${b.layoutVersionId}`), layoutGraph(b.layoutVersionId)]);
   const stops = detail?.stops ?? [];
   const legs = batchLegs(loaded.graph, loaded.matrix, b.depotId, b.dropoffId, stops.map((s) => s.accessPoint));
-  const highLevels = new Set(version ? documentBins(version.document).filter((x) => x.level >= HIGH_LEVEL).map((x) => x.code) : []);
+  const { document, highLevels } = facts;
   const view: PickViewDTO = {
     batch: { id: b.id, waveName: b.waveName, number: b.number, status: b.status, assignedName: b.assignedName },
-    depot: version ? placeName(version.document, b.depotId) : b.depotId,
-    dropoff: version ? placeName(version.document, b.dropoffId) : b.dropoffId,
+    depot: document ? placeName(document, b.depotId) : b.depotId,
+    dropoff: document ? placeName(document, b.dropoffId) : b.dropoffId,
     stops: stops.map((s, i) => {
       const here = lines.filter((l) => l.stopSeq === s.seq);
       return {
@@ -59,5 +71,5 @@ export async function pickView(siteId: number, b: PickBatchRow): Promise<{ view:
     }),
     finalLeg: legs[stops.length] ?? { cells: [], mm: 0 },
   };
-  return { view, document: version?.document ?? null };
+  return { view, document };
 }

@@ -21,10 +21,7 @@ main() {
   node --import tsx scripts/bench-waves.ts
   echo
   trap 'mariadb_stop' EXIT INT TERM
-  mariadb_configure "$BENCH_DIR" "${BENCH_DB_PORT:-33063}"
-  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$MDB_PORT" "the benchmark MariaDB" "run with BENCH_DB_PORT=<another port>"; fi
-  mariadb_init
-  mariadb_start
+  mariadb_up "$BENCH_DIR" "${BENCH_DB_PORT:-33063}" "the benchmark MariaDB" "run with BENCH_DB_PORT=<another port>"
   export DB_HOST=127.0.0.1 DB_PORT=$MDB_PORT DB_NAME=trailbin_bench DB_USER=trailbin DB_PASSWORD
   DB_PASSWORD=$(random_secret)
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate

@@ -58,10 +58,7 @@ main() {
 
   next_stop_stale "$NEXT_PIDFILE"
   require_free_port "$APP_PORT" "the load-run app" "run with LOAD_PORT=<another port>"
-  mariadb_configure "$LOAD_DIR" "$DB_PORT_LOAD"
-  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$MDB_PORT" "the load-run MariaDB" "run with LOAD_DB_PORT=<another port>"; fi
-  mariadb_init
-  mariadb_start
+  mariadb_up "$LOAD_DIR" "$DB_PORT_LOAD" "the load-run MariaDB" "run with LOAD_DB_PORT=<another port>"
 
   # A fresh database every run: the check afterwards must see only this run's confirmations.
   export DB_HOST=127.0.0.1 DB_PORT=$MDB_PORT DB_NAME=trailbin_load DB_USER=trailbin DB_PASSWORD
@@ -70,12 +67,7 @@ main() {
   migrate_and_seed
   mail_sink_start "$MAIL_PORT_LOAD" "$MAIL_LOG" "$MAIL_PIDFILE"
 
-  export APP_ORIGIN=http://127.0.0.1:$APP_PORT
-  export NEXT_DIST_DIR=.next-load
-  rm -rf "$LOAD_DIR/uploads"
-  export UPLOAD_DIR=$LOAD_DIR/uploads
-  build_if_needed
-  NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
+  app_start_built "$LOAD_DIR" "$APP_PORT" .next-load
 
   APP_URL=$APP_ORIGIN NEXT_PID=$NEXT_PID MDB_PID=$MDB_PID \
     node --conditions=react-server --import tsx scripts/load.ts "$@" </dev/null

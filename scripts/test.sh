@@ -112,22 +112,13 @@ start_services() {
   mail_sink_stop_stale "$MAIL_PIDFILE"
   require_free_port "$APP_PORT" "the test app" "run with TEST_PORT=<another port>"
   require_free_port "$MAIL_SINK_PORT_TEST" "the test mail sink" "run with TEST_MAIL_SINK_PORT=<another port>"
-  mariadb_configure "$TEST_DIR" "$DB_PORT"
-  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$DB_PORT" "the test MariaDB" "run with TEST_DB_PORT=<another port>"; fi
-  mariadb_init
-  mariadb_start
+  mariadb_up "$TEST_DIR" "$DB_PORT" "the test MariaDB" "run with TEST_DB_PORT=<another port>"
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate
   migrate_and_seed
   mail_sink_start "$MAIL_SINK_PORT_TEST" "$MAIL_LOG" "$MAIL_PIDFILE"
-  export APP_ORIGIN=http://127.0.0.1:$APP_PORT
-  export NEXT_DIST_DIR=.next-test
-  # Uploaded files of a test run stay with the test data, apart from the demo's.
-  rm -rf "$TEST_DIR/uploads"
-  export UPLOAD_DIR=$TEST_DIR/uploads
-  build_if_needed
   export TRAILBIN_TEST_SERVICES=$TRAILBIN_ROOT/scripts/test-services.sh
   export TEST_SECOND_APP_PORT=${TEST_SECOND_PORT:-$((APP_PORT + 1))}
-  NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
+  app_start_built "$TEST_DIR" "$APP_PORT" .next-test
 }
 
 # on_exit : whatever happened, stop the services and print the closing line. A run that stops

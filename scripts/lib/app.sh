@@ -145,3 +145,15 @@ next_stop_stale() {
   fi
   rm -f "$pidfile"
 }
+
+# app_start_built DIR PORT DIST : a production server of this checkout on PORT, built into DIST when
+# the sources changed, its uploads in DIR/uploads (emptied first, apart from the demo's); sets
+# APP_ORIGIN. Needs NEXT_LOG and NEXT_PIDFILE.
+app_start_built() {
+  export APP_ORIGIN=http://127.0.0.1:$2
+  export NEXT_DIST_DIR=$3
+  rm -rf "$1/uploads"
+  export UPLOAD_DIR=$1/uploads
+  build_if_needed
+  NODE_ENV=production next_start "$2" "$NEXT_LOG" "$NEXT_PIDFILE"
+}

@@ -160,3 +160,12 @@ mariadb_provision() {
     printf "GRANT ALL PRIVILEGES ON \`%s\`.* TO '%s'@'127.0.0.1';\n" "$db" "$user"
   } | mariadb_sql || die "could not create database $db / user $user"
 }
+
+# mariadb_up DIR PORT WHAT HINT : our server for DIR on PORT, running (started, or adopted from a
+# killed earlier run); WHAT and HINT name it and the way out when something else holds the port.
+mariadb_up() {
+  mariadb_configure "$1" "$2"
+  if [[ -z $(mariadb_running_pid) ]]; then require_free_port "$MDB_PORT" "$3" "$4"; fi
+  mariadb_init
+  mariadb_start
+}

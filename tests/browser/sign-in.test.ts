@@ -3,6 +3,7 @@ import type { Browser } from "playwright-core";
 import path from "node:path";
 import { APP_URL, demoAccount } from "../support/app";
 import { ARTIFACTS, launchBrowser } from "../support/browser";
+import { signInOnPage } from "../support/browser-session";
 import { ROLE_HOME, ROLES } from "@/lib/auth/permissions";
 
 let browser: Browser;
@@ -54,11 +55,7 @@ describe("signing in through the browser", () => {
   it("the admin sees the users table and sign-out ends the session", async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
-    const a = demoAccount("admin");
-    await page.goto(`${APP_URL}/sign-in`);
-    await page.getByLabel("E-mail address").fill(a.email);
-    await page.getByLabel("Password").fill(a.password);
-    await page.getByRole("button", { name: "Sign in" }).click();
+    await signInOnPage(page, "admin");
     await page.waitForURL(/\/floor-plans/);
     await page.getByRole("link", { name: "Users" }).click();
     await page.waitForURL(/\/admin\/users/);

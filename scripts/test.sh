@@ -12,6 +12,8 @@
 #   TEST_PORT     app port (default 3001)        TEST_DB_PORT  MariaDB port (default 33062)
 #   TEST_MAIL_SINK_PORT  the local SMTP sink (default 2526)
 #   TEST_SECOND_PORT     a second app a fault test may start from the same build (default TEST_PORT+1)
+#   TEST_FILES    only the test files whose paths contain one of these words (space separated),
+#                 e.g. TEST_FILES="picking auth" while working on those; CI runs everything
 # The suites see APP_URL, APP_ORIGIN, DB_HOST, DB_PORT, DB_NAME, DB_USER, DB_PASSWORD, SMTP_HOST,
 # SMTP_PORT, CHROMIUM_PATH, NEXT_DIST_DIR, TEST_SECOND_APP_PORT and TRAILBIN_TEST_SERVICES (the
 # command that stops and starts the test MariaDB or mail sink, scripts/test-services.sh).
@@ -87,7 +89,9 @@ run_vitest() {
   shift
   rm -f "$report"
   log "running the $name suite"
-  node node_modules/vitest/vitest.mjs run "$@" --passWithNoTests \
+  local filters=()
+  if [[ -n ${TEST_FILES:-} ]]; then read -r -a filters <<<"$TEST_FILES"; fi
+  node node_modules/vitest/vitest.mjs run "$@" "${filters[@]}" --passWithNoTests \
     --reporter=default --reporter=json --outputFile="$report" </dev/null || rc=$?
   local counts passed=0 failed=0 failed_files=0
   if [[ -f $report ]]; then

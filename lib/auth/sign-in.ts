@@ -2,7 +2,7 @@ import "server-only";
 import { audit } from "@/db/audit";
 import { findUserForSignIn, normaliseEmail, recordSignIn } from "@/db/users";
 import { dummyPasswordHash, verifyPassword } from "./password";
-import { signInLimits, takeAttempt, THROTTLE_WINDOW_MS, tryAgainAt } from "./throttle";
+import { BUSY_RETRY_MS, signInLimits, takeAttempt, THROTTLE_WINDOW_MS, tryAgainAt } from "./throttle";
 import { startSession } from "./session";
 import type { Role } from "./permissions";
 
@@ -11,6 +11,7 @@ export type SignInResult =
   | { ok: false; status: 401 | 429; message: string; retryAt?: string };
 
 const WRONG = "That e-mail address and password do not match an active account. Check both and try again.";
+const BUSY = "Many sign-ins are being checked for this account or from this place right now. Try again in a few seconds.";
 
 /**
  * Every attempt is counted before its password is checked and taken back only when it was right, so
@@ -20,6 +21,10 @@ const WRONG = "That e-mail address and password do not match an active account. 
 export async function signIn(emailInput: string, password: string, ip: string, now = new Date()): Promise<SignInResult> {
   const email = normaliseEmail(emailInput);
   const attempt = await takeAttempt(signInLimits(email, ip), THROTTLE_WINDOW_MS, now);
+  if (!attempt.ok && attempt.busy) {
+    await audit({ event: "sign_in.throttled", subject: email, ip, detail: { busy: true } });
+    return { ok: false, status: 429, retryAt: new Date(now.getTime() + BUSY_RETRY_MS).toISOString(), message: BUSY };
+  }
   if (!attempt.ok) {
     await audit({ event: "sign_in.throttled", subject: email, ip, detail: { until: attempt.until.toISOString() } });
     return {
@@ -32,6 +37,7 @@ export async function signIn(emailInput: string, password: string, ip: string, n
   const user = await findUserForSignIn(email);
   const passwordOk = await verifyPassword(user?.passwordHash ?? (await dummyPasswordHash()), password);
   if (!user || !user.passwordHash || !passwordOk || user.disabled) {
+    await attempt.keep();
     await audit({ event: "sign_in.failure", subject: email, ip, detail: { reason: !user ? "unknown account" : user.disabled ? "disabled" : "wrong password" } });
     return { ok: false, status: 401, message: WRONG };
   }

@@ -5,7 +5,7 @@ import { HttpError } from "@/lib/http/errors";
 import { findUserForSignIn, normaliseEmail } from "@/db/users";
 import { issueResetToken } from "@/db/tokens";
 import { audit } from "@/db/audit";
-import { takeAttempt } from "@/lib/auth/throttle";
+import { BUSY_RETRY_MS, takeAttempt } from "@/lib/auth/throttle";
 import { RESET_WINDOW_MS, resetLimits } from "@/lib/mail/reset-throttle";
 import { resetMail, setPasswordLink } from "@/lib/mail/messages";
 import { appOrigin } from "@/lib/mail/config";
@@ -33,10 +33,14 @@ export const POST = route({ access: "public", body: Body }, async ({ body, ip })
   const attempt = await takeAttempt(resetLimits(email, ip), RESET_WINDOW_MS);
   if (!attempt.ok) {
     await audit({ event: "password.reset_throttled", subject: email, ip });
+    if (attempt.busy) {
+      throw new HttpError(429, "Many reset requests are arriving at once. Try again in a few seconds.", { retryAt: new Date(Date.now() + BUSY_RETRY_MS).toISOString() });
+    }
     throw new HttpError(429, "Too many reset requests for now. Wait a few minutes and try again, or ask your site's layout admin.", {
       retryAt: attempt.until.toISOString(),
     });
   }
+  await attempt.keep();
   await audit({ event: "password.reset_requested", subject: email, ip });
   after(() => mailResetLink(email));
   return Response.json({ ok: true, message: RESET_ANSWER });

@@ -1,6 +1,8 @@
 // Runs once when the server starts.
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
+  // First, so that the throttles and the audit log know each client's real address.
+  (await import("./lib/http/client-address-setup")).startClientAddresses();
   try {
     const { failOrphanedJobs } = await import("./db/jobs");
     const n = await failOrphanedJobs();

@@ -43,16 +43,6 @@ export async function audit(entry: AuditEntry, trx?: Knex.Transaction): Promise<
   });
 }
 
-/** Failures in the window, oldest first: the throttle needs the count and when the oldest one ages out. */
-export async function recentFailures(by: "subject" | "ip", key: string, since: Date): Promise<Date[]> {
-  const rows = await db()("audit_log")
-    .select("at")
-    .where({ event: "sign_in.failure", [by]: key })
-    .andWhere("at", ">", since)
-    .orderBy("at", "asc");
-  return rows.map((r: { at: Date }) => r.at);
-}
-
 export type AuditDTO = { id: number; at: string; event: string; actorUserId: string | null; subject: string | null; ip: string | null };
 
 export async function latestAudit(limit: number, event?: AuditEvent): Promise<AuditDTO[]> {

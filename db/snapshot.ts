@@ -10,6 +10,8 @@ export const SNAPSHOT_EXCLUDED: Record<string, string> = {
   sessions: "sessions slide their idle expiry on any signed-in request",
   // Refused requests are audited on purpose (access.denied, origin.refused, password.set_refused).
   audit_log: "refusals are audited by design",
+  // Sign-in and reset attempts are counted before they are answered, wrong ones included (lib/auth/throttle.ts).
+  throttle_counters: "attempts are counted by the throttles by design",
   // The outbox sender and the SMTP sink run on their own clock: mail queued by an earlier request is
   // claimed, sent and received while other requests come in.
   outbox: "the mail sender updates it in the background",

@@ -34,9 +34,14 @@ export function createInvitedUser(
   });
 }
 
-/** A reset token and its mail in one transaction; earlier unused reset links of the user stop working. */
+/**
+ * A reset token and its mail in one transaction; earlier unused reset links of the user stop working.
+ * The user's row is locked first, so parallel requests for one account queue behind each other
+ * instead of deadlocking on each other's token rows.
+ */
 export async function issueResetToken(userId: string, mail: MailForToken, now = new Date()): Promise<void> {
   await db().transaction(async (trx) => {
+    await trx("users").where({ id: userId }).forUpdate().first("id");
     await trx("password_tokens").where({ user_id: userId, purpose: "reset" }).whereNull("used_at").update({ used_at: now });
     const { token, sha } = await insertToken(trx, userId, "reset", now);
     await enqueueMail(trx, { ...mail(token), dedupeKey: `reset:${sha.slice(0, 40)}` });
@@ -77,8 +82,3 @@ export async function setPasswordWithToken(token: string, passwordHash: string, 
   });
 }
 
-/** Reset requests in the window, oldest first, by e-mail (subject) or address: the throttle counts them. */
-export async function recentResetRequests(by: "subject" | "ip", key: string, since: Date): Promise<Date[]> {
-  const rows = await db()("audit_log").select("at").where({ event: "password.reset_requested", [by]: key }).andWhere("at", ">", since).orderBy("at", "asc");
-  return rows.map((r: { at: Date }) => r.at);
-}

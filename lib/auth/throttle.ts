@@ -1,26 +1,68 @@
 import "server-only";
-import { recentFailures } from "@/db/audit";
+import { countAttempt, keepAttempt, uncountAttempt, type Count } from "@/db/throttle";
 
 export const THROTTLE_WINDOW_MS = 15 * 60 * 1000;
 export const MAX_FAILURES_PER_ACCOUNT = 10;
 // A shared handheld pool sits behind one address, so the per-address cap is looser than per account.
 export const MAX_FAILURES_PER_IP = 50;
 
-/** When the next attempt is allowed, or null if it is allowed now. */
-export async function throttledUntil(email: string, ip: string, now = new Date()): Promise<Date | null> {
-  const since = new Date(now.getTime() - THROTTLE_WINDOW_MS);
-  const [byAccount, byIp] = await Promise.all([recentFailures("subject", email, since), recentFailures("ip", ip, since)]);
-  const until = (failures: Date[], max: number) => {
-    if (failures.length < max) return null;
-    // The attempt opens again when enough of the oldest failures have left the window.
-    const pivot = failures[failures.length - max];
-    return pivot ? new Date(pivot.getTime() + THROTTLE_WINDOW_MS) : null;
+/** One cap: at most `max` attempts counted for `subject` (an e-mail address, a client address) per window. */
+export type Limit = { scope: string; subject: string; max: number };
+
+/**
+ * An attempt that may go ahead, to be kept (it counts for the rest of the window) or released (it
+ * does not count after all); or a refusal. A refusal is `busy` when the cap is full only of attempts
+ * still being checked, which settle within moments: a shift's handhelds signing in at once behind one
+ * address should be told to try again in a few seconds, not in a quarter of an hour.
+ */
+export type Taken =
+  | { ok: true; keep: () => Promise<void>; release: () => Promise<void> }
+  | { ok: false; busy: false; until: Date }
+  | { ok: false; busy: true };
+
+/** How long a busy refusal asks a person to wait: attempts in flight settle well within it. */
+export const BUSY_RETRY_MS = 5_000;
+
+/**
+ * Counts an attempt against every limit before any work is done for it, so the limit holds however
+ * many attempts arrive at once. Refused (and not counted) when any limit is full; `until` is when the
+ * window that refused it ends. Limits are taken in order and the first refusal stops there, so
+ * attempts an account's cap turns away do not eat into the address's allowance.
+ */
+export async function takeAttempt(limits: Limit[], windowMs: number, now = new Date()): Promise<Taken> {
+  const taken: Array<Limit & Count> = [];
+  const release = async () => {
+    await Promise.all(taken.map((t) => uncountAttempt(t.scope, t.subject, t.windowStart)));
   };
-  const times = [until(byAccount, MAX_FAILURES_PER_ACCOUNT), until(byIp, MAX_FAILURES_PER_IP)].filter((d): d is Date => d !== null);
-  if (times.length === 0) return null;
-  return new Date(Math.max(...times.map((d) => d.getTime())));
+  const keep = async () => {
+    await Promise.all(taken.map((t) => keepAttempt(t.scope, t.subject, t.windowStart)));
+  };
+  for (const limit of limits) {
+    const count = await countAttempt(limit.scope, limit.subject, windowMs, now);
+    taken.push({ ...limit, ...count });
+    if (count.n > limit.max) {
+      await release();
+      return count.kept < limit.max ? { ok: false, busy: true } : { ok: false, busy: false, until: new Date(count.windowStart.getTime() + windowMs) };
+    }
+  }
+  return { ok: true, keep, release };
 }
+
+/** The sign-in caps for this account and client address. */
+export const signInLimits = (email: string, ip: string): Limit[] => [
+  { scope: "sign_in:account", subject: email, max: MAX_FAILURES_PER_ACCOUNT },
+  { scope: "sign_in:address", subject: ip, max: MAX_FAILURES_PER_IP },
+];
 
 export function formatClock(at: Date, timeZone: string): string {
   return new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", hour12: false, timeZone }).format(at);
+}
+
+/**
+ * When to come back, in the same words for every account, real or not: a site's own time zone
+ * would tell a stranger that the address belongs to someone.
+ */
+export function tryAgainAt(until: Date, now = new Date()): string {
+  const minutes = Math.max(1, Math.ceil((until.getTime() - now.getTime()) / 60_000));
+  return `Try again at ${formatClock(until, "UTC")} UTC (in ${minutes} minute${minutes === 1 ? "" : "s"})`;
 }

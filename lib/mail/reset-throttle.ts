@@ -1,20 +1,14 @@
 import "server-only";
-import { recentResetRequests } from "@/db/tokens";
+import type { Limit } from "@/lib/auth/throttle";
 
-// Counted like sign-in failures (lib/auth/throttle.ts), from the audit log: each request is one entry.
+// Counted like sign-in attempts (lib/auth/throttle.ts), before the answer: each accepted request is one.
 export const RESET_WINDOW_MS = 15 * 60 * 1000;
 export const MAX_RESETS_PER_ACCOUNT = 5;
 // A shared handheld pool sits behind one address, so the per-address cap is looser.
 export const MAX_RESETS_PER_IP = 30;
 
-export async function resetThrottledUntil(email: string, ip: string, now = new Date()): Promise<Date | null> {
-  const since = new Date(now.getTime() - RESET_WINDOW_MS);
-  const [byAccount, byIp] = await Promise.all([recentResetRequests("subject", email, since), recentResetRequests("ip", ip, since)]);
-  const until = (times: Date[], max: number) => {
-    if (times.length < max) return null;
-    const pivot = times[times.length - max];
-    return pivot ? new Date(pivot.getTime() + RESET_WINDOW_MS) : null;
-  };
-  const times = [until(byAccount, MAX_RESETS_PER_ACCOUNT), until(byIp, MAX_RESETS_PER_IP)].filter((d): d is Date => d !== null);
-  return times.length ? new Date(Math.max(...times.map((d) => d.getTime()))) : null;
-}
+/** The reset-mail caps for this e-mail address (an account or not: both are counted alike) and client address. */
+export const resetLimits = (email: string, ip: string): Limit[] => [
+  { scope: "reset:account", subject: email, max: MAX_RESETS_PER_ACCOUNT },
+  { scope: "reset:address", subject: ip, max: MAX_RESETS_PER_IP },
+];

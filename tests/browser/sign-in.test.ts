@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
+import http from "node:http";
+import type { AddressInfo } from "node:net";
 import path from "node:path";
 import { APP_URL, demoAccount } from "../support/app";
 import { ARTIFACTS, launchBrowser } from "../support/browser";
@@ -51,6 +53,31 @@ describe("signing in through the browser", () => {
     await page.screenshot({ path: path.join(ARTIFACTS, "sign-in-error.png") });
     await context.close();
   });
+
+  // A page on another origin stands in for a phishing site, so a redirect there is seen, not guessed.
+  for (const [what, sep] of [["a tab", "%09"], ["a newline", "%0a"], ["a backslash", "%5C"]] as const) {
+    it(`?next= with ${what} after the first slash still lands on this site`, async () => {
+      const phish = http.createServer((_req, res) => res.end("<h1>phish</h1>"));
+      await new Promise<void>((r) => phish.listen(0, "127.0.0.1", r));
+      const phishHost = `127.0.0.1:${(phish.address() as AddressInfo).port}`;
+      const context = await browser.newContext();
+      const page = await context.newPage();
+      try {
+        await page.goto(`${APP_URL}/sign-in?next=/${sep}/${phishHost}/phish`);
+        const a = demoAccount("planner");
+        await page.getByLabel("E-mail address").fill(a.email);
+        await page.getByLabel("Password").fill(a.password);
+        await page.getByRole("button", { name: "Sign in" }).click();
+        await page.waitForURL((u) => !u.pathname.startsWith("/sign-in") || u.host !== new URL(APP_URL).host);
+        expect(new URL(page.url()).origin).toBe(new URL(APP_URL).origin);
+        expect(new URL(page.url()).pathname).toBe(ROLE_HOME.planner);
+      } finally {
+        await context.close();
+        phish.closeAllConnections();
+        await new Promise<void>((r) => phish.close(() => r()));
+      }
+    });
+  }
 
   it("the admin sees the users table and sign-out ends the session", async () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });

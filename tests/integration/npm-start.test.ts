@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { rmSync } from "node:fs";
+import path from "node:path";
 import { DEMO_ACCOUNTS } from "@/lib/demo-accounts";
 import { freePort, npmStart, portAnswers, processesOf, startFileExists, START_DIR, stillRunning, until, type NpmStart, type Ports, type Proc } from "../support/npm-start";
 
@@ -19,7 +20,7 @@ beforeAll(async () => {
   ports = { app, db: await freePort(), mail: await freePort() };
 });
 
-afterAll(() => {
+afterAll(async () => {
   // A failed test may have left some of it running: end exactly what we saw, nothing else.
   for (const p of stillRunning(seen)) {
     try {
@@ -28,6 +29,9 @@ afterAll(() => {
       // already gone
     }
   }
+  await until("what was killed to end", 10_000, () => stillRunning(seen).length === 0).catch(() => undefined);
+  // The logs stay for a person to read; the database files (about 180 MB) do not.
+  rmSync(path.join(START_DIR, "mysql"), { recursive: true, force: true });
 });
 
 /** The running npm start, or a new one (the first one initialises MariaDB and seeds the demo). */

@@ -3,10 +3,15 @@
 #   Debian packages (MariaDB) -> node_modules -> private MariaDB in .data/demo on 127.0.0.1:33061
 #   -> database "trailbin" + user from .env.local (made on first run) -> migrations + seed
 #   -> next build (only when sources changed) -> next start on http://127.0.0.1:3000
-# Then waits; Ctrl-C (or SIGTERM) stops the app, the mail sink, then MariaDB, and prints "Stopped.".
+# Then watches: a MariaDB that dies is started again (a few times, with growing pauses). Ctrl-C, or
+# TERM, INT or HUP to npm's pid or to this script's, stops the app, the mail sink, then MariaDB, and
+# prints "Stopped.".
 #
 # Overrides: PORT (app, default 3000), DB_PORT (MariaDB, default DB_PORT in .env.local, else 33061),
-# MAIL_SINK_PORT (the local SMTP sink whose messages /admin/mail shows, default 2525).
+# MAIL_SINK_PORT (the local SMTP sink whose messages /admin/mail shows, default 2525),
+# TRAILBIN_DATA_DIR (default .data/demo; any other folder keeps its credentials in DIR/env instead of
+# .env.local, so a second demo, or the test of npm start, never touches the first one's),
+# TRAILBIN_PREBUILT (serve the build already in that folder, e.g. .next-test, instead of building .next).
 # The data stays in .data/demo between runs; delete that folder (and .env.local) to start afresh.
 set -euo pipefail
 
@@ -16,8 +21,14 @@ source "$TRAILBIN_ROOT/scripts/lib/app.sh"
 source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
 cd "$TRAILBIN_ROOT"
 
-DEMO_DIR=$TRAILBIN_ROOT/.data/demo
-ENV_FILE=$TRAILBIN_ROOT/.env.local
+if [[ -n ${TRAILBIN_DATA_DIR:-} ]]; then
+  mkdir -p "$TRAILBIN_DATA_DIR"
+  DEMO_DIR=$(cd "$TRAILBIN_DATA_DIR" && pwd)
+  ENV_FILE=$DEMO_DIR/env
+else
+  DEMO_DIR=$TRAILBIN_ROOT/.data/demo
+  ENV_FILE=$TRAILBIN_ROOT/.env.local
+fi
 APP_PORT=${PORT:-3000}
 APP_URL=http://127.0.0.1:$APP_PORT
 NEXT_PIDFILE=$DEMO_DIR/next.pid
@@ -27,6 +38,7 @@ MAIL_PIDFILE=$DEMO_DIR/mail-sink.pid
 MAIL_LOG=$DEMO_DIR/mail-sink.log
 MDB_PID=
 NEXT_PID=
+BUILD_PID=
 
 # take_start_lock : one demo per checkout. The lock lives on fd 9 for the life of this script (the
 # kernel drops it when we exit, however we exit); servers are started with 9>&- so they never hold it.
@@ -37,8 +49,8 @@ take_start_lock() {
     local pid url
     pid=$(sed -n 1p "$DEMO_DIR/start.pid" 2>/dev/null) || true
     url=$(sed -n 2p "$DEMO_DIR/start.pid" 2>/dev/null) || true
-    printf 'Trailbin is already running at %s (pid %s); stop it with Ctrl-C in its terminal\n' \
-      "${url:-$APP_URL}" "${pid:-unknown}" >&2
+    printf 'Trailbin is already running at %s (pid %s); stop it with Ctrl-C in its terminal, or kill -TERM %s\n' \
+      "${url:-$APP_URL}" "${pid:-unknown}" "${pid:-<pid>}" >&2
     exit 1
   fi
   printf '%s\n%s\n' "$$" "$APP_URL" >"$DEMO_DIR/start.pid"
@@ -66,7 +78,15 @@ load_demo_env() {
 }
 
 shutdown() {
-  trap - INT TERM EXIT
+  # Ignored, not reset: Ctrl-C reaches us twice (from the terminal and again from npm, which passes
+  # INT on), and the second must not cut the shutdown short with MariaDB still running.
+  trap '' INT TERM HUP
+  trap - EXIT
+  stop_ticker
+  if [[ -n $BUILD_PID ]]; then
+    stop_tree "$BUILD_PID" "next build"
+    BUILD_PID=
+  fi
   next_stop
   rm -f "$NEXT_PIDFILE"
   mail_sink_stop "$MAIL_PIDFILE"
@@ -77,8 +97,53 @@ shutdown() {
 
 on_signal() {
   echo
+  log "$1 received; stopping"
   shutdown
   exit 0
+}
+
+# The one-second pause of supervise, in the background so that a signal is handled at once.
+TICK_PID=
+stop_ticker() {
+  if [[ -n $TICK_PID ]]; then
+    kill "$TICK_PID" 2>/dev/null || true
+    wait "$TICK_PID" 2>/dev/null || true
+  fi
+  TICK_PID=
+}
+
+# parent_is PID : npm ran us (package.json execs this script, so npm is our parent) and is still
+# our parent. npm dies at once of a signal it does not pass on (HUP, KILL), and we are then handed
+# to init: a changed parent is how we learn that nobody is left to stop us.
+parent_is() { [[ -z $1 || $(proc_stat_field $$ 2) == "$1" ]]; }
+
+# supervise NPM_PID : the long wait of npm start. About once a second: the app still running, the
+# npm that ran us still there, MariaDB running (started again when it died).
+supervise() {
+  local npm_pid=$1 rc
+  while :; do
+    if ! pid_running "$NEXT_PID"; then
+      rc=0
+      wait "$NEXT_PID" || rc=$?
+      warn "the app exited on its own (status $rc); its log is $NEXT_LOG"
+      tail -n 30 "$NEXT_LOG" >&2 || true
+      NEXT_PID=
+      exit 1
+    fi
+    if ! parent_is "$npm_pid"; then
+      log "npm (pid $npm_pid) has ended; stopping"
+      shutdown
+      exit 0
+    fi
+    if ! mariadb_watch; then
+      warn "stopping Trailbin: without MariaDB it can only answer \"database unavailable\""
+      exit 1
+    fi
+    sleep 1 9>&- &
+    TICK_PID=$!
+    wait "$TICK_PID" 2>/dev/null || true
+    TICK_PID=
+  done
 }
 
 print_welcome() {
@@ -88,19 +153,24 @@ print_welcome() {
     node --import tsx scripts/demo-accounts.ts || warn "could not list the demo accounts"
   fi
   echo "Mail (invitations, password resets) goes to a local sink on 127.0.0.1:$MAIL_SINK_PORT; admins read it at $APP_URL/admin/mail"
-  echo "Press Ctrl-C to stop."
+  echo "Press Ctrl-C to stop (or kill -TERM $$)."
 }
 
 main() {
   take_start_lock
+  # From here on anything we started is stopped however the script ends, whichever of these signals
+  # reaches us (a terminal's Ctrl-C or hang-up, a service manager's TERM, npm passing one on).
+  trap 'on_signal INT' INT
+  trap 'on_signal TERM' TERM
+  trap 'on_signal HUP' HUP
+  trap 'rc=$?; shutdown; exit $rc' EXIT
+  local npm_pid=
+  if [[ -n ${npm_lifecycle_event:-} ]]; then npm_pid=$PPID; fi
+
   ensure_debian_packages
   ensure_node_modules
   load_demo_env
   mariadb_configure "$DEMO_DIR" "$DB_PORT"
-
-  # From here on anything we started is stopped however the script ends.
-  trap on_signal INT TERM
-  trap 'rc=$?; shutdown; exit $rc' EXIT
 
   next_stop_stale "$NEXT_PIDFILE"
   mail_sink_stop_stale "$MAIL_PIDFILE"
@@ -117,19 +187,23 @@ main() {
   mail_sink_start "$MAIL_SINK_PORT" "$MAIL_LOG" "$MAIL_PIDFILE"
   export APP_ORIGIN=$APP_URL
 
-  export NEXT_DIST_DIR=.next
-  build_if_needed
+  if [[ -n ${TRAILBIN_PREBUILT:-} ]]; then
+    [[ -f $TRAILBIN_PREBUILT/BUILD_ID ]] || die "TRAILBIN_PREBUILT=$TRAILBIN_PREBUILT holds no finished build (no BUILD_ID)"
+    export NEXT_DIST_DIR=$TRAILBIN_PREBUILT
+  else
+    export NEXT_DIST_DIR=.next
+    # In the background so that a signal during a first build of minutes stops it at once.
+    build_if_needed 9>&- &
+    BUILD_PID=$!
+    local rc=0
+    wait "$BUILD_PID" || rc=$?
+    BUILD_PID=
+    ((rc == 0)) || exit "$rc"
+  fi
   export UPLOAD_DIR=$DEMO_DIR/uploads
   NODE_ENV=production next_start "$APP_PORT" "$NEXT_LOG" "$NEXT_PIDFILE"
   print_welcome
-
-  # wait returns when a trapped signal arrives (the trap then runs) or when the app exits by itself.
-  local rc=0
-  wait "$NEXT_PID" || rc=$?
-  warn "the app exited on its own (status $rc); its log is $NEXT_LOG"
-  tail -n 30 "$NEXT_LOG" >&2 || true
-  NEXT_PID=
-  exit 1
+  supervise "$npm_pid"
 }
 
 main "$@"

@@ -97,6 +97,32 @@ proc_cmdline() {
 
 pid_alive() { [[ -n ${1:-} ]] && kill -0 "$1" 2>/dev/null; }
 
+# proc_stat_field PID N : field N of /proc/PID/stat counted after the command name, which sits in
+# parentheses and may hold spaces (1 = state, 2 = parent pid); '' when PID is gone.
+proc_stat_field() {
+  local stat
+  stat=$(cat "/proc/$1/stat" 2>/dev/null) || return 0
+  stat=${stat##*) }
+  local fields
+  read -r -a fields <<<"$stat"
+  printf '%s' "${fields[$(($2 - 1))]:-}"
+}
+
+# pid_running PID : alive and not a zombie (an ended process whose parent has not reaped it yet,
+# which kill -0 still sees; orphans here may have a parent that never reaps).
+pid_running() { pid_alive "${1:-}" && [[ $(proc_stat_field "$1" 1) != Z ]]; }
+
+# stop_tree PID NAME : stop PID and every process under it (a build forks workers of its own).
+stop_tree() {
+  local pid=$1 name=$2 kids
+  pid_alive "$pid" || return 0
+  kids=$(pgrep -P "$pid" 2>/dev/null) || true
+  kill -TERM "$pid" 2>/dev/null || true
+  local k
+  for k in $kids; do stop_tree "$k" "$name"; done
+  stop_pid "$pid" "$name" 15
+}
+
 # stop_pid PID NAME [SECONDS] : SIGTERM, wait for the process to exit, SIGKILL as a last resort.
 # Works for processes that are not our children (a server left by a killed run), so it polls.
 stop_pid() {

@@ -77,7 +77,13 @@ mariadb_running_pid() {
 
 # mariadb_start : start our server, or adopt the one a killed earlier run left behind.
 mariadb_start() {
-  local pid
+  mariadb_try_start || die "MariaDB failed to start on port $MDB_PORT"
+}
+
+# mariadb_try_start [keep-log] : mariadb_start that returns 1 instead of ending the script, for the
+# restarts of a supervised server; keep-log leaves the log of the server that died for a person to read.
+mariadb_try_start() {
+  local pid keep_log=${1:-}
   pid=$(mariadb_running_pid)
   if [[ -n $pid ]]; then
     if mariadb_ping; then
@@ -90,9 +96,12 @@ mariadb_start() {
   fi
   # Whatever the pid file named is gone or not ours: forget it.
   rm -f "$MDB_PIDFILE"
-  require_free_port "$MDB_PORT" "MariaDB"
+  if port_in_use "$MDB_PORT"; then
+    warn "port $MDB_PORT is already in use by $(port_owner "$MDB_PORT"), but MariaDB needs it; stop that program"
+    return 1
+  fi
 
-  : >"$MDB_LOG"
+  [[ $keep_log == keep-log ]] || : >"$MDB_LOG"
   local args=(--no-defaults $(_mariadb_user_args) --datadir="$MDB_DATADIR"
     --bind-address=127.0.0.1 --port="$MDB_PORT" --socket="$MDB_SOCKET"
     --pid-file="$MDB_PIDFILE" --log-error="$MDB_LOG" --skip-name-resolve
@@ -108,14 +117,72 @@ mariadb_start() {
       log "MariaDB is up on 127.0.0.1:$MDB_PORT (pid $MDB_PID)"
       return 0
     fi
-    pid_alive "$MDB_PID" || break
+    pid_running "$MDB_PID" || break
     sleep 0.1
   done
   warn "MariaDB did not start; last lines of $MDB_LOG:"
   tail -n 40 "$MDB_LOG" >&2
   stop_pid "$MDB_PID" MariaDB 10
   MDB_PID=
-  die "MariaDB failed to start on port $MDB_PORT"
+  return 1
+}
+
+# Supervision (npm start): a server that dies is started again after 1, 2, 4, 8 and 16 s; one that
+# keeps dying is given up after MDB_MAX_RESTARTS tries in a row, since restarting it for ever would
+# hide a full disk or a broken datadir behind an app that only ever says "database unavailable".
+MDB_MAX_RESTARTS=5
+# Up this long again, a server counts as healthy: its next death starts the count afresh.
+MDB_HEALTHY_AFTER_S=60
+MDB_RESTARTS=0
+MDB_RETRY_AT=
+MDB_UP_SINCE=$SECONDS
+
+# _mariadb_reap PID : sets MDB_EXIT to how our server ended ("killed by SIGKILL", "exit status 1").
+# Not in a $(...): a subshell cannot wait for its parent's child.
+_mariadb_reap() {
+  local rc=0
+  wait "$1" 2>/dev/null || rc=$?
+  if ((rc == 127)); then
+    # Only our own child can be waited for, not a server adopted from an earlier run.
+    MDB_EXIT="why is not known"
+  elif ((rc > 128)); then
+    MDB_EXIT="killed by SIG$(kill -l $((rc - 128)) 2>/dev/null || echo $((rc - 128)))"
+  else
+    MDB_EXIT="exit status $rc"
+  fi
+}
+
+# mariadb_watch : one look, about once a second from npm start's wait. Starts the server again when it
+# has died and its wait is over; returns 1 when it has failed MDB_MAX_RESTARTS times in a row.
+mariadb_watch() {
+  if [[ -n ${MDB_PID:-} ]] && pid_running "$MDB_PID"; then
+    if ((MDB_RESTARTS > 0 && SECONDS - MDB_UP_SINCE >= MDB_HEALTHY_AFTER_S)); then MDB_RESTARTS=0; fi
+    return 0
+  fi
+  if [[ -z $MDB_RETRY_AT ]]; then
+    local how="it did not start again"
+    if [[ -n ${MDB_PID:-} ]]; then
+      _mariadb_reap "$MDB_PID"
+      how=$MDB_EXIT
+    fi
+    if ((MDB_RESTARTS >= MDB_MAX_RESTARTS)); then
+      warn "MariaDB stopped again ($how) after $MDB_RESTARTS restarts in a row; giving up. Its log: $MDB_LOG"
+      return 1
+    fi
+    local delay=$((1 << MDB_RESTARTS))
+    warn "MariaDB (pid ${MDB_PID:-none}) stopped unexpectedly ($how); restarting it in ${delay} s (attempt $((MDB_RESTARTS + 1)) of $MDB_MAX_RESTARTS). Meanwhile the app answers 503 \"database unavailable\". Its log: $MDB_LOG"
+    MDB_PID=
+    MDB_RETRY_AT=$((SECONDS + delay))
+    return 0
+  fi
+  ((SECONDS >= MDB_RETRY_AT)) || return 0
+  MDB_RETRY_AT=
+  MDB_RESTARTS=$((MDB_RESTARTS + 1))
+  if mariadb_try_start keep-log; then
+    MDB_UP_SINCE=$SECONDS
+    log "MariaDB is back (pid $MDB_PID); the app reconnects by itself"
+  fi
+  return 0
 }
 
 # mariadb_stop : clean shutdown (InnoDB flushes on SIGTERM), then wait for the process to exit.

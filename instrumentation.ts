@@ -1,6 +1,15 @@
 // Runs once when the server starts.
 export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
+  // Without its public origin the server would refuse every change (the Origin check) and mail
+  // links that lead nowhere: stop here with what to set rather than serve like that.
+  const { publicOrigins } = await import("./lib/http/origin");
+  try {
+    publicOrigins();
+  } catch (e) {
+    console.error(`Trailbin cannot start: ${(e as Error).message}`);
+    process.exit(1);
+  }
   try {
     const { failOrphanedJobs } = await import("./db/jobs");
     const n = await failOrphanedJobs();

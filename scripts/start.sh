@@ -115,7 +115,7 @@ main() {
   migrate_and_seed
   # Mail goes to the local sink (SMTP_HOST/SMTP_PORT); links in it point at this app.
   mail_sink_start "$MAIL_SINK_PORT" "$MAIL_LOG" "$MAIL_PIDFILE"
-  export APP_ORIGIN=$APP_URL
+  export APP_ORIGIN=${APP_ORIGIN:-$APP_URL}
 
   export NEXT_DIST_DIR=.next
   build_if_needed

@@ -3,6 +3,15 @@ export async function register() {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   // First, so that the throttles and the audit log know each client's real address.
   (await import("./lib/http/client-address-setup")).startClientAddresses();
+  // Without its public origin the server would refuse every change (the Origin check) and mail
+  // links that lead nowhere: stop here with what to set rather than serve like that.
+  const { publicOrigins } = await import("./lib/http/origin");
+  try {
+    publicOrigins();
+  } catch (e) {
+    console.error(`Trailbin cannot start: ${(e as Error).message}`);
+    process.exit(1);
+  }
   try {
     const { failOrphanedJobs } = await import("./db/jobs");
     const n = await failOrphanedJobs();

@@ -97,15 +97,33 @@ export async function createUser(
 
 export type UserChange = { role?: Role; disabled?: boolean; displayName?: string };
 
+/** The change would leave the user's site without an active admin. */
+export class LastAdminError extends Error {}
+
+const takesAdminAway = (change: UserChange) => (change.role !== undefined && change.role !== "admin") || change.disabled === true;
+
 /**
  * Optimistic update: returns null when `version` is stale (someone else changed the user first).
+ * Throws LastAdminError rather than leave the site without an active admin.
  * Role changes and disabling end every session of the user in the same transaction, so a demoted
  * or disabled account cannot keep using a cookie it already holds.
  */
 export async function updateUser(id: string, version: number, change: UserChange): Promise<UserDTO | null> {
   return db().transaction(async (trx) => {
+    let activeAdminIds: string[] | null = null;
+    if (takesAdminAway(change)) {
+      // Two admins disabling or demoting each other at once would each count two admins and both
+      // succeed. Locking every active admin row of the site, before the target's and in one order,
+      // makes the second wait and then count what the first left.
+      const site = await trx<UserRow>("users").where({ id }).first("site_id");
+      if (site) {
+        const rows = await trx<UserRow>("users").where({ site_id: site.site_id, role: "admin" }).whereNull("disabled_at").orderBy("id").forUpdate().select("id");
+        activeAdminIds = rows.map((r) => r.id);
+      }
+    }
     const current = await trx<UserRow>("users").where({ id }).forUpdate().first();
     if (!current || current.version !== version) return null;
+    if (activeAdminIds?.includes(id) && !activeAdminIds.some((other) => other !== id)) throw new LastAdminError();
     const patch: Record<string, unknown> = { version: version + 1, updated_at: trx.fn.now(3) };
     if (change.role !== undefined) patch.role = change.role;
     if (change.displayName !== undefined) patch.display_name = change.displayName.trim();
@@ -117,11 +135,6 @@ export async function updateUser(id: string, version: number, change: UserChange
     const row = await trx<UserRow>("users").where({ id }).first();
     return row ? toDTO(row) : null;
   });
-}
-
-export async function countActiveAdmins(siteId: number): Promise<number> {
-  const r = await db()("users").where({ site_id: siteId, role: "admin" }).whereNull("disabled_at").count({ n: "*" }).first();
-  return Number(r?.n ?? 0);
 }
 
 export async function recordSignIn(id: string, at: Date): Promise<void> {

@@ -185,7 +185,7 @@ main() {
   migrate_and_seed
   # Mail goes to the local sink (SMTP_HOST/SMTP_PORT); links in it point at this app.
   mail_sink_start "$MAIL_SINK_PORT" "$MAIL_LOG" "$MAIL_PIDFILE"
-  export APP_ORIGIN=$APP_URL
+  export APP_ORIGIN=${APP_ORIGIN:-$APP_URL}
 
   if [[ -n ${TRAILBIN_PREBUILT:-} ]]; then
     [[ -f $TRAILBIN_PREBUILT/BUILD_ID ]] || die "TRAILBIN_PREBUILT=$TRAILBIN_PREBUILT holds no finished build (no BUILD_ID)"

@@ -41,7 +41,8 @@ export function SetPasswordForm({ token, email, minLength }: { token: string; em
       {/* Lets password managers store the new password under the right account. */}
       <input type="hidden" name="username" autoComplete="username" value={email} readOnly />
       <p>
-        For <strong>{email}</strong>. Use at least {minLength} characters; a few words in a row work well.
+        For <strong>{email}</strong>. Use at least {minLength} characters; a few unrelated words with spaces between them work well.
+        Common passwords, patterns like 111111111111 and your own name or e-mail address are refused.
       </p>
       <div>
         <label htmlFor="password" className="label">New password</label>

@@ -64,7 +64,7 @@ export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<
         </fieldset>
         {!invite && (
           <label>
-            <span className="label">First password (at least 12 characters)</span>
+            <span className="label">First password (at least 12 characters, not a common one, nor their name or address)</span>
             <input name="password" type="password" autoComplete="new-password" className="field" required minLength={12} />
           </label>
         )}

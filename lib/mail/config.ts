@@ -1,10 +1,11 @@
 import "server-only";
+import { publicOrigins } from "@/lib/http/origin";
 
 // scripts/start.sh and scripts/test.sh export these; the defaults match npm start's.
 
-/** Where links in mail point: the address people open the app at. */
+/** Where links in mail point: the address people open the app at (the first of APP_ORIGIN's list). */
 export function appOrigin(): string {
-  return (process.env.APP_ORIGIN || "http://127.0.0.1:3000").replace(/\/+$/, "");
+  return publicOrigins()[0]!;
 }
 
 export function smtpSettings(): { host: string; port: number } {

@@ -95,7 +95,7 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
   const skus = items.filter((i) => i.bins.length > 0).map((i) => i.sku);
 
   log(`adding ${opts.handhelds} picker accounts`);
-  const password = "load-run-handheld-password";
+  const password = "load run copper pallet lantern";
   const people = await inBatches(
     Array.from({ length: opts.handhelds }, (_, i) => i),
     4,

@@ -4,7 +4,8 @@ import { api, makeUser, ORIGIN, signIn, signInAs, APP_URL } from "../support/app
 import { auditedSince, auditMark } from "../support/audit";
 import { db } from "@/db/knex";
 import { enqueueMail, getOutboxMailByKey, listOutbox } from "@/db/outbox";
-import { sinkMessagesTo, type SinkMessage } from "@/db/mail-sink";
+import { sinkMessagesTo } from "@/db/mail-sink";
+import { linkIn, tokenOf, uniqueAddress, waitForMail } from "../support/mailbox";
 import { createInvitedUser } from "@/db/tokens";
 import { sendDueMail } from "@/lib/mail/sender";
 import { smtpTransport } from "@/lib/mail/transport";
@@ -17,26 +18,6 @@ afterAll(async () => {
   await db().destroy();
 });
 
-let n = 0;
-const uniqueAddress = (what: string) => `${what}-${Date.now()}-${process.pid}-${++n}@tests.example`;
-
-/** The sink stores what it receives in the database; poll it, as a person would refresh a mailbox. */
-async function waitForMail(address: string, count = 1, timeoutMs = 10_000): Promise<SinkMessage[]> {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const found = await sinkMessagesTo(address);
-    if (found.length >= count) return found;
-    if (Date.now() > until) throw new Error(`no mail for ${address} within ${timeoutMs} ms (found ${found.length})`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
-
-function linkIn(text: string | null): string {
-  const m = (text ?? "").match(/https?:\/\/\S+\/set-password\?token=[A-Za-z0-9_-]+/);
-  if (!m) throw new Error(`no set-password link in: ${text}`);
-  return m[0];
-}
-const tokenOf = (link: string) => new URL(link).searchParams.get("token")!;
 const setPassword = (token: string, password: string) => api().post("/api/password/set").set("Origin", ORIGIN).send({ token, password });
 const signInStatus = async (email: string, password: string) => (await api().post("/api/session").set("Origin", ORIGIN).send({ email, password })).status;
 
@@ -78,9 +59,9 @@ describe("invitation", () => {
     expect(short.status).toBe(400);
     expect(short.body.issues[0].message).toMatch(/12 characters/);
 
-    const ok = await setPassword(token, "my own invited password");
+    const ok = await setPassword(token, "my own chosen password");
     expect(ok.status).toBe(200);
-    expect(await signIn(email, "my own invited password")).toMatch(/^trailbin_session=/);
+    expect(await signIn(email, "my own chosen password")).toMatch(/^trailbin_session=/);
 
     const mark = await auditMark();
     const again = await setPassword(token, "someone else's password");

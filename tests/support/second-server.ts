@@ -21,7 +21,8 @@ export async function startSecondServer(settings: Record<string, string>, name: 
   let child: ChildProcess;
   try {
     child = spawn(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", port], {
-      env: { ...process.env, NODE_ENV: "production", ...settings },
+      // Its own address is its public origin (APP_ORIGIN), unless the settings say otherwise.
+      env: { ...process.env, NODE_ENV: "production", APP_ORIGIN: url, ...settings },
       detached: true,
       stdio: ["ignore", log, log],
     });

@@ -7,6 +7,7 @@ import { getSite } from "@/db/sites";
 import { audit } from "@/db/audit";
 import { ROLES } from "@/lib/auth/permissions";
 import { hashPassword, MIN_PASSWORD_LENGTH } from "@/lib/auth/password";
+import { passwordProblem } from "@/lib/auth/password-strength";
 import { newId } from "@/lib/auth/session";
 import { hasControlCharacters, isValidAddress } from "@/lib/mail/headers";
 import { invitationMail, setPasswordLink } from "@/lib/mail/messages";
@@ -41,6 +42,8 @@ const NewUser = z.object({
 export const GET = route({ access: "users.manage" }, async ({ user }) => Response.json({ users: await listUsers(user.siteId) }));
 
 export const POST = route({ access: "users.manage", body: NewUser }, async ({ user, body, ip }) => {
+  const problem = body.password === undefined ? null : passwordProblem(body.password, { email: body.email, name: body.displayName });
+  if (problem) throw new HttpError(400, "Some fields need attention.", { issues: [{ path: "password", message: problem }] });
   try {
     const id = newId();
     if (body.password === undefined) {

@@ -11,7 +11,7 @@ export default async function MailPage() {
     <>
       <PageHeader
         title="Mail"
-        lead="Everything Trailbin sent (invitations, password resets), as the local mail sink received it. On this machine nothing leaves for real mailboxes: open a message to follow its link."
+        lead="Everything Trailbin sent (invitations, password resets, wave mail), as the local mail sink received it; on this machine nothing leaves for real mailboxes. A set-password link is the key to its addressee's account, so it shows in full only in mail to your own address: in mail to anyone else it is hidden, as a real mail service would keep it from you."
       />
       <MailInbox />
     </>

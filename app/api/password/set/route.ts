@@ -2,7 +2,9 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { hashPassword, MIN_PASSWORD_LENGTH } from "@/lib/auth/password";
-import { setPasswordWithToken } from "@/db/tokens";
+import { passwordProblem } from "@/lib/auth/password-strength";
+import { peekToken, setPasswordWithToken } from "@/db/tokens";
+import { findUserForSignIn } from "@/db/users";
 import { audit } from "@/db/audit";
 import { LINK_DEAD } from "@/lib/mail/answers";
 
@@ -18,6 +20,14 @@ const Body = z.object({
 
 // Unknown, used and expired links (and disabled accounts) all get the same answer: no oracle.
 export const POST = route({ access: "public", body: Body }, async ({ body, ip }) => {
+  // A live link is checked for whom it is, so the password can be weighed against their address and
+  // name; a dead one falls through to the one answer below, whatever the password.
+  const found = await peekToken(body.token);
+  if (found) {
+    const person = await findUserForSignIn(found.email);
+    const problem = passwordProblem(body.password, { email: found.email, name: person?.displayName });
+    if (problem) throw new HttpError(400, "Some fields need attention.", { issues: [{ path: "password", message: problem }] });
+  }
   const done = await setPasswordWithToken(body.token, await hashPassword(body.password));
   if (!done) {
     await audit({ event: "password.set_refused", ip });

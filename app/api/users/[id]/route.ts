@@ -2,7 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { rowVersion } from "@/lib/http/body-fields";
-import { countActiveAdmins, getUser, updateUser } from "@/db/users";
+import { getUser, LastAdminError, updateUser } from "@/db/users";
 import { audit } from "@/db/audit";
 import { ROLES } from "@/lib/auth/permissions";
 
@@ -19,11 +19,10 @@ export const PATCH = route({ access: "users.manage", body: Change }, async ({ us
   const id = String(params.id ?? "");
   const target = await getUser(id);
   if (!target || target.siteId !== user.siteId) throw new HttpError(404, "No such user at this site. Reload the list.");
-  const losesAdmin = target.role === "admin" && !target.disabled && ((body.role && body.role !== "admin") || body.disabled === true);
-  if (losesAdmin && (await countActiveAdmins(user.siteId)) <= 1) {
-    throw new HttpError(409, "This is the site's last active admin. Make someone else an admin first.");
-  }
-  const updated = await updateUser(id, body.version, body);
+  const updated = await updateUser(id, body.version, body).catch((e: unknown) => {
+    if (e instanceof LastAdminError) throw new HttpError(409, "This is the site's last active admin. Make someone else an admin first.");
+    throw e;
+  });
   if (!updated) throw new HttpError(409, "Someone changed this user while you were looking. Reload the list and try again.");
   await audit({ event: "user.changed", actorUserId: user.id, subject: id, ip, detail: { role: body.role, disabled: body.disabled } });
   return Response.json({ user: updated });

@@ -1,5 +1,6 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
+import type { Knex } from "knex";
 import { db } from "./knex";
 
 export type JobStatus = "queued" | "running" | "done" | "failed" | "cancelled";
@@ -44,13 +45,21 @@ export async function createOrJoinJob(siteId: number, kind: string, key: string,
   });
 }
 
-export async function updateJob(id: string, patch: { status?: JobStatus; progress?: number; message?: string; result?: unknown }): Promise<void> {
-  const row: Record<string, unknown> = { updated_at: db().fn.now(3) };
+/**
+ * Changes a job that is still queued or running, and says whether it did. A job that has ended
+ * (done, failed, cancelled) never changes again, so neither a late progress write nor a cancel that
+ * loses the race to the finish can undo how it ended. The job's own finish passes the transaction
+ * that stores its result: result and "done" then commit together, or not at all if a cancel came first.
+ */
+export async function updateJob(id: string, patch: { status?: JobStatus; progress?: number; message?: string; result?: unknown }, trx?: Knex.Transaction): Promise<boolean> {
+  const q = trx ?? db();
+  const row: Record<string, unknown> = { updated_at: q.fn.now(3) };
   if (patch.status) row.status = patch.status;
   if (patch.progress !== undefined) row.progress = Math.max(0, Math.min(1, patch.progress));
   if (patch.message !== undefined) row.message = patch.message.slice(0, 500);
   if (patch.result !== undefined) row.result = JSON.stringify(patch.result);
-  await db()("jobs").where({ id }).update(row);
+  const changed = await q("jobs").where({ id }).whereIn("status", ["queued", "running"]).update(row);
+  return changed > 0;
 }
 
 export async function getJob(siteId: number, id: string): Promise<JobDTO | null> {

@@ -59,7 +59,8 @@ export class AlreadyPublishedError extends Error {
 }
 
 /** Everything of a layout version in one transaction: it exists whole or not at all. */
-export async function insertLayoutVersion(input: PublishInput): Promise<{ id: number; number: number }> {
+/** `beforeCommit` runs last inside the transaction (the publish job marks itself done there); throwing rolls it all back. */
+export async function insertLayoutVersion(input: PublishInput, beforeCommit?: (trx: Knex.Transaction, stored: { id: number; number: number }) => Promise<void>): Promise<{ id: number; number: number }> {
   const dist = int32ToBytes(input.matrix.dist);
   const next = int32ToBytes(input.matrix.next);
   return db().transaction(async (trx) => {
@@ -103,6 +104,7 @@ export async function insertLayoutVersion(input: PublishInput): Promise<{ id: nu
         return { layout_version_id: v, code: b.code, rack_run: input.rackRunOfBin.get(b.code) ?? "", aisle: b.aisle, bay: b.bay, level: b.level, x: ap?.x ?? 0, y: ap?.y ?? 0, access_point: b.accessPoint };
       }),
     );
+    await beforeCommit?.(trx, { id: v, number });
     return { id: v, number };
   });
 }

@@ -185,7 +185,15 @@ export type StoredBatch = {
  * Replaces the wave's batches with a new plan, if the wave is still at `expectedVersion` and not
  * released. Returns false when someone else changed it first.
  */
-export async function storePlan(waveId: number, expectedVersion: number, batches: StoredBatch[], totals: { distanceMm: number; baselineMm: number }, unbatchable: WaveDTO["unbatchable"]): Promise<boolean> {
+/** `beforeCommit` runs last inside the transaction (the planning job marks itself done there); throwing rolls it all back. */
+export async function storePlan(
+  waveId: number,
+  expectedVersion: number,
+  batches: StoredBatch[],
+  totals: { distanceMm: number; baselineMm: number },
+  unbatchable: WaveDTO["unbatchable"],
+  beforeCommit?: (trx: Knex.Transaction) => Promise<void>,
+): Promise<boolean> {
   return db().transaction(async (trx) => {
     const w = await trx("waves").where({ id: waveId }).forUpdate().first("version", "status");
     if (!w || w.version !== expectedVersion || w.status === "released") return false;
@@ -209,6 +217,7 @@ export async function storePlan(waveId: number, expectedVersion: number, batches
     await trx("waves")
       .where({ id: waveId })
       .update({ status: "planned", version: expectedVersion + 1, distance_mm: totals.distanceMm, baseline_mm: totals.baselineMm, unbatchable: JSON.stringify(unbatchable), planned_at: trx.fn.now(3) });
+    await beforeCommit?.(trx);
     return true;
   });
 }

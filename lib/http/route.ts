@@ -10,6 +10,7 @@ import { originAllowed } from "./origin";
 import { HttpError, jsonError } from "./errors";
 import { zodIssues } from "./zod-issues";
 import { databaseOutage, databaseOutageResponse } from "./db-errors";
+import { readBodyCapped } from "./read-body";
 
 const MAX_JSON_BYTES = 256 * 1024;
 
@@ -37,10 +38,8 @@ function readCookie(req: Request, name: string): string | null {
 }
 
 async function readJson(req: Request): Promise<unknown> {
-  const length = Number(req.headers.get("content-length") ?? 0);
-  if (length > MAX_JSON_BYTES) throw new HttpError(413, `The request is larger than ${MAX_JSON_BYTES / 1024} KiB.`);
-  const text = await req.text();
-  if (text.length > MAX_JSON_BYTES) throw new HttpError(413, `The request is larger than ${MAX_JSON_BYTES / 1024} KiB.`);
+  const bytes = await readBodyCapped(req, MAX_JSON_BYTES, `The request is larger than ${MAX_JSON_BYTES / 1024} KiB.`);
+  const text = new TextDecoder().decode(bytes);
   if (text.trim() === "") return undefined;
   // A form or text body posted from elsewhere is not what our pages send; refusing it keeps the one
   // parser (and its limits) the only way in.

@@ -1,4 +1,5 @@
 import type { RowProblem } from "@/lib/sheets/columns";
+import { unescapeFormula } from "@/lib/sheets/formula-escape";
 import type { FieldDef } from "./fields";
 
 /** Where each field sits in the sheet: a header index, or null for "not in this sheet". */
@@ -57,10 +58,13 @@ export function resolveMapping(
   return { mapping, problems };
 }
 
-/** A row's cell for a field, trimmed; empty when the field is not mapped. */
+/**
+ * A row's cell for a field, trimmed, without the apostrophe an export put before formula-like text;
+ * empty when the field is not mapped.
+ */
 export function cell(row: readonly string[], mapping: ColumnMapping, key: string): string {
   const at = mapping[key];
-  return at === null || at === undefined ? "" : (row[at] ?? "").trim();
+  return at === null || at === undefined ? "" : unescapeFormula((row[at] ?? "").trim());
 }
 
 export const isBlankRow = (row: readonly string[]) => row.every((c) => c.trim() === "");

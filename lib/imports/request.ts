@@ -2,7 +2,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { z } from "zod";
 import { HttpError } from "@/lib/http/errors";
-import { uploadedFile } from "@/lib/http/upload";
+import { uploadedForm } from "@/lib/http/upload";
 import { zodIssues } from "@/lib/http/zod-issues";
 import { MAX_UPLOAD_BYTES } from "@/lib/sheets/read";
 import { isImportKind, type ImportKind } from "./fields";
@@ -25,9 +25,7 @@ const cleanName = (name: string) => name.replace(/[\u0000-\u001f\u007f]/g, "").s
 
 /** The multipart form of a preview or an import: the file (size-checked first), layout version, mapping. */
 export async function readImportRequest(req: Request, kind: ImportKind): Promise<ImportRequest> {
-  // uploadedFile reads a copy of the body, so the form's other fields can still be read here.
-  const bytes = await uploadedFile(req.clone(), MAX_UPLOAD_BYTES, "spreadsheet");
-  const form = await req.formData();
+  const { form, file, bytes } = await uploadedForm(req, MAX_UPLOAD_BYTES, "spreadsheet");
   const text = (name: string) => {
     const v = form.get(name);
     return typeof v === "string" && v !== "" ? v : undefined;
@@ -42,7 +40,6 @@ export async function readImportRequest(req: Request, kind: ImportKind): Promise
       throw new HttpError(400, "The column mapping could not be read. Choose the columns again.");
     }
   }
-  const file = form.get("file");
-  const filename = cleanName(file && typeof file !== "string" ? file.name : "upload");
+  const filename = cleanName(file.name);
   return { kind, bytes, sha256: createHash("sha256").update(bytes).digest("hex"), filename, layoutVersionId: parsed.data.layoutVersionId, mapping };
 }

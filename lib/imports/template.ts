@@ -7,6 +7,10 @@ export const TEMPLATE_SHEET: Record<ImportKind, string> = { items: "Items", orde
 
 export const templateHeader = (kind: ImportKind): string[] => (kind === "items" ? ITEM_FIELDS : ORDER_FIELDS).map((f) => f.aliases[0]);
 
+// The item master export writes formula-like text this way (lib/sheets/formula-escape.ts).
+const APOSTROPHE_NOTE =
+  "Text that starts with = + - or @ is exported with an apostrophe in front, so the spreadsheet shows it as text instead of running it; the import takes that one apostrophe off. To import text that really starts with an apostrophe followed by one of these characters, write two apostrophes.";
+
 const HOW_TO: Record<ImportKind, string[][]> = {
   items: [
     ["How to fill in the item master"],
@@ -19,6 +23,7 @@ const HOW_TO: Record<ImportKind, string[][]> = {
     ["Pick bins", "yes", `One or more location codes of the chosen layout version, separated by “${BIN_SEPARATOR}”. The first is the main pick bin.`, `01-001-1${BIN_SEPARATOR} 01-002-1`],
     [],
     ["Nothing is imported until every row is right: Trailbin lists each row to fix with its row number."],
+    [APOSTROPHE_NOTE],
   ],
   orders: [
     ["How to fill in order lines"],
@@ -33,6 +38,7 @@ const HOW_TO: Record<ImportKind, string[][]> = {
     ["Customer reference", "no", "The customer's own reference, up to 120 characters. Same on every line of an order.", "PO-88812"],
     [],
     ["Nothing is imported until every row is right: Trailbin lists each row to fix with its row number. Importing the same file again changes nothing."],
+    [APOSTROPHE_NOTE],
   ],
 };
 

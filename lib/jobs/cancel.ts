@@ -1,4 +1,6 @@
 import "server-only";
+import type { Knex } from "knex";
+import { updateJob } from "@/db/jobs";
 
 // Jobs run in this server process; a cancel request finds the running one here.
 const globalForJobs = globalThis as unknown as { trailbinJobAborts?: Map<string, AbortController> };
@@ -14,10 +16,22 @@ export function finished(jobId: string): void {
   aborts().delete(jobId);
 }
 
-/** True when the job was running here and has been told to stop. */
-export function cancelJob(jobId: string): boolean {
-  const c = aborts().get(jobId);
-  if (!c) return false;
-  c.abort();
-  return true;
+/** Tells the job's work in this process to stop; the job's row says "cancelled" already. */
+export function stopWork(jobId: string): void {
+  aborts().get(jobId)?.abort();
+}
+
+/** The job ended (cancelled) before its work could store a result; the work drops what it made. */
+export class JobNoLongerRunning extends Error {
+  constructor(readonly jobId: string) {
+    super(`job ${jobId} is no longer running`);
+  }
+}
+
+/**
+ * Marks the job done inside the transaction that stores its result. A job cancelled meanwhile makes
+ * this throw, which rolls the result back: a cancel that answered 202 leaves nothing behind.
+ */
+export async function finishJobIn(trx: Knex.Transaction, jobId: string, done: { message: string; result: unknown }): Promise<void> {
+  if (!(await updateJob(jobId, { status: "done", progress: 1, ...done }, trx))) throw new JobNoLongerRunning(jobId);
 }

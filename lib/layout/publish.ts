@@ -1,6 +1,7 @@
 import "server-only";
 import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
 import { ownJobOrConflict } from "@/lib/jobs/join";
+import { cancellable, finished, finishJobIn, JobNoLongerRunning } from "@/lib/jobs/cancel";
 import { getDraft } from "@/db/floor-plans";
 import { AlreadyPublishedError, insertLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
@@ -49,21 +50,29 @@ async function runPublish(jobId: string, floorPlanId: number, draftVersion: numb
     lastWrite = now;
     void updateJob(jobId, { status: "running", progress: fraction, message }).catch(() => undefined);
   };
+  const signal = cancellable(jobId);
   try {
-    await updateJob(jobId, { status: "running", progress: 0, message: "Reading the draft" });
+    // Cancelled while it waited to start.
+    if (!(await updateJob(jobId, { status: "running", progress: 0, message: "Reading the draft" }))) return;
     const draft = await getDraft(user.siteId, floorPlanId);
     if (!draft || draft.version !== draftVersion) throw new Error("The draft changed while publishing started. Reload it and publish again.");
     const { graph, matrix } = await computeLayout(draft.document, (f, stage) => progress(0.05 + f * 0.8, stage));
+    if (signal.aborted) return;
     progress(0.9, `Storing ${graph.nodes.length} junctions, ${graph.edges.length} corridors and ${graph.bins.length} bins`);
-    const stored = await insertLayoutVersion({ floorPlanId, fromDraftVersion: draftVersion, document: draft.document, graph, matrix, rackRunOfBin: rackRunOfBins(draft.document), userId: user.id });
-    await updateJob(jobId, { status: "done", progress: 1, message: `Published as version ${stored.number}`, result: { layoutVersionId: stored.id, number: stored.number } });
+    const stored = await insertLayoutVersion(
+      { floorPlanId, fromDraftVersion: draftVersion, document: draft.document, graph, matrix, rackRunOfBin: rackRunOfBins(draft.document), userId: user.id },
+      (trx, v) => finishJobIn(trx, jobId, { message: `Published as version ${v.number}`, result: { layoutVersionId: v.id, number: v.number } }),
+    );
     await audit({ event: "layout.published", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, detail: { version: stored.number, bins: graph.bins.length } });
   } catch (e) {
+    if (e instanceof JobNoLongerRunning) return;
     if (e instanceof AlreadyPublishedError) {
       await updateJob(jobId, { status: "done", progress: 1, message: `Already published as version ${e.existing.number}`, result: { layoutVersionId: e.existing.id, number: e.existing.number } });
       return;
     }
     console.error(`publish job ${jobId} failed`, e);
     await updateJob(jobId, { status: "failed", message: `Publishing failed: ${(e as Error).message}` }).catch(() => undefined);
+  } finally {
+    finished(jobId);
   }
 }

@@ -1,3 +1,5 @@
+import { unescapeFormula } from "./formula-escape";
+
 /** Column names a sheet may use for each field; matched ignoring case, spaces, "_" and "-". */
 export type ColumnAliases<K extends string> = Record<K, readonly string[]>;
 
@@ -20,7 +22,8 @@ export function mapColumns<K extends string>(header: readonly string[], aliases:
   return { columns, problems };
 }
 
+/** The cell, trimmed, without the apostrophe an export put before formula-like text. */
 export function cellOf<K extends string>(row: readonly string[], columns: Partial<Record<K, number>>, key: K): string {
   const i = columns[key];
-  return i === undefined ? "" : (row[i] ?? "").trim();
+  return i === undefined ? "" : unescapeFormula((row[i] ?? "").trim());
 }

@@ -6,7 +6,7 @@ import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout/graph-cache";
 import { WAVE_TIME_LIMIT_MS, wavePool } from "@/lib/workers/pool";
-import { cancellable, finished } from "@/lib/jobs/cancel";
+import { cancellable, finished, finishJobIn, JobNoLongerRunning } from "@/lib/jobs/cancel";
 import { RoutingJobError } from "@/lib/routing/pool";
 import type { SignedInUser } from "@/lib/auth/session";
 import { toStoredBatch } from "./to-stored";
@@ -54,7 +54,8 @@ async function runPlan(jobId: string, siteId: number, waveId: number, version: n
   const signal = cancellable(jobId);
   let lastWrite = 0;
   try {
-    await updateJob(jobId, { status: "running", progress: 0, message: "Loading orders and the layout" });
+    // Cancelled while it waited to start.
+    if (!(await updateJob(jobId, { status: "running", progress: 0, message: "Loading orders and the layout" }))) return;
     const wave = await getWave(siteId, waveId);
     if (!wave) throw new Error("the wave was deleted");
     const [orders, { graph, matrix }] = await Promise.all([ordersOfWave(waveId), layoutGraph(wave.layoutVersionId)]);
@@ -78,12 +79,13 @@ async function runPlan(jobId: string, siteId: number, waveId: number, version: n
     const stored = result.batches.map((b) => toStoredBatch(graph, b, byId));
     const totals = { distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0), baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0) };
     const unbatchable = result.unbatchable.map((u) => ({ ...u, orderNumber: byId.get(u.orderId)?.orderNumber }));
-    if (!(await storePlan(waveId, version, stored, totals, unbatchable))) {
+    const saved = totals.baselineMm > 0 ? Math.round((1 - totals.distanceMm / totals.baselineMm) * 1000) / 10 : 0;
+    const done = { message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`, result: { waveId, batches: stored.length } };
+    if (!(await storePlan(waveId, version, stored, totals, unbatchable, (trx) => finishJobIn(trx, jobId, done)))) {
       throw new Error("the wave changed while it was being planned (re-planned or released elsewhere); reload it");
     }
-    const saved = totals.baselineMm > 0 ? Math.round((1 - totals.distanceMm / totals.baselineMm) * 1000) / 10 : 0;
-    await updateJob(jobId, { status: "done", progress: 1, message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`, result: { waveId, batches: stored.length } });
   } catch (e) {
+    if (e instanceof JobNoLongerRunning) return;
     const cancelled = e instanceof RoutingJobError && e.reason === "cancelled";
     if (!cancelled) console.error(`wave planning job ${jobId} failed`, e);
     await updateJob(jobId, cancelled ? { status: "cancelled", message: "Planning was cancelled; the wave is as it was." } : { status: "failed", message: failureMessage(e) }).catch(() => undefined);

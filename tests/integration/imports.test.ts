@@ -7,6 +7,7 @@ import { api, ORIGIN, signInAs } from "../support/app";
 import { smallDocument } from "../support/documents";
 import { closeDb, db } from "@/db/knex";
 import { openOrdersForPlanning } from "@/db/orders";
+import { upsertItems } from "@/db/items";
 import { MAX_UPLOAD_BYTES } from "@/lib/sheets/read";
 
 afterAll(closeDb);
@@ -104,6 +105,38 @@ describe("item master import", () => {
     const row = rows.find((r) => r[0] === sku)!;
     expect(row[1]).toBe("'=HYPERLINK(\"http://x\")");
     expect(Object.values(sheet.Sheets[sheet.SheetNames[0]!]!).some((c) => typeof c === "object" && c && "f" in c)).toBe(false);
+  });
+
+  it("an unchanged export imports back to exactly the same item master", async () => {
+    // Stored as they are (not through an import), so the values are known whatever an import does.
+    const stored = [
+      { sku: `=${fresh("SKU")}`, description: "-20 °C freezer gloves" },
+      { sku: `+${fresh("PLUS")}`, description: "@home delivery pack" },
+      { sku: fresh("APOS"), description: "'=literally an apostrophe then an equals sign" },
+      { sku: `'${fresh("Q")}`, description: "'quoted by hand" },
+      { sku: fresh("WIDE"), description: "＝SUM(A1) ＋ －20 ＠x" },
+      { sku: fresh("TAB"), description: "\tstarts with a tab" },
+      { sku: fresh("ESC"), description: "_x0041_ is not an A" },
+    ].map((i, k) => ({ row: k + 2, ...i, uom: k % 2 ? "-EA" : "EA", unitWeightG: 10 + k, bins: [bins[k % bins.length]!] }));
+    await db().transaction((trx) => upsertItems(trx, 1, stored));
+    const before = await itemsBySku();
+
+    const exported = await api().get("/api/items/export").set("Cookie", planner).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on("data", (c: Buffer) => chunks.push(c));
+      r.on("end", () => cb(null, Buffer.concat(chunks)));
+    });
+    expect(exported.status).toBe(200);
+    const book = XLSX.read(exported.body as Buffer, { type: "buffer" });
+    const cells = XLSX.utils.sheet_to_json<string[]>(book.Sheets[book.SheetNames[0]!]!, { header: 1, raw: false }).flat();
+    expect(cells.filter((c) => /^[=+\-@\t\r\uFF1D\uFF0B\uFF0D\uFF20]/.test(c)), "formula-like cells in the export").toEqual([]);
+
+    const res = await importFile("items", exported.body as Buffer, "item-master.xlsx");
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const after = await itemsBySku();
+    for (const i of stored) expect(after.get(i.sku), i.sku).toEqual({ sku: i.sku, description: i.description, uom: i.uom, unitWeightG: i.unitWeightG, bins: i.bins });
+    expect([...after.keys()].filter((sku) => sku.startsWith("'=") || sku.startsWith("'+")), "SKUs the import made up").toEqual([]);
+    expect(after).toEqual(before);
   });
 
   it("maps columns whose headers differ from the template", async () => {

@@ -182,10 +182,11 @@ main() {
   mariadb_init
   mariadb_start
   mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD"
-  migrate_and_seed
-  # Mail goes to the local sink (SMTP_HOST/SMTP_PORT); links in it point at this app.
-  mail_sink_start "$MAIL_SINK_PORT" "$MAIL_LOG" "$MAIL_PIDFILE"
+  # Before the seed: releasing the demo wave queues a mail whose links point at this app.
   export APP_ORIGIN=${APP_ORIGIN:-$APP_URL}
+  migrate_and_seed
+  # Mail goes to the local sink (SMTP_HOST/SMTP_PORT).
+  mail_sink_start "$MAIL_SINK_PORT" "$MAIL_LOG" "$MAIL_PIDFILE"
 
   if [[ -n ${TRAILBIN_PREBUILT:-} ]]; then
     [[ -f $TRAILBIN_PREBUILT/BUILD_ID ]] || die "TRAILBIN_PREBUILT=$TRAILBIN_PREBUILT holds no finished build (no BUILD_ID)"

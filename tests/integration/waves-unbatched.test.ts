@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, ORIGIN, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
 import { waitForJob } from "../support/jobs";
+import { TestOrders } from "../support/wave-orders";
 
 // Orders of this file's own, with cut-offs in early January 2026 (long before the demo week and the
 // import tests' July orders), so a wave "up to this cut-off" takes exactly these and nothing else.
@@ -10,38 +11,11 @@ const LIMITS = { totesPerCart: 1, maxLines: 12, maxWeightG: 60_000 };
 const OFF_LAYOUT = Array.from({ length: 23 }, (_, i) => `ZZ-${TAG}-${i + 1}`);
 
 let planner: string;
-let siteId: number;
-const orderIds: number[] = [];
-const itemIds: number[] = [];
-const waveIds: number[] = [];
-
-async function addItem(sku: string, bins: string[]): Promise<number> {
-  const [id] = await db()("items").insert({ site_id: siteId, sku, description: `Test item ${sku}`, uom: "EA", unit_weight_g: 200 });
-  itemIds.push(Number(id));
-  if (bins.length) await db()("item_bins").insert(bins.map((bin_code, i) => ({ item_id: Number(id), bin_code, rank: i + 1 })));
-  return Number(id);
-}
-
-async function addOrder(orderNumber: string, cutoff: string, items: number[]): Promise<number> {
-  const [id] = await db()("orders").insert({ site_id: siteId, order_number: orderNumber, priority: 2, cutoff_at: new Date(cutoff), status: "open" });
-  orderIds.push(Number(id));
-  await db()("order_lines").insert(items.map((item_id, i) => ({ order_id: Number(id), line_no: i + 1, item_id, quantity: 1 })));
-  return Number(id);
-}
-
-/** Items of the demo master whose first bin is on layout version 1. */
-async function itemsOnLayout(n: number): Promise<number[]> {
-  return db()("items as i")
-    .join("item_bins as ib", "ib.item_id", "i.id")
-    .join("layout_bins as lb", function () {
-      this.on("lb.code", "=", "ib.bin_code").andOn("lb.layout_version_id", "=", db().raw("1"));
-    })
-    .where("i.site_id", siteId)
-    .distinct("i.id")
-    .orderBy("i.id")
-    .limit(n)
-    .pluck("i.id");
-}
+const fixtures = new TestOrders();
+const { orderIds, waveIds } = fixtures;
+const addItem = fixtures.addItem.bind(fixtures);
+const addOrder = fixtures.addOrder.bind(fixtures);
+const itemsOnLayout = fixtures.itemsOnLayout.bind(fixtures);
 
 async function newWave(cutoffBefore: string) {
   const res = await api()
@@ -64,15 +38,10 @@ async function plan(id: number) {
 
 beforeAll(async () => {
   planner = await signInAs("planner");
-  siteId = (await db()("layout_versions as v").join("floor_plans as p", "p.id", "v.floor_plan_id").where("v.id", 1).first("p.site_id")).site_id;
 });
 
 afterAll(async () => {
-  // Returned orders are open again and a released batch would wait for pickers: take them out so
-  // later files' "everything open" waves and handhelds do not meet them.
-  if (waveIds.length) await db()("waves").whereIn("id", waveIds).delete();
-  if (orderIds.length) await db()("orders").whereIn("id", orderIds).delete();
-  if (itemIds.length) await db()("items").whereIn("id", itemIds).delete();
+  await fixtures.cleanUp();
   await closeDb();
 });
 

@@ -29,7 +29,7 @@ const columns = (timeZone: string): DataColumn<Order>[] => [
   { accessorKey: "lineCount", header: "Lines" },
   { accessorKey: "status", header: "Status" },
   // Set when a released wave handed the order back because no batch could hold it.
-  { id: "note", accessorFn: (o) => o.note ?? "", header: "Why it is open again", cell: ({ row }) => (row.original.note ? <span className="text-sm">⚠ {row.original.note}</span> : "") },
+  { id: "note", accessorFn: (o) => o.note ?? "", header: "Why it is open again", cell: ({ row }) => (row.original.note ? <span className="block min-w-72 text-sm">⚠ {row.original.note}</span> : "") },
 ];
 
 /** Orders by status, and (for planners) the order lines import. Cut-offs show in the site's time. */

@@ -129,6 +129,25 @@ describe("orders no batch holds", () => {
   });
 });
 
+describe("a wave none of whose orders could be batched", () => {
+  it("is not stuck: releasing it hands every order back to open, and no 'wave released' mail goes out for it", async () => {
+    const ids = [
+      await addOrder(`${TAG}-ALLOFF-1`, "2026-01-03T08:00:00Z", [await addItem(`${TAG}-ALLOFF-1`, [`ZZ-${TAG}-A1`])]),
+      await addOrder(`${TAG}-ALLOFF-2`, "2026-01-03T09:00:00Z", [await addItem(`${TAG}-ALLOFF-2`, [])]),
+    ];
+    const created = await newWave("2026-01-03T12:00:00Z");
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const { wave, batches } = await plan(created.body.id);
+    expect(batches).toEqual([]);
+    expect(wave.unbatchable).toHaveLength(2);
+    const res = await api().post(`/api/waves/${wave.id}/release`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: wave.version });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(await db()("orders").whereIn("id", ids).pluck("status")).toEqual(["open", "open"]);
+    expect(await db()("wave_orders").whereIn("order_id", ids).count({ n: "*" }).first()).toEqual({ n: 0 });
+    expect(await db()("outbox").where({ dedupe_key: `wave-released:${wave.id}` }).count({ n: "*" }).first()).toEqual({ n: 0 });
+  });
+});
+
 describe("print history across re-planning", () => {
   let waveId: number;
 

@@ -267,6 +267,24 @@ export async function releaseWave(siteId: number, waveId: number, expectedVersio
   });
 }
 
+/**
+ * Drops a wave that was never released and hands all its orders back to open: the way out for a wave
+ * that cannot be planned as it stands (too big for the time limit, say) or is no longer wanted.
+ */
+export async function discardWave(siteId: number, waveId: number, expectedVersion: number): Promise<{ outcome: "discarded"; orders: number } | { outcome: "missing" | "released" | "stale" }> {
+  return db().transaction(async (trx) => {
+    const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status");
+    if (!w) return { outcome: "missing" as const };
+    if (w.status === "released") return { outcome: "released" as const };
+    if (w.version !== expectedVersion) return { outcome: "stale" as const };
+    const orderIds: number[] = await trx("wave_orders").where({ wave_id: waveId }).pluck("order_id");
+    for (let i = 0; i < orderIds.length; i += 1000) await trx("orders").whereIn("id", orderIds.slice(i, i + 1000)).update({ status: "open" });
+    // Its wave_orders, batches and their lines and print history go with it (foreign keys cascade).
+    await trx("waves").where({ id: waveId }).delete();
+    return { outcome: "discarded" as const, orders: orderIds.length };
+  });
+}
+
 export type BatchSummaryDTO = {
   id: number;
   number: number;

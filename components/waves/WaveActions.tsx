@@ -4,7 +4,7 @@ import { useState } from "react";
 import { postJson } from "@/lib/client/fetch-json";
 import { JobProgress } from "@/components/JobProgress";
 
-type Props = { waveId: number; status: "draft" | "planned" | "released"; version: number; canPlan: boolean; batchCount: number; unbatchedCount: number };
+type Props = { waveId: number; status: "draft" | "planned" | "released"; version: number; canPlan: boolean; batchCount: number; unbatchedCount: number; orderCount: number };
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
@@ -22,9 +22,10 @@ function releaseWords(batchCount: number, unbatchedCount: number): { button: str
   };
 }
 
-export function WaveActions({ waveId, status, version, canPlan, batchCount, unbatchedCount }: Props) {
+export function WaveActions({ waveId, status, version, canPlan, batchCount, unbatchedCount, orderCount }: Props) {
   const [jobId, setJobId] = useState<string | null>(null);
   const [asking, setAsking] = useState(false);
+  const [discarding, setDiscarding] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
@@ -49,6 +50,16 @@ export function WaveActions({ waveId, status, version, canPlan, batchCount, unba
     setError(r.message);
   }
 
+  async function discard() {
+    setDiscarding(false);
+    setBusy(true);
+    setError(null);
+    const r = await postJson(`/api/waves/${waveId}/discard`, { version });
+    if (r.ok) return window.location.assign("/waves");
+    setBusy(false);
+    setError(r.message);
+  }
+
   return (
     <div className="card mt-4 space-y-3">
       <p className="font-semibold">
@@ -64,6 +75,20 @@ export function WaveActions({ waveId, status, version, canPlan, batchCount, unba
               {words.button}
             </button>
           )}
+          <button type="button" className="btn-quiet" onClick={() => setDiscarding(true)} disabled={busy || discarding}>
+            Discard the wave
+          </button>
+        </div>
+      )}
+      {discarding && (
+        <div className="notice-info space-y-3" role="alertdialog" aria-labelledby="discard-question">
+          <p id="discard-question">
+            Discard this wave? Its {orderCount === 1 ? "order goes" : `${orderCount} orders go`} back to open orders, ready for another wave{status === "planned" ? "; its batches and any pick lists printed for them no longer count" : ""}.
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <button type="button" className="btn-primary" onClick={discard} disabled={busy}>Yes, discard it</button>
+            <button type="button" className="btn-quiet" onClick={() => setDiscarding(false)}>Keep the wave</button>
+          </div>
         </div>
       )}
       {asking && words.question && (

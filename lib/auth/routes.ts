@@ -61,5 +61,6 @@ export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
   "/api/waves/[id]": { GET: "waves.read" },
   "/api/waves/[id]/plan": { POST: "waves.plan" },
   "/api/waves/[id]/release": { POST: "waves.plan" },
+  "/api/waves/[id]/discard": { POST: "waves.plan" },
   "/api/waves/[id]/printed": { POST: "waves.plan" },
 };

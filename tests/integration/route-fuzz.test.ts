@@ -230,6 +230,9 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
   "/api/waves/[id]/release": {
     POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
   },
+  "/api/waves/[id]/discard": {
+    POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
+  },
   "/api/waves/[id]/printed": {
     POST: {
       params: (f) => ({ id: String(f.wave.id) }),

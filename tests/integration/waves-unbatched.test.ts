@@ -148,6 +148,34 @@ describe("a wave none of whose orders could be batched", () => {
   });
 });
 
+describe("a wave that cannot or should not be released", () => {
+  it("can be discarded before release: its orders are open again and a new wave can take them; a released wave cannot be", async () => {
+    const [item] = await itemsOnLayout(1);
+    const ids = [await addOrder(`${TAG}-DROP-1`, "2026-01-01T08:00:00Z", [item!]), await addOrder(`${TAG}-DROP-2`, "2026-01-01T09:00:00Z", [item!])];
+    const draft = await newWave("2026-01-01T12:00:00Z");
+    expect(draft.status, JSON.stringify(draft.body)).toBe(201);
+    const discard = (id: number, version: number) => api().post(`/api/waves/${id}/discard`).set("Cookie", planner).set("Origin", ORIGIN).send({ version });
+    expect((await discard(draft.body.id, 2)).status).toBe(409);
+    const res = await discard(draft.body.id, 1);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body).toEqual({ discarded: true, orders: 2 });
+    expect(await db()("orders").whereIn("id", ids).pluck("status")).toEqual(["open", "open"]);
+    expect((await api().get(`/api/waves/${draft.body.id}`).set("Cookie", planner)).status).toBe(404);
+    const again = await discard(draft.body.id, 1);
+    expect(again.status).toBe(404);
+    expect(again.body.error).toMatch(/discarded already/);
+
+    const next = await newWave("2026-01-01T12:00:00Z");
+    expect(next.body.orders).toBe(2);
+    const { wave } = await plan(next.body.id);
+    expect((await api().post(`/api/waves/${wave.id}/release`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: wave.version })).status).toBe(200);
+    const late = await discard(wave.id, wave.version + 1);
+    expect(late.status).toBe(409);
+    expect(late.body.error).toMatch(/released/);
+    expect(await db()("orders").whereIn("id", ids).pluck("status")).toEqual(["released", "released"]);
+  });
+});
+
 describe("print history across re-planning", () => {
   let waveId: number;
 

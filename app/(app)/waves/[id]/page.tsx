@@ -32,7 +32,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
         {wave.orderCount} orders{wave.status === "released" && wave.unbatchable.length > 0 ? ` (and ${wave.unbatchable.length} handed back to open)` : ""} on {wave.floorPlanName}, layout version {wave.layoutVersionNumber}. Carts of {s.totesPerCart} totes, at most {s.maxLines} lines and {s.maxWeightG / 1000} kg; from {s.depotId} to {s.dropoffId};{" "}
         {s.method === "savings" ? "batched by route savings" : "batched first come by cut-off"}.
       </p>
-      <WaveActions waveId={wave.id} status={wave.status} version={wave.version} canPlan={roleMay(user.role, "waves.plan")} batchCount={batches.length} unbatchedCount={wave.unbatchable.length} />
+      <WaveActions waveId={wave.id} status={wave.status} version={wave.version} canPlan={roleMay(user.role, "waves.plan")} batchCount={batches.length} unbatchedCount={wave.unbatchable.length} orderCount={wave.orderCount} />
       <UnbatchedOrders wave={wave} />
       {batches.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
         <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">

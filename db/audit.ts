@@ -25,6 +25,7 @@ export type AuditEvent =
   | "wave.created"
   | "wave.plan_started"
   | "wave.released"
+  | "wave.discarded"
   | "batch.printed"
   | "batch.taken"
   | "pick.confirmed"

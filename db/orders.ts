@@ -6,7 +6,7 @@ import type { OrderRecord } from "@/lib/imports/orders";
 export const ORDER_STATUSES = ["open", "planned", "released"] as const;
 export type OrderStatus = (typeof ORDER_STATUSES)[number];
 
-export type OrderDTO = { id: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: string | null; status: OrderStatus; lineCount: number };
+export type OrderDTO = { id: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: string | null; status: OrderStatus; lineCount: number; note: string | null };
 
 const CHUNK = 500;
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
@@ -17,10 +17,10 @@ export async function listOrders(siteId: number, status?: OrderStatus): Promise<
     .where("o.site_id", siteId)
     .groupBy("o.id")
     .orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number")
-    .select("o.id", "o.order_number", "o.customer_ref", "o.priority", "o.cutoff_at", "o.status", db().raw("count(l.id) as line_count"));
+    .select("o.id", "o.order_number", "o.customer_ref", "o.priority", "o.cutoff_at", "o.status", "o.unbatched_note", db().raw("count(l.id) as line_count"));
   if (status) q.andWhere("o.status", status);
-  const rows = (await q) as { id: number; order_number: string; customer_ref: string | null; priority: number; cutoff_at: Date | null; status: OrderStatus; line_count: number | string }[];
-  return rows.map((r) => ({ id: r.id, orderNumber: r.order_number, customerRef: r.customer_ref, priority: r.priority, cutoffAt: iso(r.cutoff_at), status: r.status, lineCount: Number(r.line_count) }));
+  const rows = (await q) as { id: number; order_number: string; customer_ref: string | null; priority: number; cutoff_at: Date | null; status: OrderStatus; unbatched_note: string | null; line_count: number | string }[];
+  return rows.map((r) => ({ id: r.id, orderNumber: r.order_number, customerRef: r.customer_ref, priority: r.priority, cutoffAt: iso(r.cutoff_at), status: r.status, lineCount: Number(r.line_count), note: r.unbatched_note }));
 }
 
 /** Which of these order numbers exist at the site (upper-cased: the unique key ignores case). */

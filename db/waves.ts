@@ -129,7 +129,7 @@ export async function createWave(siteId: number, input: { name: string; layoutVe
       const chunk = input.orderIds.slice(i, i + 1000);
       await trx("wave_orders").insert(chunk.map((order_id) => ({ order_id, wave_id: waveId })));
       // "planned" = in a wave; the order lists show it apart from the open ones still to plan.
-      await trx("orders").whereIn("id", chunk).update({ status: "planned" });
+      await trx("orders").whereIn("id", chunk).update({ status: "planned", unbatched_note: null });
     }
     return waveId;
   });
@@ -155,6 +155,7 @@ export async function ordersOfWave(waveId: number): Promise<WaveOrder[]> {
       db().raw(
         "(select ib.bin_code from item_bins ib join layout_bins lb on lb.code = ib.bin_code and lb.layout_version_id = w.layout_version_id where ib.item_id = i.id order by ib.`rank`, ib.bin_code limit 1) as bin_code",
       ),
+      db().raw("(select group_concat(ib.bin_code order by ib.`rank`, ib.bin_code separator '\\t') from item_bins ib where ib.item_id = i.id) as item_bins"),
     )
     .orderBy([{ column: "o.id" }, { column: "l.line_no" }]);
   const byOrder = new Map<number, WaveOrder>();
@@ -164,7 +165,14 @@ export async function ordersOfWave(waveId: number): Promise<WaveOrder[]> {
       o = { orderId: r.order_id, orderNumber: r.order_number, cutoffAt: r.cutoff_at ? new Date(r.cutoff_at).toISOString() : null, priority: r.priority, lines: [] };
       byOrder.set(r.order_id, o);
     }
-    o.lines.push({ lineId: r.line_id, sku: r.sku, binCode: r.bin_code ?? "", quantity: r.quantity, unitWeightG: r.unit_weight_g });
+    o.lines.push({
+      lineId: r.line_id,
+      sku: r.sku,
+      binCode: r.bin_code ?? "",
+      ...(r.bin_code ? {} : { itemBins: r.item_bins ? String(r.item_bins).split("\t") : [] }),
+      quantity: r.quantity,
+      unitWeightG: r.unit_weight_g,
+    });
   }
   return [...byOrder.values()];
 }
@@ -226,18 +234,63 @@ async function insertChunks(trx: Knex.Transaction, table: string, rows: Record<s
   for (let i = 0; i < rows.length; i += 1000) await trx(table).insert(rows.slice(i, i + 1000));
 }
 
-/** planned → released, once: a second release of the same version finds nothing to change. */
+/** Orders of the wave that no batch of its plan holds. */
+function ordersInNoBatch(trx: Knex.Transaction, waveId: number) {
+  return trx("wave_orders as wo")
+    .where("wo.wave_id", waveId)
+    .whereNotExists(
+      trx("order_lines as l")
+        .join("batch_lines as bl", "bl.order_line_id", "l.id")
+        .join("batches as b", "b.id", "bl.batch_id")
+        .whereRaw("l.order_id = wo.order_id")
+        .andWhere("b.wave_id", waveId)
+        .select(trx.raw("1")),
+    )
+    .pluck("wo.order_id");
+}
+
+/**
+ * planned → released, once: a second release of the same version finds nothing to change. Orders no
+ * batch holds leave the wave and are open again, each with its reason as a note, so a new wave can
+ * take them once the planner has fixed what stopped them.
+ */
 export async function releaseWave(siteId: number, waveId: number, expectedVersion: number, userId: string | null): Promise<"released" | "stale" | "not-planned"> {
   return db().transaction(async (trx) => {
-    const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status");
+    const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status", "name", "unbatchable");
     if (!w) return "stale";
     if (w.status !== "planned") return w.status === "released" ? "stale" : "not-planned";
     if (w.version !== expectedVersion) return "stale";
+    const leaving = await ordersInNoBatch(trx, waveId);
+    const reasons = new Map((w.unbatchable ? json<WaveDTO["unbatchable"]>(w.unbatchable) : []).map((u) => [u.orderId, u.reason]));
+    for (const orderId of leaving) {
+      const reason = reasons.get(orderId) ?? "No batch of the plan held it.";
+      await trx("orders").where({ id: orderId }).update({ status: "open", unbatched_note: `Not batched in wave “${w.name}”, which was released without it: ${reason}`.slice(0, 1000) });
+    }
+    for (let i = 0; i < leaving.length; i += 1000) await trx("wave_orders").where({ wave_id: waveId }).whereIn("order_id", leaving.slice(i, i + 1000)).delete();
     await trx("waves").where({ id: waveId }).update({ status: "released", version: expectedVersion + 1, released_at: trx.fn.now(3), released_by: userId });
     await trx("batches").where({ wave_id: waveId }).update({ status: "released" });
     await trx("orders").whereIn("id", trx("wave_orders").where({ wave_id: waveId }).select("order_id")).update({ status: "released" });
-    await queueWaveReleasedMail(trx, waveId);
+    // A wave none of whose orders could be batched only hands its orders back: no batches to announce.
+    if (await trx("batches").where({ wave_id: waveId }).first("id")) await queueWaveReleasedMail(trx, waveId);
     return "released";
+  });
+}
+
+/**
+ * Drops a wave that was never released and hands all its orders back to open: the way out for a wave
+ * that cannot be planned as it stands (too big for the time limit, say) or is no longer wanted.
+ */
+export async function discardWave(siteId: number, waveId: number, expectedVersion: number): Promise<{ outcome: "discarded"; orders: number } | { outcome: "missing" | "released" | "stale" }> {
+  return db().transaction(async (trx) => {
+    const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status");
+    if (!w) return { outcome: "missing" as const };
+    if (w.status === "released") return { outcome: "released" as const };
+    if (w.version !== expectedVersion) return { outcome: "stale" as const };
+    const orderIds: number[] = await trx("wave_orders").where({ wave_id: waveId }).pluck("order_id");
+    for (let i = 0; i < orderIds.length; i += 1000) await trx("orders").whereIn("id", orderIds.slice(i, i + 1000)).update({ status: "open" });
+    // Its wave_orders, batches and their lines and print history go with it (foreign keys cascade).
+    await trx("waves").where({ id: waveId }).delete();
+    return { outcome: "discarded" as const, orders: orderIds.length };
   });
 }
 
@@ -351,8 +404,10 @@ export async function getBatch(waveId: number, number: number): Promise<BatchDet
   };
 }
 
-/** Open orders that no wave has claimed yet, matching the planner's filter, most urgent first. */
-export async function unclaimedOpenOrderIds(siteId: number, filter: { cutoffBefore?: Date; priorities?: number[] }): Promise<number[]> {
+export type WaveFilter = { cutoffBefore?: Date; priorities?: number[] };
+
+/** Open orders that no wave has claimed yet and that have lines, matching the planner's filter. */
+function unclaimedOpenOrders(siteId: number, filter: WaveFilter) {
   const q = db()("orders as o")
     .leftJoin("wave_orders as wo", "wo.order_id", "o.id")
     .where({ "o.site_id": siteId, "o.status": "open" })
@@ -360,20 +415,92 @@ export async function unclaimedOpenOrderIds(siteId: number, filter: { cutoffBefo
     .whereExists(db()("order_lines as l").whereRaw("l.order_id = o.id").select(db().raw("1")));
   if (filter.cutoffBefore) q.where("o.cutoff_at", "<=", filter.cutoffBefore);
   if (filter.priorities?.length) q.whereIn("o.priority", filter.priorities);
-  const rows = await q.orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number").select("o.id");
+  return q;
+}
+
+/** Open orders that no wave has claimed yet, matching the planner's filter, most urgent first. */
+export async function unclaimedOpenOrderIds(siteId: number, filter: WaveFilter): Promise<number[]> {
+  const rows = await unclaimedOpenOrders(siteId, filter).orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number").select("o.id");
   return rows.map((r: { id: number }) => r.id);
 }
 
-/** Counts a print of each listed batch and returns how often each had been printed before. */
-export async function recordPrinted(waveId: number, numbers: number[]): Promise<Map<number, number>> {
+export type WavePreviewDTO = {
+  /** What starting a wave with this filter takes now. */
+  orders: number;
+  lines: number;
+  ordersWithoutCutoff: number;
+  /** Lines whose item has no bin on the layout version: their orders cannot be batched on it. */
+  offLayout: { orders: number; lines: number; examples: { orderNumber: string; sku: string; binCodes: string[] }[] };
+};
+
+const PREVIEW_EXAMPLES = 5;
+
+/** What a new wave with this filter would take, and which of its lines no bin of the layout version holds. */
+export async function previewWave(siteId: number, layoutVersionId: number, filter: WaveFilter): Promise<WavePreviewDTO> {
+  const ids = () => unclaimedOpenOrders(siteId, filter).select("o.id");
+  const noBinOnLayout = (q: Knex.QueryBuilder) =>
+    q.whereNotExists(
+      db()("item_bins as ib")
+        .join("layout_bins as lb", "lb.code", "ib.bin_code")
+        .whereRaw("ib.item_id = l.item_id")
+        .andWhere("lb.layout_version_id", layoutVersionId)
+        .select(db().raw("1")),
+    );
+  const [orders, lines, off, examples] = await Promise.all([
+    db().from(ids().as("x")).first(db().raw("count(*) as n")),
+    db()("order_lines as l").whereIn("l.order_id", ids()).first(db().raw("count(*) as n")),
+    noBinOnLayout(db()("order_lines as l").whereIn("l.order_id", ids())).first(db().raw("count(*) as n"), db().raw("count(distinct l.order_id) as orders")),
+    noBinOnLayout(db()("order_lines as l").join("orders as o", "o.id", "l.order_id").join("items as i", "i.id", "l.item_id").whereIn("l.order_id", ids()))
+      .orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number, l.line_no")
+      .limit(PREVIEW_EXAMPLES)
+      .select("o.order_number", "i.sku", "l.item_id"),
+  ]);
+  const without = await unclaimedOpenOrders(siteId, filter).whereNull("o.cutoff_at").first(db().raw("count(*) as n"));
+  const bins = examples.length
+    ? ((await db()("item_bins").whereIn("item_id", examples.map((e: { item_id: number }) => e.item_id)).orderBy(["item_id", "rank", "bin_code"]).select("item_id", "bin_code")) as { item_id: number; bin_code: string }[])
+    : [];
+  return {
+    orders: Number(orders?.n ?? 0),
+    lines: Number(lines?.n ?? 0),
+    ordersWithoutCutoff: Number(without?.n ?? 0),
+    offLayout: {
+      orders: Number(off?.orders ?? 0),
+      lines: Number(off?.n ?? 0),
+      examples: examples.map((e: { order_number: string; sku: string; item_id: number }) => ({ orderNumber: e.order_number, sku: e.sku, binCodes: bins.filter((b) => b.item_id === e.item_id).map((b) => b.bin_code) })),
+    },
+  };
+}
+
+export type PrintOutcome = { unknown: number[]; batchCount: number } | { before: Map<number, number> };
+
+/**
+ * Counts one print of each listed batch (each once, however often listed) and returns how often each
+ * had been printed before. The history is per wave and batch number, so it outlives re-planning.
+ * Nothing is counted when a number names no batch of the wave.
+ */
+export async function recordPrinted(waveId: number, numbers: number[]): Promise<PrintOutcome> {
+  const wanted = [...new Set(numbers)].sort((a, b) => a - b);
   return db().transaction(async (trx) => {
-    const rows = await trx("batches").where({ wave_id: waveId }).whereIn("number", numbers).forUpdate().select("number", "print_count");
-    await trx("batches").where({ wave_id: waveId }).whereIn("number", numbers).increment("print_count", 1);
-    return new Map(rows.map((r: { number: number; print_count: number }) => [r.number, r.print_count]));
+    // The wave row's lock keeps a re-plan from renumbering the batches between the check and the count.
+    await trx("waves").where({ id: waveId }).forUpdate().first("id");
+    const have = new Set<number>(await trx("batches").where({ wave_id: waveId }).whereIn("number", wanted).pluck("number"));
+    const unknown = wanted.filter((n) => !have.has(n));
+    if (unknown.length) {
+      const count = await trx("batches").where({ wave_id: waveId }).first(trx.raw("count(*) as n"));
+      return { unknown, batchCount: Number(count?.n ?? 0) };
+    }
+    const rows = await trx("wave_batch_prints").where({ wave_id: waveId }).whereIn("number", wanted).forUpdate().select("number", "print_count");
+    await trx("wave_batch_prints")
+      .insert(wanted.map((number) => ({ wave_id: waveId, number, print_count: 1, last_printed_at: trx.fn.now(3) })))
+      .onConflict(["wave_id", "number"])
+      .merge({ print_count: trx.raw("print_count + 1"), last_printed_at: trx.fn.now(3) });
+    const before = new Map<number, number>(wanted.map((n) => [n, 0]));
+    for (const r of rows as { number: number; print_count: number }[]) before.set(r.number, r.print_count);
+    return { before };
   });
 }
 
 export async function printCounts(waveId: number): Promise<Map<number, number>> {
-  const rows = await db()("batches").where({ wave_id: waveId }).select("number", "print_count");
+  const rows = await db()("wave_batch_prints").where({ wave_id: waveId }).select("number", "print_count");
   return new Map(rows.map((r: { number: number; print_count: number }) => [r.number, r.print_count]));
 }

@@ -7,7 +7,7 @@ import { ImportPanel } from "@/components/imports/ImportPanel";
 import type { VersionOption } from "@/components/imports/types";
 import { swrFetcher } from "@/lib/client/fetch-json";
 
-type Order = { id: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: string | null; status: "open" | "planned" | "released"; lineCount: number };
+type Order = { id: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: string | null; status: "open" | "planned" | "released"; lineCount: number; note: string | null };
 
 const STATUSES = [
   { value: "open", label: "Open (not yet in a wave)" },
@@ -28,6 +28,8 @@ const columns = (timeZone: string): DataColumn<Order>[] => [
   },
   { accessorKey: "lineCount", header: "Lines" },
   { accessorKey: "status", header: "Status" },
+  // Set when a released wave handed the order back because no batch could hold it.
+  { id: "note", accessorFn: (o) => o.note ?? "", header: "Why it is open again", cell: ({ row }) => (row.original.note ? <span className="block min-w-72 text-sm">⚠ {row.original.note}</span> : "") },
 ];
 
 /** Orders by status, and (for planners) the order lines import. Cut-offs show in the site's time. */

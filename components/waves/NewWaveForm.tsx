@@ -3,14 +3,27 @@
 import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
+import { WavePreview } from "./WavePreview";
 
 export type LayoutChoice = { id: number; label: string; depots: { id: string; name: string }[]; dropoffs: { id: string; name: string }[] };
+
+/** A datetime-local value (the planner's local time) as an ISO instant, or undefined when empty or unfinished. */
+function isoOf(local: string): string | undefined {
+  if (!local) return undefined;
+  const d = new Date(local);
+  return Number.isNaN(d.getTime()) ? undefined : d.toISOString();
+}
 
 export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
   const [layoutId, setLayoutId] = useState(layouts[0]?.id ?? 0);
   const [failure, setFailure] = useState<ApiFailure | null>(null);
   const [busy, setBusy] = useState(false);
+  const [cutoff, setCutoff] = useState("");
+  const [priorities, setPriorities] = useState([1, 2, 3]);
   const layout = layouts.find((l) => l.id === layoutId);
+  const cutoffIso = isoOf(cutoff);
+  // The same filter the wave is created with, so the count shown is the count taken.
+  const previewQuery = priorities.length === 0 ? null : new URLSearchParams({ layoutVersionId: String(layoutId), priorities: priorities.join(","), ...(cutoffIso ? { cutoffBefore: cutoffIso } : {}) }).toString();
 
   if (layouts.length === 0) {
     return <p className="notice-info mt-8">Waves are planned on a published floor plan. Ask a layout admin to publish one first.</p>;
@@ -19,8 +32,8 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
   async function submit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     if (busy) return;
+    if (priorities.length === 0) return setFailure({ ok: false, status: 0, message: "Tick at least one priority: a wave takes orders of the priorities ticked." });
     const f = new FormData(e.currentTarget);
-    const cutoff = String(f.get("cutoffBefore") ?? "");
     setBusy(true);
     const r = await postJson<{ id: number }>("/api/waves", {
       name: String(f.get("name") ?? ""),
@@ -33,8 +46,8 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
         dropoffId: String(f.get("dropoffId")),
         method: String(f.get("method")),
       },
-      cutoffBefore: cutoff ? new Date(cutoff).toISOString() : undefined,
-      priorities: f.getAll("priority").map(Number),
+      cutoffBefore: cutoffIso,
+      priorities,
     });
     if (r.ok) return window.location.assign(`/waves/${r.data.id}`);
     setFailure(r);
@@ -55,18 +68,26 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
       </div>
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="label">Which open orders</legend>
-        <label><span className="label text-sm">Cut-off up to (optional)</span><input name="cutoffBefore" type="datetime-local" className="field" /></label>
+        <label><span className="label text-sm">Cut-off up to (optional)</span><input name="cutoffBefore" type="datetime-local" className="field" value={cutoff} onChange={(e) => setCutoff(e.target.value)} /></label>
         <div className="sm:col-span-2">
           <span className="label text-sm">Priorities</span>
           <div className="flex flex-wrap gap-3">
             {[1, 2, 3].map((p) => (
               <label key={p} className="flex min-h-tap items-center gap-2 rounded-md border-2 border-rack-light px-3">
-                <input type="checkbox" name="priority" value={p} defaultChecked className="h-5 w-5" /> {p === 1 ? "1 (urgent)" : p === 2 ? "2 (normal)" : "3 (low)"}
+                <input
+                  type="checkbox"
+                  name="priority"
+                  value={p}
+                  checked={priorities.includes(p)}
+                  onChange={(e) => setPriorities((ps) => (e.target.checked ? [...ps, p].sort() : ps.filter((x) => x !== p)))}
+                  className="h-5 w-5"
+                /> {p === 1 ? "1 (urgent)" : p === 2 ? "2 (normal)" : "3 (low)"}
               </label>
             ))}
           </div>
         </div>
       </fieldset>
+      <WavePreview query={previewQuery} layoutLabel={layout?.label ?? "this layout version"} noCutoff={!cutoffIso} />
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="label">Cart</legend>
         <label><span className="label text-sm">Totes per cart (one order per tote)</span><input name="totesPerCart" type="number" min={1} max={40} defaultValue={6} className="field" /></label>

@@ -57,8 +57,10 @@ export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
   "/api/batches/[batchId]/pick": { GET: "picks.work" },
   "/api/batches/[batchId]/confirm": { POST: "picks.work" },
   "/api/waves": { GET: "waves.read", POST: "waves.plan" },
+  "/api/waves/preview": { GET: "waves.plan" },
   "/api/waves/[id]": { GET: "waves.read" },
   "/api/waves/[id]/plan": { POST: "waves.plan" },
   "/api/waves/[id]/release": { POST: "waves.plan" },
+  "/api/waves/[id]/discard": { POST: "waves.plan" },
   "/api/waves/[id]/printed": { POST: "waves.plan" },
 };

@@ -2,7 +2,7 @@ import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import { UnreachableStopError } from "@/lib/routing/errors";
 import type { CompactGraph, GraphBin } from "@/lib/routing/graph";
 import { planPick } from "@/lib/routing/plan";
-import type { CartLimits, UnbatchableOrder, WaveOrder } from "./types";
+import type { CartLimits, UnbatchableOrder, WaveLine, WaveOrder } from "./types";
 import { compareUrgency, cutoffMs } from "./urgency";
 import { InsertionRoute, type WalkCosts } from "./walk-costs";
 
@@ -27,6 +27,27 @@ function grams(g: number): string {
   return g >= 1000 ? `${(g / 1000).toFixed(1)} kg` : `${Math.round(g)} g`;
 }
 
+/** Lines named in a reason before "and N more", so one reason stays readable. */
+const NAMED_LINES = 5;
+
+/**
+ * Names each line's SKU with the bins it was looked for in. A line whose item has no bin on the
+ * layout version carries binCode "" and the item master's bins in itemBins.
+ */
+function offLayoutReason(name: string, off: readonly WaveLine[]): string {
+  const where = (l: WaveLine) => {
+    const codes = l.binCode ? [l.binCode] : (l.itemBins ?? []);
+    if (codes.length === 0) return `${l.sku} has no pick bin in the item master`;
+    return `${l.sku} is in ${codes.join(" or ")}`;
+  };
+  const named = off.slice(0, NAMED_LINES).map(where);
+  const more = off.length > NAMED_LINES ? `, and ${off.length - NAMED_LINES} more line${off.length - NAMED_LINES === 1 ? "" : "s"}` : "";
+  const binCount = off.reduce((n, l) => n + (l.binCode ? 1 : (l.itemBins?.length ?? 0)), 0);
+  const those = binCount === 1 ? "that bin" : "those bins";
+  const notOn = binCount > 0 ? `; ${those} ${binCount === 1 ? "is" : "are"} not on the published layout version of this wave` : "";
+  return `${name} cannot be picked on this layout version: ${named.join("; ")}${more}${notOn}. Correct the item master's bins${binCount > 0 ? ` or publish a floor plan with ${those}` : ""}, then plan again.`;
+}
+
 /** Why this order can never be batched on this layout with these limits, or null. */
 function problem(order: WaveOrder, limits: CartLimits, bins: Map<string, GraphBin>, weightG: number): string | null {
   const name = `Order ${order.orderNumber}`;
@@ -37,10 +58,8 @@ function problem(order: WaveOrder, limits: CartLimits, bins: Map<string, GraphBi
   if (badQty) return `${name}: line ${badQty.lineId} (${badQty.sku}) has quantity ${badQty.quantity}; quantities must be positive.`;
   const badWeight = order.lines.find((l) => !(l.unitWeightG >= 0) || !Number.isFinite(l.unitWeightG));
   if (badWeight) return `${name}: ${badWeight.sku} has no valid unit weight in the item master; correct it and plan again.`;
-  const unknown = [...new Set(order.lines.map((l) => l.binCode).filter((c) => !bins.has(c)))];
-  if (unknown.length > 0) {
-    return `${name} picks from ${unknown.join(", ")}, which ${unknown.length === 1 ? "is" : "are"} not on the published layout; correct the item master or publish a floor plan with ${unknown.length === 1 ? "that bin" : "those bins"}.`;
-  }
+  const off = order.lines.filter((l) => !bins.has(l.binCode));
+  if (off.length > 0) return offLayoutReason(name, off);
   if (order.lines.length > limits.maxLines) {
     return `${name} has ${order.lines.length} lines but a cart takes at most ${limits.maxLines}; split the order or raise the cart's line limit.`;
   }

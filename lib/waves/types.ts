@@ -5,6 +5,8 @@ export type WaveLine = {
   lineId: number;
   sku: string;
   binCode: string;
+  /** When no bin of the item is on the wave's layout version (binCode ""): the item master's bins, by rank, for the reason. */
+  itemBins?: string[];
   /** In the item's unit of measure; metres may be fractional. */
   quantity: number;
   unitWeightG: number;

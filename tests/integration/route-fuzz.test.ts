@@ -220,11 +220,17 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
       },
     },
   },
+  "/api/waves/preview": {
+    GET: { query: { layoutVersionId: ["", "0", "abc", "1.5", "9".repeat(30)], cutoffBefore: ["yesterday", "2026-13-40T99:00:00Z"], priorities: ["4", "a", "1,,2", "0"] } },
+  },
   "/api/waves/[id]": { GET: { params: (f) => ({ id: String(f.wave.id) }) } },
   "/api/waves/[id]/plan": {
     POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
   },
   "/api/waves/[id]/release": {
+    POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
+  },
+  "/api/waves/[id]/discard": {
     POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
   },
   "/api/waves/[id]/printed": {

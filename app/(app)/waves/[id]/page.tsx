@@ -8,6 +8,7 @@ import { getSite } from "@/db/sites";
 import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
+import { UnbatchedOrders } from "@/components/waves/UnbatchedOrders";
 import { estimateSeconds } from "@/lib/waves/estimate";
 import { metres, minutes, savingsPct } from "@/lib/format/units";
 
@@ -28,18 +29,11 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
       <p className="mb-2 text-sm"><Link className="underline" href="/waves">Waves</Link> › {wave.name}</p>
       <h1>{wave.name}</h1>
       <p className="mt-1 text-ink-soft">
-        {wave.orderCount} orders on {wave.floorPlanName}, layout version {wave.layoutVersionNumber}. Carts of {s.totesPerCart} totes, at most {s.maxLines} lines and {s.maxWeightG / 1000} kg; from {s.depotId} to {s.dropoffId};{" "}
+        {wave.orderCount} orders{wave.status === "released" && wave.unbatchable.length > 0 ? ` (and ${wave.unbatchable.length} handed back to open)` : ""} on {wave.floorPlanName}, layout version {wave.layoutVersionNumber}. Carts of {s.totesPerCart} totes, at most {s.maxLines} lines and {s.maxWeightG / 1000} kg; from {s.depotId} to {s.dropoffId};{" "}
         {s.method === "savings" ? "batched by route savings" : "batched first come by cut-off"}.
       </p>
-      <WaveActions waveId={wave.id} status={wave.status} version={wave.version} canPlan={roleMay(user.role, "waves.plan")} />
-      {wave.unbatchable.length > 0 && (
-        <div className="notice-error mt-4" role="alert">
-          <p className="font-semibold">{wave.unbatchable.length} orders could not be batched:</p>
-          <ul className="list-disc pl-5">
-            {wave.unbatchable.slice(0, 20).map((u) => <li key={u.orderId}><span className="font-semibold">{u.orderNumber ?? u.orderId}</span>: {u.reason}</li>)}
-          </ul>
-        </div>
-      )}
+      <WaveActions waveId={wave.id} status={wave.status} version={wave.version} canPlan={roleMay(user.role, "waves.plan")} batchCount={batches.length} unbatchedCount={wave.unbatchable.length} orderCount={wave.orderCount} />
+      <UnbatchedOrders wave={wave} />
       {batches.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
         <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">
           <dl className="card grid grid-cols-2 gap-3">

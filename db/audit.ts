@@ -27,6 +27,7 @@ export type AuditEvent =
   | "wave.released"
   | "batch.printed"
   | "batch.taken"
+  | "batch.given-back"
   | "pick.confirmed"
   | "pick.short";
 

@@ -4,6 +4,7 @@ import { HttpError } from "@/lib/http/errors";
 import { rowVersion } from "@/lib/http/body-fields";
 import { countActiveAdmins, getUser, updateUser } from "@/db/users";
 import { audit } from "@/db/audit";
+import { releaseBatchesOf } from "@/db/picking";
 import { ROLES } from "@/lib/auth/permissions";
 
 const Change = z
@@ -25,6 +26,7 @@ export const PATCH = route({ access: "users.manage", body: Change }, async ({ us
   }
   const updated = await updateUser(id, body.version, body);
   if (!updated) throw new HttpError(409, "Someone changed this user while you were looking. Reload the list and try again.");
+  if (updated.disabled || (target.role === "picker" && updated.role !== "picker")) await releaseBatchesOf(id);
   await audit({ event: "user.changed", actorUserId: user.id, subject: id, ip, detail: { role: body.role, disabled: body.disabled } });
   return Response.json({ user: updated });
 });

@@ -245,7 +245,14 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
         </p>
         {stop.binCodes.length > 1 && (
           <p className="font-semibold" data-testid="stop-bins">
-            This stop has {stop.binCodes.length} bins: {stop.binCodes.join(", ")}. Each line says its bin.
+            This stop has {stop.binCodes.length} bins:{" "}
+            {stop.binCodes.map((code, i) => (
+              <span key={code} className="whitespace-nowrap font-mono">
+                {code}
+                {i < stop.binCodes.length - 1 ? ", " : ""}
+              </span>
+            ))}
+            . Each line says its bin.
           </p>
         )}
         <ul className="space-y-2">

@@ -21,7 +21,8 @@ export const POST = route({ access: "picks.work", body: GiveBack }, async ({ use
     throw new HttpError(403, "This batch is not on your handheld, so you cannot give it back.");
   }
   if (before.status === "done") throw new HttpError(409, "This batch is picked to the end; there is nothing to give back.");
-  if (before.status === "planned" || !before.assignedTo) throw new HttpError(409, "Nobody holds this batch: it is already waiting to be taken.");
+  if (before.status === "planned") throw new HttpError(409, "This batch is not released yet, so nobody holds it.");
+  if (!before.assignedTo) throw new HttpError(409, "Nobody holds this batch: it is already waiting to be taken.");
   if (!(await giveBackBatch(user.siteId, id, body.version, user.id, anyHolder))) throw new HttpError(409, "This batch changed since you loaded it. Reload and try again.");
   await audit({ event: "batch.given-back", actorUserId: user.id, subject: `batch:${id}`, ip, detail: { from: before.assignedTo } });
   return Response.json({ batch: await getPickBatch(user.siteId, id) });

@@ -28,6 +28,7 @@ export type AuditEvent =
   | "wave.discarded"
   | "batch.printed"
   | "batch.taken"
+  | "batch.given-back"
   | "pick.confirmed"
   | "pick.short";
 

@@ -145,20 +145,58 @@ export async function myBatches(siteId: number, userId: string): Promise<MyBatch
   return rows.map(toMyBatch);
 }
 
-/** The oldest released batch nobody holds yet: the one "Take the next batch" offers. */
+/** Taken and not finished: what counts against a picker's cap, and what goes back to the pool. */
+const OPEN_STATUSES = ["released", "picking"] as const;
+
+/**
+ * The batch "Take the next batch" offers: nobody holds it and it has work left. One already started
+ * (given back half-picked, or begun by an admin) comes first, so started carts are finished first.
+ */
 export async function nextUnassignedBatch(siteId: number): Promise<MyBatchDTO | null> {
-  const r = await batchesWithCounts(siteId).whereNull("b.assigned_to").where("b.status", "released").orderByRaw("w.released_at, b.wave_id, b.number").first();
+  const r = await batchesWithCounts(siteId).whereNull("b.assigned_to").whereIn("b.status", OPEN_STATUSES).orderByRaw("b.status = 'picking' desc, w.released_at, b.wave_id, b.number").first();
   return r ? toMyBatch(r) : null;
 }
 
-/** Assigns a released batch to the user if nobody holds it and it is still at `version`: exactly one taker wins. */
-export async function takeBatch(siteId: number, batchId: number, version: number, userId: string): Promise<boolean> {
-  const n = await db()("batches")
-    .where({ id: batchId, version, status: "released" })
-    .whereNull("assigned_to")
-    .whereIn("wave_id", db()("waves").where({ site_id: siteId }).select("id"))
-    .update({ assigned_to: userId, version: version + 1 });
-  return Number(n) === 1;
+export type TakeOutcome = "taken" | "lost" | "cap";
+
+/**
+ * Assigns an unfinished batch nobody holds to the user if it is still at `version`: exactly one taker
+ * wins. The taker's user row is locked first, so parallel takes by one picker are counted one after
+ * the other and never pass the site's cap together.
+ */
+export async function takeBatch(siteId: number, batchId: number, version: number, userId: string, cap: number): Promise<TakeOutcome> {
+  return db().transaction(async (trx) => {
+    await trx("users").where({ id: userId }).forUpdate().first("id");
+    const held = await trx("batches").where({ assigned_to: userId }).whereIn("status", OPEN_STATUSES).count({ n: "*" }).first();
+    if (Number(held?.n ?? 0) >= cap) return "cap" as const;
+    const n = await trx("batches")
+      .where({ id: batchId, version })
+      .whereIn("status", OPEN_STATUSES)
+      .whereNull("assigned_to")
+      .whereIn("wave_id", trx("waves").where({ site_id: siteId }).select("id"))
+      .update({ assigned_to: userId, version: version + 1 });
+    return Number(n) === 1 ? ("taken" as const) : ("lost" as const);
+  });
+}
+
+/**
+ * Puts an unfinished batch back in the pool, lines already picked staying picked. A picker gives back
+ * only their own; `anyHolder` (an admin) may give back anyone's. The version moves on, so confirmations
+ * still queued on the old holder's handheld are refused instead of landing on the next holder's batch.
+ */
+export async function giveBackBatch(siteId: number, batchId: number, version: number, userId: string, anyHolder: boolean): Promise<boolean> {
+  const q = db()("batches")
+    .where({ id: batchId, version })
+    .whereIn("status", OPEN_STATUSES)
+    .whereNotNull("assigned_to")
+    .whereIn("wave_id", db()("waves").where({ site_id: siteId }).select("id"));
+  if (!anyHolder) q.where({ assigned_to: userId });
+  return Number(await q.update({ assigned_to: null, version: version + 1 })) === 1;
+}
+
+/** Every unfinished batch a user holds goes back to the pool (when they are disabled or stop being a picker). */
+export async function releaseBatchesOf(userId: string): Promise<number> {
+  return Number(await db()("batches").where({ assigned_to: userId }).whereIn("status", OPEN_STATUSES).update({ assigned_to: null, version: db().raw("version + 1") }));
 }
 
 export type StoredAnswer = { status: number; body: Record<string, unknown> };
@@ -191,7 +229,7 @@ const isDuplicate = (e: unknown) => (e as { code?: string; errno?: number })?.co
  * on different batches queued behind each other). The line changes only while it is still open, and
  * the audit row of a pick commits with it.
  */
-export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batchStatus: PickBatchStatus) => Decision, audited: { ip: string | null }): Promise<ConfirmOutcome> {
+export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batch: { status: PickBatchStatus; version: number }) => Decision, audited: { ip: string | null }): Promise<ConfirmOutcome> {
   try {
     return await db().transaction(async (trx) => {
       // Locks the batch row and the line's row only: the subqueries are plain reads (InnoDB locks
@@ -202,6 +240,7 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
         .forUpdate()
         .first(
           "b.status",
+          "b.version",
           "bl.order_line_id",
           "bl.bin_code",
           "bl.pick_status",
@@ -213,7 +252,7 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
       const status = row.status as PickBatchStatus;
       const d = decide(
         row.order_line_id === null ? null : { orderLineId: Number(row.order_line_id), binCode: String(row.bin_code), sku: String(row.sku), quantity: Number(row.quantity), pickStatus: row.pick_status },
-        status,
+        { status, version: Number(row.version) },
       );
       let answer: StoredAnswer = d.answer;
       const event = d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null;

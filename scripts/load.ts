@@ -7,6 +7,7 @@ import { cpus, loadavg } from "node:os";
 import { readFileSync, writeFileSync } from "node:fs";
 import { closeDb } from "../db/knex";
 import { pickLedger } from "../db/picking-ledger";
+import { setMaxOpenBatchesPerPicker } from "../db/sites";
 import { mulberry32 } from "../lib/routing/random";
 import { api } from "./load/api";
 import { drain, runPhase } from "./load/cannon";
@@ -56,6 +57,8 @@ async function main() {
   // "My batches", which the table shows.
   const linesPerHandheld = Math.ceil(rate * seconds * 0.95) + Math.ceil(saturationSeconds * 8) + 5;
   const a = api(origin);
+  // Enough 30-line carts per handheld for its lines, past the site's everyday cap.
+  await setMaxOpenBatchesPerPicker(Math.ceil(linesPerHandheld / 30) + 2);
   const t0 = performance.now();
   const setup = await setUpLoad(a, { handhelds: HANDHELDS, linesPerHandheld, planOrders: PLAN_ORDERS, log });
   const lines = setup.handhelds.reduce((n, h) => n + h.batches.reduce((m, b) => m + b.lines.length, 0), 0);

@@ -27,6 +27,16 @@ export function MyBatches({ initial }: { initial: Answer }) {
     await mutate();
   }
 
+  async function giveBack(b: MyBatchDTO) {
+    setBusy(true);
+    setMessage(null);
+    const r = await postJson<unknown>(`/api/batches/${b.id}/give-back`, { version: b.version });
+    setBusy(false);
+    if (r.ok) setMessage({ kind: "info", text: `Batch ${b.number} is back in the pool for the next picker.${b.lineCount > b.openLines ? " Leave the cart at the depot with its totes as they are: the lines you picked stay picked." : ""}` });
+    else setMessage({ kind: "error", text: r.message });
+    await mutate();
+  }
+
   return (
     <div className="space-y-4">
       {message && (
@@ -57,6 +67,9 @@ export function MyBatches({ initial }: { initial: Answer }) {
                 <Link className="btn-primary mt-3 w-full" href={`/pick/${b.id}`}>
                   {b.status === "picking" ? "Continue picking" : "Start picking"} batch {b.number}
                 </Link>
+                <button type="button" className="btn-quiet mt-2 w-full" onClick={() => void giveBack(b)} disabled={busy}>
+                  Give back batch {b.number}
+                </button>
               </li>
             );
           })}

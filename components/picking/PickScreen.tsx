@@ -9,7 +9,8 @@ import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/editor/document";
 import type { PickLineState } from "@/db/picking";
 import type { PickViewDTO } from "@/lib/picking/view";
-import { CAUTION_TEXT, scanMatches, SHORT_REASONS, walkingOrder, type ShortReason } from "@/lib/picking/rules";
+import { CAUTION_TEXT, lineForScan, SHORT_REASONS, tapHoldMs, walkingOrder, type ShortReason } from "@/lib/picking/rules";
+import { newIdempotencyKey } from "@/lib/picking/key";
 import { enqueue, flushQueue, readQueue, type QueuedConfirmation } from "@/lib/picking/queue";
 
 type Local = { status: "picked" | "short"; pickedQty: number; shortReason: string | null };
@@ -35,6 +36,10 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   const [shortReason, setShortReason] = useState<ShortReason>("empty bin");
   const scanRef = useRef<HTMLInputElement>(null);
   const flushing = useRef(false);
+  // The line the tap button confirms, set only once that line has been on screen for a moment.
+  const [armed, setArmed] = useState<number | null>(null);
+  const armedRef = useRef<number | null>(null);
+  const lastBin = useRef<string | null>(null);
   const again = useRef(false);
 
   const stateOf = useCallback((l: PickLineState) => local[l.orderLineId]?.status ?? l.pickStatus, [local]);
@@ -47,6 +52,19 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   const openLines = view.stops.reduce((n, s) => n + s.lines.filter((l) => stateOf(l) === "open").length, 0);
 
   const focusScan = () => setTimeout(() => scanRef.current?.focus(), 0);
+
+  const shownId = line?.orderLineId ?? null;
+  const shownBin = line?.binCode ?? null;
+  useEffect(() => {
+    armedRef.current = null;
+    setArmed(null);
+    if (shownId === null || shownBin === null) return;
+    const timer = setTimeout(() => {
+      armedRef.current = shownId;
+      setArmed(shownId);
+    }, tapHoldMs(lastBin.current, shownBin));
+    return () => clearTimeout(timer);
+  }, [shownId, shownBin]);
 
   const flush = useCallback(async () => {
     const s = store();
@@ -112,10 +130,13 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
     return () => clearInterval(timer);
   }, [waiting]);
 
-  function record(l: PickLineState, c: Omit<QueuedConfirmation, "idempotencyKey">) {
+  function record(l: PickLineState, c: Omit<QueuedConfirmation, "idempotencyKey" | "binCode" | "batchVersion">) {
     const s = store();
+    armedRef.current = null;
+    setArmed(null);
+    lastBin.current = l.binCode;
     // One key per action, made here on the device: every resend of this action carries it.
-    const q: QueuedConfirmation = { idempotencyKey: crypto.randomUUID(), ...c };
+    const q: QueuedConfirmation = { idempotencyKey: newIdempotencyKey(), ...c, binCode: l.binCode, batchVersion: view.batch.version };
     setLocal((m) => ({ ...m, [l.orderLineId]: { status: c.short ? "short" : "picked", pickedQty: c.quantity, shortReason: c.short?.reason ?? null } }));
     if (s) setWaiting(enqueue(s, batchId, q).length);
     void flush();
@@ -128,18 +149,23 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
     const value = scan.trim();
     setScan("");
     if (!value) return;
-    if (!scanMatches(value, line)) {
+    const open = stop?.lines.filter((l) => stateOf(l) === "open") ?? [];
+    const target = lineForScan(value, line, open);
+    if (!target) {
       navigator.vibrate?.(200);
-      setFeedback({ kind: "wrong", text: `Wrong scan. That is ${value}; this stop is bin ${line.binCode} (SKU ${line.sku}). Scan again.` });
+      const bins = [...new Set(open.map((l) => l.binCode))];
+      const where = bins.length > 1 ? `bins ${bins.join(", ")}` : `bin ${line.binCode} (SKU ${line.sku})`;
+      setFeedback({ kind: "wrong", text: `Wrong scan. That is ${value}; this stop is ${where}. Scan again.` });
       focusScan();
       return;
     }
-    setFeedback({ kind: "ok", text: `${line.quantity} ${line.uom} ${line.sku} into tote ${line.tote}: picked.` });
-    record(line, { orderLineId: line.orderLineId, scan: value, quantity: line.quantity });
+    setFeedback({ kind: "ok", text: `${target.quantity} ${target.uom} ${target.sku} from bin ${target.binCode} into tote ${target.tote}: picked.` });
+    record(target, { orderLineId: target.orderLineId, scan: value, quantity: target.quantity });
   }
 
   function onTap() {
-    if (!line) return;
+    // A second tap of a double tap finds the button disarmed, whatever line is on screen by then.
+    if (!line || armedRef.current !== line.orderLineId) return;
     setFeedback({ kind: "ok", text: `${line.quantity} ${line.uom} ${line.sku} into tote ${line.tote}: picked.` });
     record(line, { orderLineId: line.orderLineId, quantity: line.quantity });
   }
@@ -217,11 +243,26 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
         <p className="font-mono text-3xl font-bold tracking-wide" data-testid="stop-location">
           {line.binCode}
         </p>
+        {stop.binCodes.length > 1 && (
+          <p className="font-semibold" data-testid="stop-bins">
+            This stop has {stop.binCodes.length} bins:{" "}
+            {stop.binCodes.map((code, i) => (
+              <span key={code} className="whitespace-nowrap font-mono">
+                {code}
+                {i < stop.binCodes.length - 1 ? ", " : ""}
+              </span>
+            ))}
+            . Each line says its bin.
+          </p>
+        )}
         <ul className="space-y-2">
           {stop.lines.map((l) => {
             const st = stateOf(l);
             return (
               <li key={l.orderLineId} className={`rounded-md border-2 p-3 ${l === line ? "border-trail" : "border-rack-light"}`} data-testid="stop-line">
+                <p className="font-mono text-lg font-semibold" data-testid="line-bin">
+                  Bin {l.binCode}
+                </p>
                 <p className="text-xl font-bold">
                   {l.quantity} {l.uom} · {l.sku}
                 </p>
@@ -254,8 +295,8 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
         </label>
         <input id="scan" ref={scanRef} className="field font-mono text-xl" autoFocus autoComplete="off" autoCapitalize="characters" spellCheck={false} enterKeyHint="done" value={scan} onChange={(e) => setScan(e.target.value)} />
       </form>
-      <button type="button" className="btn-primary min-h-16 w-full text-xl" onClick={onTap}>
-        Picked {line.quantity} {line.uom}
+      <button type="button" className="btn-primary min-h-16 w-full text-xl" onClick={onTap} disabled={armed !== line.orderLineId} data-line-id={line.orderLineId}>
+        Picked {line.quantity} {line.uom} from {line.binCode}
       </button>
       <div className="grid grid-cols-2 gap-2">
         <button

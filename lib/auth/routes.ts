@@ -54,6 +54,7 @@ export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
   "/api/imports/[kind]/template": { GET: "waves.plan" },
   "/api/my-batches": { GET: "picks.work" },
   "/api/batches/[batchId]/take": { POST: "picks.work" },
+  "/api/batches/[batchId]/give-back": { POST: "picks.work" },
   "/api/batches/[batchId]/pick": { GET: "picks.work" },
   "/api/batches/[batchId]/confirm": { POST: "picks.work" },
   "/api/waves": { GET: "waves.read", POST: "waves.plan" },

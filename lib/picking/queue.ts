@@ -7,6 +7,9 @@ export type QueuedConfirmation = {
   scan?: string;
   quantity: number;
   short?: { reason: string };
+  /** What the screen showed when the picker confirmed: the server refuses the pick if either no longer holds. */
+  binCode: string;
+  batchVersion: number;
 };
 
 export interface KeyValueStore {

@@ -16,15 +16,37 @@ export function scanMatches(scan: string, line: { binCode: string; sku: string }
   return s !== "" && (s === norm(line.binCode) || s === norm(line.sku));
 }
 
+/**
+ * The open line of a stop that a scan confirms: the one shown first if the scan is its bin or SKU,
+ * otherwise any other open line of the stop in the scanned bin (a stop can span bins on both sides
+ * of an aisle, or levels of one bay).
+ */
+export function lineForScan<L extends { binCode: string; sku: string }>(scan: string, shown: L, openLines: readonly L[]): L | null {
+  if (scanMatches(scan, shown)) return shown;
+  return openLines.find((l) => scanMatches(scan, l)) ?? null;
+}
+
+/**
+ * How long the tap button stays disabled once a new line is on screen: a second tap of a quick
+ * double tap lands well within it, so it cannot confirm a line the picker has not yet seen. A line in
+ * another bin waits longer, since the picker must walk there before a tap can be meant for it.
+ */
+export const TAP_HOLD_MS = 700;
+export const NEW_BIN_TAP_HOLD_MS = 1500;
+export const tapHoldMs = (previousBin: string | null, bin: string) => (previousBin !== null && norm(previousBin) !== norm(bin) ? NEW_BIN_TAP_HOLD_MS : TAP_HOLD_MS);
+
 export type CheckLine = { binCode: string; sku: string; quantity: number; pickStatus: "open" | "picked" | "short" };
-export type ConfirmRequest = { scan?: string; quantity: number; short?: { reason: string } };
+/** What the handheld saw when the picker confirmed: the line's bin and the batch's version (it changes when the batch is taken or given back). */
+export type ConfirmRequest = { scan?: string; quantity: number; short?: { reason: string }; binCode: string; batchVersion: number };
 export type Verdict = { status: number; error?: string; apply?: { status: "picked" | "short"; pickedQty: number; shortReason: string | null } };
 
 /** What the server answers to one confirmation, given the line as it is now. */
-export function judgeConfirmation(line: CheckLine | null, batchStatus: string, req: ConfirmRequest): Verdict {
-  if (batchStatus === "planned") return { status: 409, error: "This batch is not released yet. Ask your planner." };
+export function judgeConfirmation(line: CheckLine | null, batch: { status: string; version: number }, req: ConfirmRequest): Verdict {
+  if (batch.status === "planned") return { status: 409, error: "This batch is not released yet. Ask your planner." };
+  if (batch.version !== req.batchVersion) return { status: 409, error: "This batch was given back or taken by someone since your screen loaded it, so nothing was recorded. Go back to My batches." };
   if (!line) return { status: 404, error: "That line is not in this batch. Reload the batch." };
   if (line.pickStatus !== "open") return { status: 409, error: "This line is already confirmed." };
+  if (norm(req.binCode) !== norm(line.binCode)) return { status: 409, error: `Your screen showed bin ${req.binCode.trim()} for this line, but it is in bin ${line.binCode}. Nothing was recorded: reload the batch.` };
   if (req.scan !== undefined && !scanMatches(req.scan, line)) {
     return { status: 422, error: `That is ${req.scan.trim() || "an empty scan"}; this stop is bin ${line.binCode} (SKU ${line.sku}). Scan again.` };
   }

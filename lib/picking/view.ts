@@ -22,7 +22,8 @@ export type PickStopDTO = {
 };
 
 export type PickViewDTO = {
-  batch: { id: number; waveName: string; number: number; status: PickBatchRow["status"]; assignedName: string | null };
+  /** `version` goes back with every confirmation: it changes when the batch is taken or given back. */
+  batch: { id: number; waveName: string; number: number; status: PickBatchRow["status"]; version: number; assignedName: string | null };
   depot: string;
   dropoff: string;
   stops: PickStopDTO[];
@@ -53,7 +54,7 @@ export async function pickView(siteId: number, b: PickBatchRow): Promise<{ view:
   const legs = batchLegs(loaded.graph, loaded.matrix, b.depotId, b.dropoffId, stops.map((s) => s.accessPoint));
   const { document, highLevels } = facts;
   const view: PickViewDTO = {
-    batch: { id: b.id, waveName: b.waveName, number: b.number, status: b.status, assignedName: b.assignedName },
+    batch: { id: b.id, waveName: b.waveName, number: b.number, status: b.status, version: b.version, assignedName: b.assignedName },
     depot: document ? placeName(document, b.depotId) : b.depotId,
     dropoff: document ? placeName(document, b.dropoffId) : b.dropoffId,
     stops: stops.map((s, i) => {

@@ -69,7 +69,7 @@ export class Handheld {
 
   private confirmation(kind: KeyRecord["kind"], line: PickLine, scan: string, quantity: number, short: boolean): Shot {
     const key = randomUUID();
-    const body = { idempotencyKey: key, orderLineId: line.orderLineId, scan, quantity, ...(short ? { short: { reason: "empty bin" } } : {}) };
+    const body = { idempotencyKey: key, orderLineId: line.orderLineId, binCode: line.binCode, batchVersion: line.batchVersion, scan, quantity, ...(short ? { short: { reason: "empty bin" } } : {}) };
     this.ledger.set(key, { key, batchId: line.batchId, orderLineId: line.orderLineId, userId: this.account.userId, quantity, short, kind, statuses: [] });
     return { kind, method: "POST", path: `/api/batches/${line.batchId}/confirm`, body: JSON.stringify(body), key, line };
   }

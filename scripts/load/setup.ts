@@ -6,7 +6,7 @@ import { DEMO_ACCOUNTS } from "../../lib/demo-accounts";
 import { mulberry32, randomInt } from "../../lib/routing/random";
 import { type Api, ApiError, signIn } from "./api";
 
-export type PickLine = { batchId: number; orderLineId: number; binCode: string; sku: string; quantity: number };
+export type PickLine = { batchId: number; batchVersion: number; orderLineId: number; binCode: string; sku: string; quantity: number };
 export type HandheldAccount = { index: number; email: string; userId: string; cookie: string; batches: { id: number; lines: PickLine[] }[] };
 export type LoadSetup = {
   handhelds: HandheldAccount[];
@@ -141,13 +141,13 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
   }
 
   log("loading each batch's lines in walking order");
-  type View = { stops: { lines: { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: string }[] }[] };
+  type View = { batch: { version: number }; stops: { lines: { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: string }[] }[] };
   await inBatches(
     people.flatMap((h) => h.batches.map((b) => ({ h, b }))),
     8,
     async ({ h, b }) => {
       const { body } = await a.call<View>("GET", `/api/batches/${b.id}/pick`, { cookie: h.cookie });
-      b.lines = body.stops.flatMap((s) => s.lines.filter((l) => l.pickStatus === "open").map((l) => ({ batchId: b.id, orderLineId: l.orderLineId, binCode: l.binCode, sku: l.sku, quantity: l.quantity })));
+      b.lines = body.stops.flatMap((s) => s.lines.filter((l) => l.pickStatus === "open").map((l) => ({ batchId: b.id, batchVersion: body.batch.version, orderLineId: l.orderLineId, binCode: l.binCode, sku: l.sku, quantity: l.quantity })));
     },
   );
 

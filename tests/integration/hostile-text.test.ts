@@ -71,13 +71,14 @@ describe("hostile text is stored exactly and comes back the same through the JSO
 
   it("a short-pick reason is one of the handheld's fixed choices: free text is refused and nothing is recorded", async () => {
     const batchId = s.batchIds[0]!;
-    const line = await db()("batch_lines").where({ batch_id: batchId }).whereNot({ order_line_id: s.shortLineId }).first("order_line_id", "pick_status");
+    const line = await db()("batch_lines").where({ batch_id: batchId }).whereNot({ order_line_id: s.shortLineId }).first("order_line_id", "pick_status", "bin_code");
+    const { version: batchVersion } = await db()("batches").where({ id: batchId }).first("version");
     for (const reason of HOSTILE) {
       const res = await api()
         .post(`/api/batches/${batchId}/confirm`)
         .set("Cookie", s.pickerCookie)
         .set("Origin", ORIGIN)
-        .send({ idempotencyKey: `${s.tag}-reason-${HOSTILE.indexOf(reason)}`, orderLineId: line.order_line_id, quantity: 0, short: { reason } });
+        .send({ idempotencyKey: `${s.tag}-reason-${HOSTILE.indexOf(reason)}`, orderLineId: line.order_line_id, quantity: 0, short: { reason }, binCode: line.bin_code, batchVersion });
       expect(res.status).toBe(400);
     }
     expect(await db()("batch_lines").where({ order_line_id: line.order_line_id }).first("pick_status", "short_reason")).toEqual({ pick_status: line.pick_status, short_reason: null });

@@ -173,12 +173,15 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
   "/api/batches/[batchId]/take": {
     POST: { params: (f) => ({ batchId: String(f.pickerBatch.id) }), body: { example: (f) => ({ version: f.pickerBatch.version }), fields: { version: id }, probe: { params: { batchId: "999999" }, status: 404 } } },
   },
+  "/api/batches/[batchId]/give-back": {
+    POST: { params: (f) => ({ batchId: String(f.pickerBatch.id) }), body: { example: (f) => ({ version: f.pickerBatch.version }), fields: { version: id }, probe: { params: { batchId: "999999" }, status: 404 } } },
+  },
   "/api/batches/[batchId]/pick": { GET: { params: (f) => ({ batchId: String(f.pickerBatch.id) }) } },
   "/api/batches/[batchId]/confirm": {
     POST: {
       params: (f) => ({ batchId: String(f.pickerBatch.id) }),
       body: {
-        example: () => ({ idempotencyKey: "fuzz-key-000001", orderLineId: 1, scan: "A-01-1", quantity: 2, short: { reason: SHORT_REASONS[0] } }),
+        example: () => ({ idempotencyKey: "fuzz-key-000001", orderLineId: 1, scan: "A-01-1", quantity: 2, short: { reason: SHORT_REASONS[0] }, binCode: "A-01-1", batchVersion: 1 }),
         fields: {
           idempotencyKey: { kind: "string", min: 8, max: 64, trimmed: true },
           orderLineId: id,
@@ -186,6 +189,8 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
           quantity: { kind: "int", min: 0, max: 1_000_000 },
           short: { kind: "enum", values: [] },
           "short.reason": { kind: "enum", values: SHORT_REASONS },
+          binCode: { kind: "string", min: 1, max: 100, trimmed: true },
+          batchVersion: id,
         },
         probe: { params: { batchId: "999999" }, status: 404 },
       },

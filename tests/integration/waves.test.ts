@@ -175,7 +175,7 @@ describe("the planner sees picking as it happens", () => {
       .post(`/api/batches/${batch.id}/confirm`)
       .set("Cookie", picker)
       .set("Origin", ORIGIN)
-      .send({ idempotencyKey: `short-${id}-${line.order_line_id}`, orderLineId: line.order_line_id, quantity: 0, short: { reason: "empty bin" } });
+      .send({ idempotencyKey: `short-${id}-${line.order_line_id}`, orderLineId: line.order_line_id, quantity: 0, short: { reason: "empty bin" }, binCode: line.bin_code, batchVersion: took.body.batch.version });
     expect(short.status, JSON.stringify(short.body)).toBeLessThan(300);
     const seen = (await api().get(`/api/waves/${id}`).set("Cookie", planner)).body;
     expect(seen.shortPicks).toEqual([expect.objectContaining({ batchNumber: 1, binCode: line.bin_code, ordered: line.quantity, picked: 0, reason: "empty bin" })]);

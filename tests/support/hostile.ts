@@ -140,8 +140,9 @@ export async function buildHostileScenario() {
     expect(took.status, JSON.stringify(took.body)).toBe(200);
   }
   const batchId = batches[0]!.id as number;
-  const line = await db()("batch_lines").where({ batch_id: batchId }).orderBy("order_line_id").first("order_line_id");
-  const short = await post(`/api/batches/${batchId}/confirm`, pickerCookie).send({ idempotencyKey: `${tag}-short`, orderLineId: line.order_line_id, quantity: 0, short: { reason: "other" } });
+  const line = await db()("batch_lines").where({ batch_id: batchId }).orderBy("order_line_id").first("order_line_id", "bin_code");
+  const { version: batchVersion } = await db()("batches").where({ id: batchId }).first("version");
+  const short = await post(`/api/batches/${batchId}/confirm`, pickerCookie).send({ idempotencyKey: `${tag}-short`, orderLineId: line.order_line_id, quantity: 0, short: { reason: "other" }, binCode: line.bin_code, batchVersion });
   expect(short.status, JSON.stringify(short.body)).toBeLessThan(300);
 
   return { tag, admin, planner, users, picker, pickerCookie, planIds, planNames, planId, layoutVersionId, items, orders, waveId, waveName, batchIds: batches.map((b: { id: number }) => b.id), shortLineId: line.order_line_id as number };

@@ -4,6 +4,7 @@ import { HttpError } from "@/lib/http/errors";
 import { rowVersion } from "@/lib/http/body-fields";
 import { getUser, LastAdminError, updateUser } from "@/db/users";
 import { audit } from "@/db/audit";
+import { releaseBatchesOf } from "@/db/picking";
 import { ROLES } from "@/lib/auth/permissions";
 
 const Change = z
@@ -24,6 +25,7 @@ export const PATCH = route({ access: "users.manage", body: Change }, async ({ us
     throw e;
   });
   if (!updated) throw new HttpError(409, "Someone changed this user while you were looking. Reload the list and try again.");
+  if (updated.disabled || (target.role === "picker" && updated.role !== "picker")) await releaseBatchesOf(id);
   await audit({ event: "user.changed", actorUserId: user.id, subject: id, ip, detail: { role: body.role, disabled: body.disabled } });
   return Response.json({ user: updated });
 });

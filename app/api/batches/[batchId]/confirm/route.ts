@@ -2,7 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
-import { rowId } from "@/lib/http/body-fields";
+import { rowId, rowVersion } from "@/lib/http/body-fields";
 import { mayWorkBatch } from "@/lib/picking/access";
 import { confirmPick } from "@/lib/picking/confirm";
 import { SHORT_REASONS } from "@/lib/picking/rules";
@@ -13,6 +13,9 @@ const Confirm = z.object({
   scan: z.string().max(100).optional(),
   quantity: z.number().int().min(0).max(1_000_000),
   short: z.object({ reason: z.enum(SHORT_REASONS) }).optional(),
+  // What the screen showed, so a tap can only confirm the line the picker saw.
+  binCode: z.string().trim().min(1, "Say which bin your screen showed for this line. Reload the batch.").max(100),
+  batchVersion: rowVersion(),
 });
 
 export const POST = route({ access: "picks.work", body: Confirm }, async ({ user, params, body, ip, req }) => {

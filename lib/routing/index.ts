@@ -4,6 +4,7 @@ export * from "./constants";
 export * from "./drawing";
 export * from "./graph";
 export * from "./build-graph";
+export * from "./kept-lines";
 export * from "./diagnostics";
 export * from "./floyd-warshall";
 export * from "./access";

@@ -55,6 +55,26 @@ function checkShape(d: GridDrawing): void {
   }
 }
 
+function specialCells(d: GridDrawing): { special: Set<number>; misplacedPoints: string[] } {
+  const special = new Set<number>();
+  const misplacedPoints: string[] = [];
+  for (const p of [...d.depots, ...d.dropoffs]) {
+    if (inGrid(d, p.x, p.y) && d.cells[cellIndex(d, p.x, p.y)] === "floor") special.add(cellIndex(d, p.x, p.y));
+    else misplacedPoints.push(p.id);
+  }
+  return { special, misplacedPoints };
+}
+
+/** How many nodes buildGraph would make, without making them: cheap enough for the editor's live checks. */
+export function junctionCount(d: GridDrawing, options: BuildOptions = {}): number {
+  checkShape(d);
+  const lines = options.compress === false ? allLines(d) : keptLines(d);
+  const { special } = specialCells(d);
+  let n = 0;
+  for (let y = 0; y < d.height; y++) for (let x = 0; x < d.width; x++) if (d.cells[cellIndex(d, x, y)] === "floor" && isNodeCell(d, lines, x, y, special)) n++;
+  return n;
+}
+
 /**
  * Turns a grid drawing into the compact corridor graph. Deterministic: nodes are numbered in
  * row-major cell order, edges in the order they are met walking from each node N, E, S, W,
@@ -63,12 +83,7 @@ function checkShape(d: GridDrawing): void {
 export function buildGraph(d: GridDrawing, options: BuildOptions = {}): CompactGraph {
   checkShape(d);
   const lines = options.compress === false ? allLines(d) : keptLines(d);
-  const special = new Set<number>();
-  const misplacedPoints: string[] = [];
-  for (const p of [...d.depots, ...d.dropoffs]) {
-    if (inGrid(d, p.x, p.y) && d.cells[cellIndex(d, p.x, p.y)] === "floor") special.add(cellIndex(d, p.x, p.y));
-    else misplacedPoints.push(p.id);
-  }
+  const { special, misplacedPoints } = specialCells(d);
 
   const cellCount = d.width * d.height;
   const nodeOfCell = new Int32Array(cellCount).fill(-1);

@@ -5,6 +5,7 @@ export * from "./drawing";
 export * from "./graph";
 export * from "./build-graph";
 export * from "./kept-lines";
+export * from "./limits";
 export * from "./diagnostics";
 export * from "./floyd-warshall";
 export * from "./access";

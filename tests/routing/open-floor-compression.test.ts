@@ -116,6 +116,25 @@ describe("open floor compression", () => {
     expect(finite).toBeGreaterThan(0);
   });
 
+  it.each(Array.from({ length: 40 }, (_, i) => i + 1))("random floor %i: every compressed edge is a straight run of floor cells, and no cell lies inside two edges", (seed) => {
+    const d = randomFloor(seed);
+    const graph = buildGraph(d);
+    const inside = new Set<number>();
+    const nodeCells = new Set(graph.nodes.map((n) => n.y * d.width + n.x));
+    for (const e of graph.edges) {
+      expect(e.lengthMm).toBe((e.cells.length - 1) * d.cellMm);
+      const step = e.cells[1]! - e.cells[0]!;
+      expect([1, -1, d.width, -d.width]).toContain(step);
+      e.cells.forEach((c, i) => {
+        expect(d.cells[c]).toBe("floor");
+        if (i > 0) expect(c - e.cells[i - 1]!).toBe(step);
+        if (i === 0 || i === e.cells.length - 1) return expect(nodeCells.has(c)).toBe(true);
+        expect(nodeCells.has(c) || inside.has(c)).toBe(false);
+        inside.add(c);
+      });
+    }
+  });
+
   it("an open hall several cells wide does not become one junction per cell", () => {
     // 60 × 40 cells, all floor: a depot and a drop-off at the front, two rack runs facing the hall.
     const d = emptyDrawing(60, 40, 1000);

@@ -63,6 +63,10 @@ describe("publishing a large floor plan", () => {
     // dist and next are each n² Int32s: together they would not fit in one packet.
     expect(8 * junctions ** 2).toBeGreaterThan(packet);
     expect(stored.matrix.dist.length).toBe(junctions ** 2);
+    const [pieces] = await db().raw("SELECT COUNT(*) AS n, MAX(LENGTH(bytes)) AS largest FROM layout_matrix_chunks WHERE layout_version_id = ?", [job.result.layoutVersionId]);
+    expect(Number(pieces[0].n)).toBeGreaterThan(2);
+    // Sent as hex, a piece's statement is about twice its bytes: it must fit in a packet with room to spare.
+    expect(2 * Number(pieces[0].largest)).toBeLessThan(packet / 2);
 
     // Outside check: the stored distances between a few junctions equal Dijkstra (graphology) on the raw cell grid.
     const drawing = toGridDrawing(doc);

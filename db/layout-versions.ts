@@ -37,6 +37,34 @@ export function matrixChecksum(dist: Buffer, next: Buffer): string {
   return createHash("sha256").update(dist).update(next).digest("hex");
 }
 
+/**
+ * Rows of an n × n Int32 matrix per stored piece. mysql2 sends a Buffer as hex text (two characters a
+ * byte), so a piece of packet / 8 bytes makes a statement of about a quarter of the packet: room for
+ * the rest of the statement and for a server whose setting is lowered later. At most 4 MiB a piece.
+ */
+export function matrixRowsPerChunk(n: number, maxAllowedPacket: number): number {
+  const bytes = Math.min(4 * 2 ** 20, Math.floor(maxAllowedPacket / 8));
+  return Math.max(1, Math.floor(bytes / (4 * Math.max(1, n))));
+}
+
+async function maxAllowedPacket(trx: Knex.Transaction): Promise<number> {
+  const [rows] = await trx.raw("SELECT @@max_allowed_packet AS p");
+  return Number(rows[0].p);
+}
+
+async function insertMatrix(trx: Knex.Transaction, layoutVersionId: number, matrix: "dist" | "next", bytes: Buffer, n: number, rowsPerChunk: number) {
+  for (let chunk = 0, row = 0; row < n; chunk++, row += rowsPerChunk) {
+    const end = Math.min(n, row + rowsPerChunk);
+    await trx("layout_matrix_chunks").insert({ layout_version_id: layoutVersionId, matrix, chunk, first_row: row, bytes: bytes.subarray(row * n * 4, end * n * 4) });
+  }
+}
+
+/** The stored pieces of one matrix joined again, or null when the version keeps its matrices inline. */
+async function readMatrix(q: Knex | Knex.Transaction, layoutVersionId: number, matrix: "dist" | "next"): Promise<Buffer | null> {
+  const rows = await q("layout_matrix_chunks").where({ layout_version_id: layoutVersionId, matrix }).orderBy("chunk").select("bytes");
+  return rows.length ? Buffer.concat(rows.map((r: { bytes: Buffer }) => r.bytes)) : null;
+}
+
 const CHUNK = 1000;
 async function insertChunked(trx: Knex.Transaction, table: string, rows: Record<string, unknown>[]) {
   for (let i = 0; i < rows.length; i += CHUNK) await trx(table).insert(rows.slice(i, i + CHUNK));
@@ -79,12 +107,19 @@ export async function insertLayoutVersion(input: PublishInput, beforeCommit?: (t
       node_count: input.graph.nodes.length,
       edge_count: input.graph.edges.length,
       bin_count: input.graph.bins.length,
-      dist_matrix: dist,
-      next_matrix: next,
+      dist_matrix: null,
+      next_matrix: null,
       matrix_sha256: matrixChecksum(dist, next),
       published_by: input.userId,
     });
     const v = Number(id);
+    const rowsPerChunk = matrixRowsPerChunk(input.matrix.n, await maxAllowedPacket(trx));
+    await insertMatrix(trx, v, "dist", dist, input.matrix.n, rowsPerChunk);
+    await insertMatrix(trx, v, "next", next, input.matrix.n, rowsPerChunk);
+    // Read back before committing: a version whose matrices do not come back whole is never published.
+    const none = Buffer.alloc(0);
+    const back = matrixChecksum((await readMatrix(trx, v, "dist")) ?? none, (await readMatrix(trx, v, "next")) ?? none);
+    if (back !== matrixChecksum(dist, next)) throw new Error(`layout version ${v}: the stored matrices do not read back as written`);
     await insertChunked(trx, "layout_nodes", input.graph.nodes.map((n) => ({ layout_version_id: v, node: n.id, x: n.x, y: n.y, kind: n.kind, label: n.label ?? null })));
     await insertChunked(
       trx,
@@ -180,9 +215,11 @@ export async function loadLayoutGraph(layoutVersionId: number): Promise<{ graph:
     unattachedBins: [],
     misplacedPoints: [],
   };
-  const checksumOk = matrixChecksum(v.dist_matrix, v.next_matrix) === v.matrix_sha256;
+  const distBytes: Buffer = v.dist_matrix ?? (await readMatrix(db(), layoutVersionId, "dist")) ?? Buffer.alloc(0);
+  const nextBytes: Buffer = v.next_matrix ?? (await readMatrix(db(), layoutVersionId, "next")) ?? Buffer.alloc(0);
   const n = nodes.length;
-  return { graph, matrix: { n, dist: bytesToInt32(v.dist_matrix), next: bytesToInt32(v.next_matrix) }, checksumOk };
+  const checksumOk = distBytes.length === 4 * n * n && matrixChecksum(distBytes, nextBytes) === v.matrix_sha256;
+  return { graph, matrix: { n, dist: bytesToInt32(distBytes), next: bytesToInt32(nextBytes) }, checksumOk };
 }
 
 export async function listLayoutBins(layoutVersionId: number): Promise<BinRowDTO[]> {

@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # npm run bench: the benchmarks, printed as tables (not tests: nothing here passes or fails on time).
-#   1. routing engine (scripts/bench.ts)   2. wave batching (scripts/bench-waves.ts)
+#   1. routing engine (scripts/bench.ts), largest floor plan (scripts/bench-graph-size.ts)
+#   2. wave batching (scripts/bench-waves.ts)
 #   3. order sheet import into MariaDB (scripts/bench-import.ts), on a private server in .data/bench
 #      on 127.0.0.1:33063 that is stopped again at the end.
 set -euo pipefail
@@ -17,6 +18,8 @@ main() {
   ensure_debian_packages
   ensure_node_modules
   node --import tsx scripts/bench.ts "$@"
+  echo
+  node --import tsx scripts/bench-graph-size.ts
   echo
   node --import tsx scripts/bench-waves.ts
   echo

@@ -12,6 +12,9 @@ export interface RunBin extends DrawingBin {
   runId: string;
 }
 
+/** Longest location code the database stores (layout_bins.code is VARCHAR(32)). */
+export const MAX_CODE_LENGTH = 32;
+
 const PLACEHOLDER = /\{(aisle|bay|level)(?::(\d))?\}/g;
 
 /** Fills a location code pattern such as "{aisle:2}-{bay:3}-{level}"; ":n" pads with zeros to n digits. */

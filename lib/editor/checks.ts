@@ -1,9 +1,9 @@
 import { binAccessCell, type GridDrawing } from "@/lib/routing/drawing";
 import type { EditorDocument, RackRun } from "./document";
-import { bayAt, rackRunBins, rackRunCells, unusedCustomCodes } from "./bin-codes";
+import { bayAt, MAX_CODE_LENGTH, rackRunBins, rackRunCells, unusedCustomCodes } from "./bin-codes";
 import { toGridDrawing } from "./to-drawing";
 import { connectedTo, groupsOf, reachableFrom, reachingTo } from "./reachability";
-import { engineOnlyProblems } from "./engine-checks";
+import { engineOnlyProblems, graphSizeProblems } from "./engine-checks";
 
 export type ProblemKind =
   | "no-depot"
@@ -12,6 +12,8 @@ export type ProblemKind =
   | "duplicate-id"
   | "rack-overlap"
   | "duplicate-code"
+  | "code-too-long"
+  | "too-many-junctions"
   | "bin-unreachable"
   | "no-path"
   | "one-way-trap"
@@ -48,6 +50,7 @@ export function checkDocument(doc: EditorDocument): Problem[] {
     ...pointProblems(doc, d),
     ...overlapProblems(doc),
     ...codeProblems(doc),
+    ...codeLengthProblems(doc),
     ...faceProblems(doc, d),
     ...walkProblems(doc, d),
     ...markProblems(doc, d),
@@ -67,7 +70,7 @@ export function checkDocument(doc: EditorDocument): Problem[] {
   if (doc.rackRuns.length === 0) {
     problems.push({ kind: "no-bins", severity: "warning", cells: [], message: "There are no rack runs yet, so there is nothing to pick. Draw rack runs with the rack run tool." });
   }
-  problems.push(...engineOnlyProblems(d, problems));
+  problems.push(...engineOnlyProblems(d, problems), ...graphSizeProblems(d));
   // Errors first; otherwise the order the checks found them, so the list does not jump while editing.
   return [...problems.filter((p) => p.severity === "error"), ...problems.filter((p) => p.severity === "warning")];
 }
@@ -162,6 +165,23 @@ function codeProblems(doc: EditorDocument): Problem[] {
       message: `${whose} (${count(g.codes.length, "code")}: ${sample}). Change the aisle, first bay or pattern so every bin has its own code.`,
     };
   });
+}
+
+function codeLengthProblems(doc: EditorDocument): Problem[] {
+  const out: Problem[] = [];
+  for (const run of doc.rackRuns) {
+    const long = rackRunBins(run).filter((b) => b.code.length > MAX_CODE_LENGTH);
+    if (long.length === 0) continue;
+    const longest = long.reduce((a, b) => (b.code.length > a.code.length ? b : a));
+    out.push({
+      kind: "code-too-long",
+      severity: "error",
+      runId: run.id,
+      cells: [...new Set(long.map((b) => cellOf(doc, b.x, b.y)))],
+      message: `${runName(run)}: the location code pattern “${run.pattern}” makes ${count(long.length, "code")} longer than ${MAX_CODE_LENGTH} characters, such as “${longest.code}” (${longest.code.length}); a location code may have at most ${MAX_CODE_LENGTH}. Shorten the pattern's text or its zero padding (the 3 in {bay:3}).`,
+    });
+  }
+  return out;
 }
 
 function faceProblems(doc: EditorDocument, d: GridDrawing): Problem[] {

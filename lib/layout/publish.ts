@@ -10,6 +10,7 @@ import { checkDocument } from "@/lib/editor/checks";
 import type { SignedInUser } from "@/lib/auth/session";
 import { computeLayout } from "./compute";
 import { rackRunOfBins } from "./build";
+import { publishFailureMessage } from "./publish-failure";
 
 export type PublishResult = { layoutVersionId: number; number: number };
 
@@ -55,7 +56,7 @@ async function runPublish(jobId: string, floorPlanId: number, draftVersion: numb
     // Cancelled while it waited to start.
     if (!(await updateJob(jobId, { status: "running", progress: 0, message: "Reading the draft" }))) return;
     const draft = await getDraft(user.siteId, floorPlanId);
-    if (!draft || draft.version !== draftVersion) throw new Error("The draft changed while publishing started. Reload it and publish again.");
+    if (!draft || draft.version !== draftVersion) throw new HttpError(409, "The draft changed while publishing started. Reload it and publish again.");
     const { graph, matrix } = await computeLayout(draft.document, (f, stage) => progress(0.05 + f * 0.8, stage));
     if (signal.aborted) return;
     progress(0.9, `Storing ${graph.nodes.length} junctions, ${graph.edges.length} corridors and ${graph.bins.length} bins`);
@@ -71,7 +72,7 @@ async function runPublish(jobId: string, floorPlanId: number, draftVersion: numb
       return;
     }
     console.error(`publish job ${jobId} failed`, e);
-    await updateJob(jobId, { status: "failed", message: `Publishing failed: ${(e as Error).message}` }).catch(() => undefined);
+    await updateJob(jobId, { status: "failed", message: publishFailureMessage(e, jobId) }).catch(() => undefined);
   } finally {
     finished(jobId);
   }

@@ -1,16 +1,30 @@
 import { canStep, cellIndex, binAccessCell, inGrid, opposite, SIDES, SIDE_DX, SIDE_DY } from "./drawing";
 import type { GridDrawing, Side } from "./drawing";
 import type { AccessPoint, CompactGraph, GraphBin, GraphEdge, GraphNode, UnattachedBin } from "./graph";
+import { allLines, keptLines, type KeptLines } from "./kept-lines";
 
-/** Rule of one step between neighbours: bit 1 = forward allowed, bit 2 = backward allowed. */
-function stepRule(d: GridDrawing, x: number, y: number, dir: Side): number {
+export interface BuildOptions {
+  /**
+   * Drop the rows and columns of open floor that no shortest walk needs (lib/routing/kept-lines.ts),
+   * so an open hall does not become one junction per cell. Default true; false keeps every cell.
+   */
+  compress?: boolean;
+}
+
+/** Rule of one step between neighbours along a kept line: bit 1 = forward allowed, bit 2 = backward allowed. */
+function stepRule(d: GridDrawing, lines: KeptLines, x: number, y: number, dir: Side): number {
+  if (!(dir === "E" || dir === "W" ? lines.rows[y] : lines.cols[x])) return 0;
   const nx = x + SIDE_DX[dir];
   const ny = y + SIDE_DY[dir];
   return (canStep(d, x, y, dir) ? 1 : 0) | (canStep(d, nx, ny, opposite(dir)) ? 2 : 0);
 }
 
-function linkedSides(d: GridDrawing, x: number, y: number): Side[] {
-  return SIDES.filter((s) => stepRule(d, x, y, s) !== 0);
+function linkedSides(d: GridDrawing, lines: KeptLines, x: number, y: number): Side[] {
+  return SIDES.filter((s) => stepRule(d, lines, x, y, s) !== 0);
+}
+
+function onKeptLine(lines: KeptLines, x: number, y: number): boolean {
+  return lines.rows[y] === 1 || lines.cols[x] === 1;
 }
 
 /**
@@ -18,14 +32,15 @@ function linkedSides(d: GridDrawing, x: number, y: number): Side[] {
  * where the one-way rule changes along a straight run (so every edge has a single direction rule
  * and any point on it is reached the same way as its ends).
  */
-function isNodeCell(d: GridDrawing, x: number, y: number, special: Set<number>): boolean {
+function isNodeCell(d: GridDrawing, lines: KeptLines, x: number, y: number, special: Set<number>): boolean {
+  if (!onKeptLine(lines, x, y)) return false;
   if (special.has(cellIndex(d, x, y))) return true;
-  const sides = linkedSides(d, x, y);
+  const sides = linkedSides(d, lines, x, y);
   if (sides.length !== 2) return true;
   const [a, b] = sides as [Side, Side];
   if (b !== opposite(a)) return true;
-  const incoming = stepRule(d, x - SIDE_DX[b], y - SIDE_DY[b], b);
-  const outgoing = stepRule(d, x, y, b);
+  const incoming = stepRule(d, lines, x - SIDE_DX[b], y - SIDE_DY[b], b);
+  const outgoing = stepRule(d, lines, x, y, b);
   return incoming !== outgoing;
 }
 
@@ -40,19 +55,35 @@ function checkShape(d: GridDrawing): void {
   }
 }
 
-/**
- * Turns a grid drawing into the compact corridor graph. Deterministic: nodes are numbered in
- * row-major cell order, edges in the order they are met walking from each node N, E, S, W,
- * and access points in row-major order of their floor cell.
- */
-export function buildGraph(d: GridDrawing): CompactGraph {
-  checkShape(d);
+function specialCells(d: GridDrawing): { special: Set<number>; misplacedPoints: string[] } {
   const special = new Set<number>();
   const misplacedPoints: string[] = [];
   for (const p of [...d.depots, ...d.dropoffs]) {
     if (inGrid(d, p.x, p.y) && d.cells[cellIndex(d, p.x, p.y)] === "floor") special.add(cellIndex(d, p.x, p.y));
     else misplacedPoints.push(p.id);
   }
+  return { special, misplacedPoints };
+}
+
+/** How many nodes buildGraph would make, without making them: cheap enough for the editor's live checks. */
+export function junctionCount(d: GridDrawing, options: BuildOptions = {}): number {
+  checkShape(d);
+  const lines = options.compress === false ? allLines(d) : keptLines(d);
+  const { special } = specialCells(d);
+  let n = 0;
+  for (let y = 0; y < d.height; y++) for (let x = 0; x < d.width; x++) if (d.cells[cellIndex(d, x, y)] === "floor" && isNodeCell(d, lines, x, y, special)) n++;
+  return n;
+}
+
+/**
+ * Turns a grid drawing into the compact corridor graph. Deterministic: nodes are numbered in
+ * row-major cell order, edges in the order they are met walking from each node N, E, S, W,
+ * and access points in row-major order of their floor cell.
+ */
+export function buildGraph(d: GridDrawing, options: BuildOptions = {}): CompactGraph {
+  checkShape(d);
+  const lines = options.compress === false ? allLines(d) : keptLines(d);
+  const { special, misplacedPoints } = specialCells(d);
 
   const cellCount = d.width * d.height;
   const nodeOfCell = new Int32Array(cellCount).fill(-1);
@@ -60,7 +91,7 @@ export function buildGraph(d: GridDrawing): CompactGraph {
   for (let y = 0; y < d.height; y++) {
     for (let x = 0; x < d.width; x++) {
       const c = cellIndex(d, x, y);
-      if (d.cells[c] !== "floor" || !isNodeCell(d, x, y, special)) continue;
+      if (d.cells[c] !== "floor" || !isNodeCell(d, lines, x, y, special)) continue;
       nodeOfCell[c] = nodes.length;
       nodes.push({ id: nodes.length, x, y, kind: "junction" });
     }
@@ -84,8 +115,8 @@ export function buildGraph(d: GridDrawing): CompactGraph {
   const offsetOfCell = new Int32Array(cellCount);
   const edges: GraphEdge[] = [];
   for (const u of nodes) {
-    for (const dir of linkedSides(d, u.x, u.y)) {
-      const rule = stepRule(d, u.x, u.y, dir);
+    for (const dir of linkedSides(d, lines, u.x, u.y)) {
+      const rule = stepRule(d, lines, u.x, u.y, dir);
       const cells = [cellIndex(d, u.x, u.y)];
       let x = u.x;
       let y = u.y;

@@ -4,6 +4,8 @@ export * from "./constants";
 export * from "./drawing";
 export * from "./graph";
 export * from "./build-graph";
+export * from "./kept-lines";
+export * from "./limits";
 export * from "./diagnostics";
 export * from "./floyd-warshall";
 export * from "./access";

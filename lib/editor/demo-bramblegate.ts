@@ -1,7 +1,7 @@
 import { DOCUMENT_FORMAT, GROUND, type EditorDocument, type RackRun } from "./document";
 
 /*
- * Bramblegate, the invented warehouse of the invented Fennick Supply Co. (see DESIGN.md), one cell per
+ * Bramblegate, the invented warehouse of the invented Fennick Supply Co. (see docs/design.md), one cell per
  * metre. North (row 0) is the back wall, the front with the dock doors is to the south.
  *
  *   row 0        back wall

@@ -1,5 +1,5 @@
 /*
- * The invented item master of the invented Fennick Supply Co., a hardware wholesaler (see DESIGN.md).
+ * The invented item master of the invented Fennick Supply Co., a hardware wholesaler (see docs/design.md).
  * Descriptions and weights are made up for the demo; weights are rough per unit of measure.
  */
 export type UnitOfMeasure = "EA" | "BOX" | "PK" | "M";

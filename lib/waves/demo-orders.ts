@@ -5,7 +5,7 @@ import { fennickCatalogue, type CatalogueItem } from "./demo-catalogue";
 import type { WaveOrder } from "./types";
 
 /*
- * Invented demo data for the invented Fennick Supply Co. (see DESIGN.md): an item master slotted into
+ * Invented demo data for the invented Fennick Supply Co. (see docs/design.md): an item master slotted into
  * the demo floor plan and a week of trade orders. Seeded, so the same seed gives the same data.
  */
 

@@ -1,7 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 
 export type FloorPlanSummary = {
   id: number;

@@ -4,7 +4,7 @@ import type { Knex } from "knex";
 import { db } from "./knex";
 import type { CompactGraph } from "@/lib/routing/graph";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 
 export type LayoutVersionDTO = {
   id: number;

@@ -2,7 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import { queueWaveReleasedMail } from "./wave-mail";
-import type { WaveOrder } from "@/lib/waves/types";
+import type { WaveOrder } from "@/lib/batching/types";
 
 export type WaveSettings = {
   totesPerCart: number;

@@ -1,10 +1,10 @@
 // Wave batching benchmark: npx tsx scripts/bench-waves.ts — prints a markdown table on stdout.
 // Timings are wall-clock on whatever else the machine is doing; run it on an idle machine.
 import os from "node:os";
-import { bramblegateDocument } from "../lib/editor/demo-bramblegate";
-import { buildLayout } from "../lib/layout/build";
-import { batchOrders, type BatchingMethod, type SavingsOptions } from "../lib/waves";
-import { DEMO_CART_LIMITS, demoItems, demoOrders } from "../lib/waves/demo-orders";
+import { bramblegateDocument } from "../db/seeds/demo/floor-plan";
+import { buildLayout } from "../lib/layout-versions/build";
+import { batchOrders, type BatchingMethod, type SavingsOptions } from "../lib/batching";
+import { DEMO_CART_LIMITS, demoItems, demoOrders } from "../db/seeds/demo/orders";
 
 const m = (mm: number) => (mm / 1000).toFixed(0);
 const pct = (part: number, whole: number) => (whole === 0 ? "–" : `${((100 * part) / whole).toFixed(1)} %`);

@@ -2,8 +2,8 @@
 // the invented Fennick Supply Co., in the order lines template's columns.
 //   npx tsx scripts/make-demo-sheet.ts
 import { writeFileSync } from "node:fs";
-import { bramblegateDocument } from "../lib/editor/demo-bramblegate";
-import { demoItems, demoOrders } from "../lib/waves/demo-orders";
+import { bramblegateDocument } from "../db/seeds/demo/floor-plan";
+import { demoItems, demoOrders } from "../db/seeds/demo/orders";
 
 const items = demoItems(bramblegateDocument());
 const orders = demoOrders(items, { days: 1, perDay: 40, seed: 28, startDate: "2026-11-28" });

@@ -2,8 +2,8 @@
 
 import { FileField } from "@/components/FileField";
 import { useState } from "react";
-import type { EditorDocument } from "@/lib/editor/document";
-import type { Intent } from "@/lib/editor/editor-state";
+import type { EditorDocument } from "@/lib/floor-plan/document";
+import type { Intent } from "@/lib/floor-plan/editor-state";
 import { uploadBackground } from "./api";
 
 type Props = { planId: number; doc: EditorDocument; dispatch: (i: Intent) => void };

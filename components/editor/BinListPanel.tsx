@@ -2,8 +2,8 @@
 
 import { useMemo } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
-import type { EditorDocument } from "@/lib/editor/document";
-import { documentBins, type RunBin } from "@/lib/editor/bin-codes";
+import type { EditorDocument } from "@/lib/floor-plan/document";
+import { documentBins, type RunBin } from "@/lib/floor-plan/bin-codes";
 
 const columns: DataColumn<RunBin>[] = [
   { accessorKey: "code", header: "Location code" },

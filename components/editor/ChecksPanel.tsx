@@ -1,6 +1,6 @@
 "use client";
 
-import type { Problem } from "@/lib/editor/checks";
+import type { Problem } from "@/lib/floor-plan/checks";
 
 type Props = { problems: Problem[]; onLocate: (p: Problem) => void; stale?: boolean };
 

@@ -1,10 +1,10 @@
 "use client";
 
 import { useEffect, useId, useLayoutEffect, useMemo, useRef, useState } from "react";
-import type { EditorDocument, RackRun } from "@/lib/editor/document";
-import type { EditorState, Intent } from "@/lib/editor/editor-state";
-import { nextId, rectCells } from "@/lib/editor/commands";
-import { documentBins, rackRunCells, type RunBin } from "@/lib/editor/bin-codes";
+import type { EditorDocument, RackRun } from "@/lib/floor-plan/document";
+import type { EditorState, Intent } from "@/lib/floor-plan/editor-state";
+import { nextId, rectCells } from "@/lib/floor-plan/commands";
+import { documentBins, rackRunCells, type RunBin } from "@/lib/floor-plan/bin-codes";
 import { FloorDefs, GroundLayer, HighlightLayer, OneWayLayer, PointsLayer, RackLayer, RackShape } from "@/components/floor/FloorLayers";
 import { FLOOR_COLOURS } from "@/components/floor/floor-style";
 import { Rulers, RULER_PX } from "./Rulers";

@@ -1,11 +1,11 @@
 "use client";
 
 import { useCallback, useDeferredValue, useEffect, useMemo, useReducer, useRef, useState } from "react";
-import type { EditorDocument, RackRun } from "@/lib/editor/document";
-import { checkDocument, hasErrors, type Problem } from "@/lib/editor/checks";
-import { nextId } from "@/lib/editor/commands";
-import { editorReducer, initialEditorState, isDirty, type Intent } from "@/lib/editor/editor-state";
-import { intentForKey } from "@/lib/editor/shortcuts";
+import type { EditorDocument, RackRun } from "@/lib/floor-plan/document";
+import { checkDocument, hasErrors, type Problem } from "@/lib/floor-plan/checks";
+import { nextId } from "@/lib/floor-plan/commands";
+import { editorReducer, initialEditorState, isDirty, type Intent } from "@/lib/floor-plan/editor-state";
+import { intentForKey } from "@/lib/floor-plan/shortcuts";
 import { backgroundUrl } from "./api";
 import { EditorToolbar } from "./EditorToolbar";
 import { EditorCanvas, type DrawnRun, type Focus } from "./EditorCanvas";

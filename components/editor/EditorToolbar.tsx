@@ -1,10 +1,10 @@
 "use client";
 
 import type { Side } from "@/lib/routing/drawing";
-import type { EditorState, Intent, Tool } from "@/lib/editor/editor-state";
-import { TOOL_KEYS } from "@/lib/editor/shortcuts";
-import { describeCommand } from "@/lib/editor/commands";
-import { canRedo, canUndo } from "@/lib/editor/history";
+import type { EditorState, Intent, Tool } from "@/lib/floor-plan/editor-state";
+import { TOOL_KEYS } from "@/lib/floor-plan/shortcuts";
+import { describeCommand } from "@/lib/floor-plan/commands";
+import { canRedo, canUndo } from "@/lib/floor-plan/history";
 
 const TOOLS: { tool: Tool; label: string }[] = [
   { tool: "select", label: "Select" },

@@ -1,9 +1,9 @@
 "use client";
 
 import { useState } from "react";
-import type { EditorDocument } from "@/lib/editor/document";
-import type { Intent } from "@/lib/editor/editor-state";
-import { resizeProblem } from "@/lib/editor/commands";
+import type { EditorDocument } from "@/lib/floor-plan/document";
+import type { Intent } from "@/lib/floor-plan/editor-state";
+import { resizeProblem } from "@/lib/floor-plan/commands";
 
 /** Grid size in cells and the real size of one cell. */
 export function GridSettings({ doc, dispatch }: { doc: EditorDocument; dispatch: (i: Intent) => void }) {

@@ -1,8 +1,8 @@
 "use client";
 
 import { useState } from "react";
-import type { EditorPoint } from "@/lib/editor/document";
-import type { PointKind } from "@/lib/editor/commands";
+import type { EditorPoint } from "@/lib/floor-plan/document";
+import type { PointKind } from "@/lib/floor-plan/commands";
 
 type Props = { point: EditorPoint; kind: PointKind; canEdit: boolean; onRename: (name: string) => void; onDelete: () => void };
 

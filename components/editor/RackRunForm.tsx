@@ -1,9 +1,9 @@
 "use client";
 
 import { useState } from "react";
-import { MAX_LEVELS, type EditorDocument, type RackRun } from "@/lib/editor/document";
-import { bayRange, formatCode } from "@/lib/editor/bin-codes";
-import { runProblem } from "@/lib/editor/commands";
+import { MAX_LEVELS, type EditorDocument, type RackRun } from "@/lib/floor-plan/document";
+import { bayRange, formatCode } from "@/lib/floor-plan/bin-codes";
+import { runProblem } from "@/lib/floor-plan/commands";
 
 type Props = {
   doc: EditorDocument;

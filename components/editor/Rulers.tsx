@@ -1,4 +1,4 @@
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 
 /** Width of the ruler bands along the top and left edge, in screen pixels. */
 export const RULER_PX = 28;

@@ -2,7 +2,7 @@
 
 import { FileField } from "@/components/FileField";
 import { useState } from "react";
-import type { RackRun } from "@/lib/editor/document";
+import type { RackRun } from "@/lib/floor-plan/document";
 import { importRunBins, runBinsUrl, type BadRow } from "./api";
 
 type Props = {

@@ -1,7 +1,7 @@
 "use client";
 
-import type { RackRun } from "@/lib/editor/document";
-import type { EditorState, Intent } from "@/lib/editor/editor-state";
+import type { RackRun } from "@/lib/floor-plan/document";
+import type { EditorState, Intent } from "@/lib/floor-plan/editor-state";
 import { RackRunForm } from "./RackRunForm";
 import { PointPanel } from "./PointPanel";
 import { RunBinsSpreadsheet } from "./RunBinsSpreadsheet";

@@ -1,5 +1,5 @@
-import type { EditorDocument, RackRun } from "@/lib/editor/document";
-import type { Problem } from "@/lib/editor/checks";
+import type { EditorDocument, RackRun } from "@/lib/floor-plan/document";
+import type { Problem } from "@/lib/floor-plan/checks";
 import { postJson, requestJson, uploadFile, type ApiResult } from "@/lib/client/fetch-json";
 
 /** The draft API's answers (contract with app/api/floor-plans/[id]/…). */

@@ -2,9 +2,9 @@
 
 import { useCallback, useLayoutEffect, useRef, useState } from "react";
 import type { FieldIssue } from "@/lib/http/zod-issues";
-import type { Problem } from "@/lib/editor/checks";
-import { isDirty, type EditorState, type Intent } from "@/lib/editor/editor-state";
-import { revision } from "@/lib/editor/history";
+import type { Problem } from "@/lib/floor-plan/checks";
+import { isDirty, type EditorState, type Intent } from "@/lib/floor-plan/editor-state";
+import { revision } from "@/lib/floor-plan/history";
 import { publishProblems, saveDraft, startPublish, type SaveConflict } from "./api";
 
 export type SyncNotice = { tone: "error" | "info"; text: string; issues?: FieldIssue[] } | null;

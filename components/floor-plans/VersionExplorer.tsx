@@ -4,9 +4,9 @@ import { useMemo, useState } from "react";
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { requestJson } from "@/lib/client/fetch-json";
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 import type { BinRowDTO } from "@/db/layout-versions";
-import { documentBins } from "@/lib/editor/bin-codes";
+import { documentBins } from "@/lib/floor-plan/bin-codes";
 
 export type VersionBin = BinRowDTO & { fromDepot: { depot: string; mm: number } | null };
 

@@ -1,6 +1,6 @@
 import { memo } from "react";
 import type { Side } from "@/lib/routing/drawing";
-import type { EditorDocument, EditorPoint, RackRun } from "@/lib/editor/document";
+import type { EditorDocument, EditorPoint, RackRun } from "@/lib/floor-plan/document";
 import { FLOOR_COLOURS as C } from "./floor-style";
 
 /*

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId } from "react";
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 import { FloorDefs, GroundLayer, HighlightLayer, OneWayLayer, PointsLayer, RackLayer, RouteLayer, type RouteOverlay } from "./FloorLayers";
 
 type Props = {

@@ -1,6 +1,6 @@
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { BatchDetailDTO } from "@/db/waves";
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 import { kilograms, metres, minutes } from "@/lib/format/units";
 
 export type PickListProps = {

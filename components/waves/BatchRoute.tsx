@@ -1,7 +1,7 @@
 "use client";
 
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
-import type { EditorDocument } from "@/lib/editor/document";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 import type { BatchDetailDTO } from "@/db/waves";
 import { metres } from "@/lib/format/units";
 

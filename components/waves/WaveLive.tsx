@@ -3,7 +3,7 @@
 import useSWR from "swr";
 import { swrFetcher } from "@/lib/client/fetch-json";
 import type { BatchSummaryDTO, ShortPickDTO, WaveDTO } from "@/db/waves";
-import type { SiteTiming } from "@/lib/waves/estimate";
+import type { SiteTiming } from "@/lib/batching/estimate";
 import { WaveResults } from "./WaveResults";
 
 type WaveAnswer = { wave: WaveDTO; batches: BatchSummaryDTO[]; shortPicks: ShortPickDTO[] };

@@ -5,7 +5,7 @@ import { useMemo } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import type { BatchSummaryDTO } from "@/db/waves";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
-import { estimateSeconds, type SiteTiming } from "@/lib/waves/estimate";
+import { estimateSeconds, type SiteTiming } from "@/lib/batching/estimate";
 
 type Row = BatchSummaryDTO & { seconds: number };
 

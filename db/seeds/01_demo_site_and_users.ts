@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
 import { hash } from "@node-rs/argon2";
 import { randomBytes } from "node:crypto";
-import { DEMO_ACCOUNTS, DEMO_SITE } from "../../lib/demo-accounts";
+import { DEMO_ACCOUNTS, DEMO_SITE } from "./demo/accounts";
 import { ARGON2_OPTIONS } from "../../lib/auth/argon2-options";
 
 // Idempotent: adds what is missing and leaves existing rows (and any changed passwords) alone.

@@ -1,7 +1,7 @@
 import type { Knex } from "knex";
-import { DEMO_SITE } from "../../lib/demo-accounts";
-import { bramblegateDocument, bramblegateDraftDocument } from "../../lib/editor/demo-bramblegate";
-import { buildLayout, rackRunOfBins } from "../../lib/layout/build";
+import { DEMO_SITE } from "./demo/accounts";
+import { bramblegateDocument, bramblegateDraftDocument } from "./demo/floor-plan";
+import { buildLayout, rackRunOfBins } from "../../lib/layout-versions/build";
 import { createFloorPlan, saveDraft } from "../floor-plans";
 import { insertLayoutVersion } from "../layout-versions";
 import { closeDb } from "../knex";

@@ -1,8 +1,8 @@
 import type { Knex } from "knex";
-import { DEMO_SITE } from "../../lib/demo-accounts";
-import { demoItems, demoOrders, DEMO_CART_LIMITS, type DemoOrder } from "../../lib/waves/demo-orders";
-import { batchOrders } from "../../lib/waves/batching";
-import { toStoredBatch } from "../../lib/wave-planning/to-stored";
+import { DEMO_SITE } from "./demo/accounts";
+import { demoItems, demoOrders, DEMO_CART_LIMITS, type DemoOrder } from "./demo/orders";
+import { batchOrders } from "../../lib/batching/batching";
+import { toStoredBatch } from "../../lib/waves/to-stored";
 import { loadLayoutGraph } from "../layout-versions";
 import { createWave, releaseWave, storePlan, getWave, type WaveSettings } from "../waves";
 import { closeDb } from "../knex";

@@ -1,7 +1,7 @@
 import { accessRoute } from "@/lib/routing/access";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import { nodeAccessPoint, type AccessPoint, type CompactGraph } from "@/lib/routing/graph";
-import { routeCells } from "@/lib/layout/route-cells";
+import { routeCells } from "@/lib/layout-versions/route-cells";
 
 /**
  * Each leg of a batch walked separately: leg i ends at stop i (leg 0 starts at the depot), the last

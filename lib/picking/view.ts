@@ -2,10 +2,10 @@ import "server-only";
 import { getBatch } from "@/db/waves";
 import { pickLines, type PickBatchRow, type PickLineState } from "@/db/picking";
 import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
-import { layoutGraph } from "@/lib/layout/graph-cache";
-import { immutableCache } from "@/lib/layout/immutable-cache";
-import { documentBins } from "@/lib/editor/bin-codes";
-import type { EditorDocument } from "@/lib/editor/document";
+import { layoutGraph } from "@/lib/layout-versions/graph-cache";
+import { immutableCache } from "@/lib/cache/immutable-cache";
+import { documentBins } from "@/lib/floor-plan/bin-codes";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 import { batchLegs } from "./legs";
 import { cautionsOf, HIGH_LEVEL, type Caution } from "./rules";
 

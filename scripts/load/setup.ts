@@ -2,7 +2,7 @@
 // pickers, the planner imports invented orders on the seeded Bramblegate items, plans and releases a
 // wave, each handheld takes batches with "Take the next batch" and loads them; then the planner
 // imports the 1,000 orders of the wave that is planned during the load.
-import { DEMO_ACCOUNTS } from "../../lib/demo-accounts";
+import { DEMO_ACCOUNTS } from "../../db/seeds/demo/accounts";
 import { mulberry32, randomInt } from "../../lib/routing/random";
 import { type Api, ApiError, signIn } from "./api";
 
@@ -15,7 +15,7 @@ export type LoadSetup = {
   pickBatchIds: number[];
 };
 
-// The cart limits of the demo waves (lib/waves/demo-orders.ts DEMO_CART_LIMITS).
+// The cart limits of the demo waves (db/seeds/demo/orders.ts DEMO_CART_LIMITS).
 const LIMITS = { totesPerCart: 6, maxLines: 30, maxWeightG: 150_000 };
 // Both sheets are dated before the demo week, so a wave cut off at their day takes only their orders.
 const PICK_DAY = "2026-11-20";

@@ -6,7 +6,7 @@ import { signInOnPage } from "../support/browser-session";
 import { concretePage, discoverRoutes } from "../support/app-routes";
 import { clearProblems, isHydrated, watchProblems, type PageProblems } from "../support/csp-watch";
 import { smallDocument } from "../support/documents";
-import { PAGE_ACCESS } from "@/lib/auth/routes";
+import { PAGE_ACCESS } from "@/lib/auth/access-table";
 import { ROLE_HOME, ROLES, roleMay, type Role } from "@/lib/auth/permissions";
 
 // Every page as every role that may open it, under the production CSP: no violation reported

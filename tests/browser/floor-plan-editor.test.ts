@@ -4,10 +4,10 @@ import path from "node:path";
 import { APP_URL } from "../support/app";
 import { ARTIFACTS, launchBrowser } from "../support/browser";
 import { signedInPage } from "../support/browser-session";
-import { buildLayout } from "@/lib/layout/build";
+import { buildLayout } from "@/lib/layout-versions/build";
 import { accessDistance } from "@/lib/routing/access";
 import { findBin } from "@/lib/routing/graph";
-import { editorDocumentSchema } from "@/lib/editor/document";
+import { editorDocumentSchema } from "@/lib/floor-plan/document";
 import { smallDocument } from "../support/documents";
 
 const RULER_PX = 28;

@@ -3,7 +3,7 @@ import { api, ORIGIN, signInAs } from "../support/app";
 import { auditedSince, auditMark } from "../support/audit";
 import { closeDb } from "@/db/knex";
 import { concrete, concretePage, discoverRoutes } from "../support/app-routes";
-import { API_ACCESS, PAGE_ACCESS } from "@/lib/auth/routes";
+import { API_ACCESS, PAGE_ACCESS } from "@/lib/auth/access-table";
 import { ROLES, ROLE_HOME, roleMay, type Role } from "@/lib/auth/permissions";
 
 const { pages, handlers } = discoverRoutes();
@@ -17,7 +17,7 @@ describe("every route under app/ has an access decision", () => {
     expect(pages).toContain("/sign-in");
     expect(handlers.map((h) => h.url)).toContain("/api/health");
   });
-  it.each(pages)("page %s is in PAGE_ACCESS", (p) => expect(PAGE_ACCESS[p], `add ${p} to lib/auth/routes.ts`).toBeDefined());
+  it.each(pages)("page %s is in PAGE_ACCESS", (p) => expect(PAGE_ACCESS[p], `add ${p} to lib/auth/access-table.ts`).toBeDefined());
   it.each(handlers)("handler $url declares exactly its exported methods", ({ url, methods }) => {
     expect(Object.keys(API_ACCESS[url] ?? {}).sort()).toEqual([...methods].sort());
   });

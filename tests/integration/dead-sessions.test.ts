@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { concrete, concretePage, discoverRoutes } from "../support/app-routes";
 import { auditedSince, auditMark } from "../support/audit";
-import { API_ACCESS, PAGE_ACCESS } from "@/lib/auth/routes";
+import { API_ACCESS, PAGE_ACCESS } from "@/lib/auth/access-table";
 import { startSession } from "@/lib/auth/session";
 import { SESSION_ABSOLUTE_MS } from "@/lib/auth/lucia";
 import { db } from "@/db/knex";

@@ -3,7 +3,7 @@ import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { smallDocument } from "../support/documents";
 import { closeDb } from "@/db/knex";
 import { bytesToInt32, countLayoutRows, loadLayoutGraph, matrixChecksum, int32ToBytes } from "@/db/layout-versions";
-import { buildLayout } from "@/lib/layout/build";
+import { buildLayout } from "@/lib/layout-versions/build";
 import { accessDistance } from "@/lib/routing/access";
 import { findBin } from "@/lib/routing/graph";
 import * as XLSX from "xlsx";

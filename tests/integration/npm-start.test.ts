@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { rmSync } from "node:fs";
 import path from "node:path";
-import { DEMO_ACCOUNTS } from "@/lib/demo-accounts";
+import { DEMO_ACCOUNTS } from "@/db/seeds/demo/accounts";
 import { freePort, npmStart, portAnswers, processesOf, startFileExists, START_DIR, stillRunning, until, type NpmStart, type Ports, type Proc } from "../support/npm-start";
 
 // `npm start` for real, stopped the ways a person or a service manager stops it. npm itself passes

@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { randomUUID } from "node:crypto";
 import { api, makeUser, ORIGIN, signIn, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
-import { DEMO_ACCOUNTS } from "@/lib/demo-accounts";
+import { DEMO_ACCOUNTS } from "@/db/seeds/demo/accounts";
 import { enqueue, flushQueue, readQueue, type KeyValueStore, type QueuedConfirmation } from "@/lib/picking/queue";
 import { pickerWithBatch } from "../support/jobs";
 

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, makeUser, ORIGIN, signInAs } from "../support/app";
 import { discoverRoutes } from "../support/app-routes";
 import { badArbitrary, badValues, constructorKeyed, protoKeyed, toJsonText, withField, type FieldKind } from "../support/fuzz-values";
-import { API_ACCESS } from "@/lib/auth/routes";
+import { API_ACCESS } from "@/lib/auth/access-table";
 import { ROLES, roleMay, type Access, type Role } from "@/lib/auth/permissions";
 import { SHORT_REASONS } from "@/lib/picking/rules";
 import { closeDb } from "@/db/knex";

@@ -3,7 +3,7 @@ import type { Response } from "supertest";
 import { api, signInAs } from "../support/app";
 import { concretePage, discoverRoutes } from "../support/app-routes";
 import { cspDirectives, scriptNonce, scriptTags } from "../support/csp";
-import { PAGE_ACCESS } from "@/lib/auth/routes";
+import { PAGE_ACCESS } from "@/lib/auth/access-table";
 import { ROLES, roleMay, type Role } from "@/lib/auth/permissions";
 
 // What a strict nonce-based policy looks like: web.dev "Mitigate XSS with a strict CSP" and the OWASP

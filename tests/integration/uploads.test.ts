@@ -4,7 +4,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { api, APP_URL, ORIGIN, signInAs } from "../support/app";
 import { zipBytes } from "../support/zip-bytes";
-import { API_ACCESS } from "@/lib/auth/routes";
+import { API_ACCESS } from "@/lib/auth/access-table";
 import { ROLES, roleMay, type Access } from "@/lib/auth/permissions";
 import { closeDb } from "@/db/knex";
 import { databaseSnapshot } from "@/db/snapshot";

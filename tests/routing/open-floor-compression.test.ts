@@ -14,7 +14,7 @@ import {
   type GridDrawing,
   type Side,
 } from "../../lib/routing";
-import { routeCells } from "../../lib/layout/route-cells";
+import { routeCells } from "../../lib/layout-versions/route-cells";
 import { dijkstraLengths, rawGridGraph } from "./helpers/raw-grid";
 
 /**

@@ -1,5 +1,5 @@
 import request from "supertest";
-import { DEMO_ACCOUNTS } from "@/lib/demo-accounts";
+import { DEMO_ACCOUNTS } from "@/db/seeds/demo/accounts";
 import type { Role } from "@/lib/auth/permissions";
 
 export const APP_URL = process.env.APP_URL ?? "";

@@ -1,4 +1,4 @@
-import { blankDocument, GROUND, type EditorDocument, type RackRun } from "@/lib/editor/document";
+import { blankDocument, GROUND, type EditorDocument, type RackRun } from "@/lib/floor-plan/document";
 
 export function run(partial: Partial<RackRun> & Pick<RackRun, "id" | "x" | "y" | "length" | "facing" | "aisle">): RackRun {
   return { orientation: "h", firstBay: 1, bayStep: 1, bayDirection: "forward", levels: 2, pattern: "{aisle:2}-{bay:2}-{level}", customCodes: [], ...partial };

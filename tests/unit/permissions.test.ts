@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { PERMISSIONS, ROLES, roleMay, ROLE_HOME } from "@/lib/auth/permissions";
-import { PAGE_ACCESS } from "@/lib/auth/routes";
+import { PAGE_ACCESS } from "@/lib/auth/access-table";
 import { formatClock } from "@/lib/auth/throttle";
 
 describe("permission table", () => {

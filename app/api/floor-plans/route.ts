@@ -2,7 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { createFloorPlan, DuplicateFloorPlanError, listFloorPlans } from "@/db/floor-plans";
-import { blankDocument, MAX_SIDE_CELLS } from "@/lib/editor/document";
+import { blankDocument, MAX_SIDE_CELLS } from "@/lib/floor-plan/document";
 
 export const dynamic = "force-dynamic";
 

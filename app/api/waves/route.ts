@@ -5,7 +5,7 @@ import { createWave, listWaves, OrdersTakenError, unclaimedOpenOrderIds } from "
 import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
 import { rowId } from "@/lib/http/body-fields";
-import { elementId } from "@/lib/editor/document";
+import { elementId } from "@/lib/floor-plan/document";
 
 export const dynamic = "force-dynamic";
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { bayAt, documentBins, formatCode, rackRunBins, rackRunCells, unusedCustomCodes } from "@/lib/editor/bin-codes";
+import { bayAt, documentBins, formatCode, rackRunBins, rackRunCells, unusedCustomCodes } from "@/lib/floor-plan/bin-codes";
 import { rackRun } from "./fixtures";
 
 describe("formatCode", () => {

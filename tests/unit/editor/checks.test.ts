@@ -1,9 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { checkDocument, hasErrors, type Problem } from "@/lib/editor/checks";
-import type { EditorDocument } from "@/lib/editor/document";
-import * as engine from "@/lib/editor/engine-checks";
-import { bramblegateDocument } from "@/lib/editor/demo-bramblegate";
-import { toGridDrawing } from "@/lib/editor/to-drawing";
+import { checkDocument, hasErrors, type Problem } from "@/lib/floor-plan/checks";
+import type { EditorDocument } from "@/lib/floor-plan/document";
+import * as engine from "@/lib/floor-plan/engine-checks";
+import { bramblegateDocument } from "@/db/seeds/demo/floor-plan";
+import { toGridDrawing } from "@/lib/floor-plan/to-drawing";
 import { depot, docFromRows, dropoff, rackRun } from "./fixtures";
 
 const W = 7;

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { applyCommand, describeCommand, execute, nextId, rectCells, resizeProblem, runProblem, type Command } from "@/lib/editor/commands";
-import { editorDocumentSchema } from "@/lib/editor/document";
+import { applyCommand, describeCommand, execute, nextId, rectCells, resizeProblem, runProblem, type Command } from "@/lib/floor-plan/commands";
+import { editorDocumentSchema } from "@/lib/floor-plan/document";
 import { docFromRows, rackRun, depot, dropoff } from "./fixtures";
 
 const BG = "0123456789abcdef0123456789abcdef";

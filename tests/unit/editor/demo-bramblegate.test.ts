@@ -1,9 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { bramblegateDocument, bramblegateDraftDocument } from "@/lib/editor/demo-bramblegate";
-import { checkDocument } from "@/lib/editor/checks";
-import { documentBins } from "@/lib/editor/bin-codes";
-import { editorDocumentSchema } from "@/lib/editor/document";
-import { toGridDrawing } from "@/lib/editor/to-drawing";
+import { bramblegateDocument, bramblegateDraftDocument } from "@/db/seeds/demo/floor-plan";
+import { checkDocument } from "@/lib/floor-plan/checks";
+import { documentBins } from "@/lib/floor-plan/bin-codes";
+import { editorDocumentSchema } from "@/lib/floor-plan/document";
+import { toGridDrawing } from "@/lib/floor-plan/to-drawing";
 import { buildGraph } from "@/lib/routing/build-graph";
 import { floydWarshall } from "@/lib/routing/floyd-warshall";
 import { UNREACHABLE } from "@/lib/routing/constants";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { editorReducer, initialEditorState, isDirty, type Intent } from "@/lib/editor/editor-state";
-import { intentForKey } from "@/lib/editor/shortcuts";
+import { editorReducer, initialEditorState, isDirty, type Intent } from "@/lib/floor-plan/editor-state";
+import { intentForKey } from "@/lib/floor-plan/shortcuts";
 import { depot, docFromRows, rackRun } from "./fixtures";
 
 const doc = docFromRows(["ffffff", "ffffff", "ffffff", "ffffff"], { rackRuns: [rackRun({ id: "R1", x: 0, y: 1 })], depots: [depot(5, 3)] });

@@ -1,4 +1,4 @@
-import { DOCUMENT_FORMAT, type EditorDocument, type RackRun } from "@/lib/editor/document";
+import { DOCUMENT_FORMAT, type EditorDocument, type RackRun } from "@/lib/floor-plan/document";
 
 /** A document drawn as text rows of ground characters ('.', 'f', 'x'), 1 m cells. */
 export function docFromRows(rows: string[], extra: Partial<EditorDocument> = {}): EditorDocument {

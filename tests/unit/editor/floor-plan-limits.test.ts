@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { checkDocument } from "@/lib/editor/checks";
-import { GROUND, type EditorDocument } from "@/lib/editor/document";
-import { toGridDrawing } from "@/lib/editor/to-drawing";
+import { checkDocument } from "@/lib/floor-plan/checks";
+import { GROUND, type EditorDocument } from "@/lib/floor-plan/document";
+import { toGridDrawing } from "@/lib/floor-plan/to-drawing";
 import { buildGraph } from "@/lib/routing/build-graph";
 import { depot, docFromRows, dropoff, rackRun } from "./fixtures";
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { HISTORY_LIMIT, canRedo, canUndo, record, redo, revision, startHistory, undo } from "@/lib/editor/history";
+import { HISTORY_LIMIT, canRedo, canUndo, record, redo, revision, startHistory, undo } from "@/lib/floor-plan/history";
 import { docFromRows, rackRun } from "./fixtures";
 
 const doc = docFromRows(["ffff", "ffff", "ffff", "ffff"]);

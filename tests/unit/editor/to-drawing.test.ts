@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { toGridDrawing } from "@/lib/editor/to-drawing";
+import { toGridDrawing } from "@/lib/floor-plan/to-drawing";
 import { depot, docFromRows, dropoff, rackRun } from "./fixtures";
 
 describe("toGridDrawing", () => {

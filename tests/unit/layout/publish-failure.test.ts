@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { publishFailureMessage } from "@/lib/layout/publish-failure";
+import { publishFailureMessage } from "@/lib/layout-versions/publish-failure";
 import { HttpError } from "@/lib/http/errors";
 
 /** What knex hands back when MariaDB refuses a statement: the whole SQL in the message. */

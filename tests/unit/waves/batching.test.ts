@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import type { BuiltLayout } from "@/lib/layout/build";
+import type { BuiltLayout } from "@/lib/layout-versions/build";
 import { planPick } from "@/lib/routing/plan";
-import { BatchingCancelled, batchOrders, binCodesOf, compareUrgency, cutoffMs, type BatchingMethod, type BatchingResult, type CartLimits, type WaveOrder } from "@/lib/waves";
-import { demoOrders, type DemoItem } from "@/lib/waves/demo-orders";
+import { BatchingCancelled, batchOrders, binCodesOf, compareUrgency, cutoffMs, type BatchingMethod, type BatchingResult, type CartLimits, type WaveOrder } from "@/lib/batching";
+import { demoOrders, type DemoItem } from "@/db/seeds/demo/orders";
 import { demoLayout } from "./fixture";
 
 const LIMITS: CartLimits = { totesPerCart: 6, maxLines: 20, maxWeightG: 40_000 };

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import type { DemoItem } from "@/lib/waves/demo-orders";
-import { demoOrders } from "@/lib/waves/demo-orders";
-import type { BuiltLayout } from "@/lib/layout/build";
+import type { DemoItem } from "@/db/seeds/demo/orders";
+import { demoOrders } from "@/db/seeds/demo/orders";
+import type { BuiltLayout } from "@/lib/layout-versions/build";
 import { demoLayout } from "./fixture";
 
 let layout: BuiltLayout;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { DEFAULT_SITE_TIMING, estimateSeconds } from "@/lib/waves/estimate";
+import { DEFAULT_SITE_TIMING, estimateSeconds } from "@/lib/batching/estimate";
 
 describe("estimateSeconds", () => {
   it("adds walking time at the walking speed to a fixed time per line", () => {

@@ -1,6 +1,6 @@
-import { bramblegateDocument } from "@/lib/editor/demo-bramblegate";
-import { buildLayout, type BuiltLayout } from "@/lib/layout/build";
-import { demoItems, type DemoItem } from "@/lib/waves/demo-orders";
+import { bramblegateDocument } from "@/db/seeds/demo/floor-plan";
+import { buildLayout, type BuiltLayout } from "@/lib/layout-versions/build";
+import { demoItems, type DemoItem } from "@/db/seeds/demo/orders";
 
 let built: Promise<{ layout: BuiltLayout; items: DemoItem[] }> | undefined;
 

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import type { BuiltLayout } from "@/lib/layout/build";
-import { batchOrders, type BatchingMethod } from "@/lib/waves";
-import { DEMO_CART_LIMITS, demoOrders, type DemoItem } from "@/lib/waves/demo-orders";
+import type { BuiltLayout } from "@/lib/layout-versions/build";
+import { batchOrders, type BatchingMethod } from "@/lib/batching";
+import { DEMO_CART_LIMITS, demoOrders, type DemoItem } from "@/db/seeds/demo/orders";
 import { demoLayout } from "./fixture";
 
 let layout: BuiltLayout;

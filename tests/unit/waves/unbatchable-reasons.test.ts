@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import type { BuiltLayout } from "@/lib/layout/build";
-import { batchOrders, type WaveOrder } from "@/lib/waves";
+import type { BuiltLayout } from "@/lib/layout-versions/build";
+import { batchOrders, type WaveOrder } from "@/lib/batching";
 import { demoLayout } from "./fixture";
 
 let layout: BuiltLayout;

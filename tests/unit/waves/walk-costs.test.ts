@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import type { BuiltLayout } from "@/lib/layout/build";
+import type { BuiltLayout } from "@/lib/layout-versions/build";
 import { accessDistance } from "@/lib/routing/access";
 import { nodeAccessPoint, type AccessPoint } from "@/lib/routing/graph";
-import { InsertionRoute, WalkCosts } from "@/lib/waves/walk-costs";
+import { InsertionRoute, WalkCosts } from "@/lib/batching/walk-costs";
 import { demoLayout } from "./fixture";
 
 let layout: BuiltLayout;

@@ -9,7 +9,7 @@ import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
 import { UnbatchedOrders } from "@/components/waves/UnbatchedOrders";
-import { estimateSeconds } from "@/lib/waves/estimate";
+import { estimateSeconds } from "@/lib/batching/estimate";
 import { metres, minutes, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Wave" };

@@ -6,7 +6,7 @@ import { rowVersion } from "@/lib/http/body-fields";
 import { getDraft, saveDraft } from "@/db/floor-plans";
 import { listLayoutVersions } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
-import { editorDocumentSchema } from "@/lib/editor/document";
+import { editorDocumentSchema } from "@/lib/floor-plan/document";
 
 export const dynamic = "force-dynamic";
 

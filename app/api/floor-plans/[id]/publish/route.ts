@@ -2,7 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { intParam } from "@/lib/http/params";
 import { rowVersion } from "@/lib/http/body-fields";
-import { startPublish } from "@/lib/layout/publish";
+import { startPublish } from "@/lib/layout-versions/publish";
 
 const Publish = z.object({ version: rowVersion() });
 

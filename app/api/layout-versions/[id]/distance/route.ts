@@ -1,7 +1,7 @@
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
-import { layoutDistance } from "@/lib/layout/distance";
+import { layoutDistance } from "@/lib/layout-versions/distance";
 
 export const dynamic = "force-dynamic";
 

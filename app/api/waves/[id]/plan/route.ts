@@ -2,7 +2,7 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { intParam } from "@/lib/http/params";
 import { rowVersion } from "@/lib/http/body-fields";
-import { startPlanWave } from "@/lib/wave-planning/plan-wave";
+import { startPlanWave } from "@/lib/waves/plan-wave";
 
 const Plan = z.object({ version: rowVersion() });
 

@@ -5,8 +5,8 @@ import { requireRole } from "@/lib/auth/guard";
 import { getFloorPlan } from "@/db/floor-plans";
 import { getLayoutVersion, listLayoutBins } from "@/db/layout-versions";
 import { VersionExplorer } from "@/components/floor-plans/VersionExplorer";
-import { layoutGraph } from "@/lib/layout/graph-cache";
-import { binDistancesFromDepots } from "@/lib/layout/depot-distances";
+import { layoutGraph } from "@/lib/layout-versions/graph-cache";
+import { binDistancesFromDepots } from "@/lib/layout-versions/depot-distances";
 
 export const metadata: Metadata = { title: "Layout version" };
 

@@ -5,11 +5,11 @@ import { requireRole } from "@/lib/auth/guard";
 import { getBatch, getWave } from "@/db/waves";
 import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
 import { getSite } from "@/db/sites";
-import { layoutGraph } from "@/lib/layout/graph-cache";
-import { batchRouteCells } from "@/lib/wave-planning/batch-route";
+import { layoutGraph } from "@/lib/layout-versions/graph-cache";
+import { batchRouteCells } from "@/lib/waves/batch-route";
 import { BatchRoute } from "@/components/waves/BatchRoute";
 import { BatchLiveStatus } from "@/components/waves/BatchLiveStatus";
-import { estimateSeconds } from "@/lib/waves/estimate";
+import { estimateSeconds } from "@/lib/batching/estimate";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Batch" };

@@ -5,7 +5,7 @@ import { uploadedFile } from "@/lib/http/upload";
 import { getDraft } from "@/db/floor-plans";
 import { readSheet, SheetError, MAX_UPLOAD_BYTES } from "@/lib/sheets/read";
 import { csvText, downloadResponse, workbookBytes } from "@/lib/sheets/write";
-import { binSheetRows, parseBinSheet } from "@/lib/layout/rack-run-bins";
+import { binSheetRows, parseBinSheet } from "@/lib/layout-versions/rack-run-bins";
 import type { SignedInUser } from "@/lib/auth/session";
 
 export const dynamic = "force-dynamic";

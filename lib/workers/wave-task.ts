@@ -1,6 +1,6 @@
 import type { CompactGraph } from "@/lib/routing/graph";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
-import type { BatchingMethod, CartLimits, WaveOrder } from "@/lib/waves/types";
+import type { BatchingMethod, CartLimits, WaveOrder } from "@/lib/batching/types";
 
 /** Everything the wave worker needs, as plain data for postMessage. */
 export type WaveJob = {

@@ -1,4 +1,4 @@
-import { DOCUMENT_FORMAT, GROUND, type EditorDocument, type RackRun } from "./document";
+import { DOCUMENT_FORMAT, GROUND, type EditorDocument, type RackRun } from "../../../lib/floor-plan/document";
 
 /*
  * Bramblegate, the invented warehouse of the invented Fennick Supply Co. (see docs/design.md), one cell per

@@ -6,7 +6,7 @@ import { getDraft } from "@/db/floor-plans";
 import { AlreadyPublishedError, insertLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
-import { checkDocument } from "@/lib/editor/checks";
+import { checkDocument } from "@/lib/floor-plan/checks";
 import type { SignedInUser } from "@/lib/auth/session";
 import { computeLayout } from "./compute";
 import { rackRunOfBins } from "./build";

@@ -1,6 +1,6 @@
-import type { EditorDocument } from "@/lib/editor/document";
-import { toGridDrawing } from "@/lib/editor/to-drawing";
-import { documentBins } from "@/lib/editor/bin-codes";
+import type { EditorDocument } from "@/lib/floor-plan/document";
+import { toGridDrawing } from "@/lib/floor-plan/to-drawing";
+import { documentBins } from "@/lib/floor-plan/bin-codes";
 import { buildGraph } from "@/lib/routing/build-graph";
 import { floydWarshall, type DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import type { CompactGraph } from "@/lib/routing/graph";

@@ -1,7 +1,7 @@
 import "server-only";
-import type { EditorDocument, RackRun } from "@/lib/editor/document";
-import { rackRunSchema } from "@/lib/editor/document";
-import { bayAt, documentBins, formatCode, rackRunBins, rackRunCells } from "@/lib/editor/bin-codes";
+import type { EditorDocument, RackRun } from "@/lib/floor-plan/document";
+import { rackRunSchema } from "@/lib/floor-plan/document";
+import { bayAt, documentBins, formatCode, rackRunBins, rackRunCells } from "@/lib/floor-plan/bin-codes";
 import { cellOf, mapColumns, type RowProblem } from "@/lib/sheets/columns";
 
 export const BIN_SHEET_HEADER = ["Location code", "Aisle", "Bay", "Level"] as const;

@@ -1,5 +1,5 @@
 import type { CompactGraph } from "@/lib/routing/graph";
-import type { BatchPlan, WaveOrder } from "@/lib/waves/types";
+import type { BatchPlan, WaveOrder } from "@/lib/batching/types";
 import type { StoredBatch } from "@/db/waves";
 
 /** A planned batch as rows: stops in walking order, each order line at its stop and in its tote. */

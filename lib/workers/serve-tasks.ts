@@ -1,6 +1,6 @@
 // The worker side of WorkerPool: run each posted job, report progress and the result or error.
 import { parentPort } from "node:worker_threads";
-import { serializeError, type SerializedError } from "./jobs";
+import { serializeError, type SerializedError } from "./routing-tasks";
 
 export function serveJobs<Job>(run: (job: Job, onProgress: (fraction: number) => void) => unknown, serialize: (e: unknown) => SerializedError = serializeError): void {
   const port = parentPort;

@@ -2,7 +2,7 @@ import "server-only";
 import { loadLayoutGraph } from "@/db/layout-versions";
 import type { CompactGraph } from "@/lib/routing/graph";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
-import { immutableCache } from "./immutable-cache";
+import { immutableCache } from "../cache/immutable-cache";
 
 type Loaded = { graph: CompactGraph; matrix: DistanceMatrix };
 

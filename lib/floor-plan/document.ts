@@ -7,7 +7,7 @@ if (typeof window !== "undefined") z.config({ jitless: true });
 
 /**
  * What the floor-plan editor saves: the admin's drawing in the admin's terms (ground paint, rack runs
- * with their numbering, points). lib/editor/to-drawing.ts turns it into the routing engine's GridDrawing.
+ * with their numbering, points). lib/floor-plan/to-drawing.ts turns it into the routing engine's GridDrawing.
  */
 export const DOCUMENT_FORMAT = 1;
 export const MAX_SIDE_CELLS = 400;

@@ -1,7 +1,7 @@
 import "server-only";
-import { RoutingPool, WorkerPool } from "@/lib/routing/pool";
-import type { BatchingResult } from "@/lib/waves/types";
-import type { WaveJob } from "./wave-job";
+import { RoutingPool, WorkerPool } from "@/lib/workers/worker-pool";
+import type { BatchingResult } from "@/lib/batching/types";
+import type { WaveJob } from "./wave-task";
 import { waveTimeLimitMs, waveWorkerMaxHeapMb } from "./settings";
 
 // One worker per kind of work: the machine has two cores, and the other one keeps serving pickers

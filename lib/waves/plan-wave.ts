@@ -4,10 +4,10 @@ import { ownJobOrConflict } from "@/lib/jobs/join";
 import { getWave, ordersOfWave, storePlan } from "@/db/waves";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
-import { layoutGraph } from "@/lib/layout/graph-cache";
-import { WAVE_TIME_LIMIT_MS, wavePool } from "@/lib/workers/pool";
+import { layoutGraph } from "@/lib/layout-versions/graph-cache";
+import { WAVE_TIME_LIMIT_MS, wavePool } from "@/lib/workers/pools";
 import { cancellable, finished, finishJobIn, JobNoLongerRunning } from "@/lib/jobs/cancel";
-import { RoutingJobError } from "@/lib/routing/pool";
+import { RoutingJobError } from "@/lib/workers/worker-pool";
 import type { SignedInUser } from "@/lib/auth/session";
 import { toStoredBatch } from "./to-stored";
 

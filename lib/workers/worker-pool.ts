@@ -1,8 +1,8 @@
 // Node-only: runs routing jobs in worker_threads so long solves never block the server's event loop.
 import path from "node:path";
 import { Worker, type ResourceLimits } from "node:worker_threads";
-import type { JobResult, RoutingJob, SerializedError } from "./jobs";
-import { deserializeError } from "./jobs";
+import type { JobResult, RoutingJob, SerializedError } from "./routing-tasks";
+import { deserializeError } from "./routing-tasks";
 
 /** What a worker entry sends back; any entry speaking it (see ./serve-jobs) can back a pool. */
 type PoolMessage =
@@ -27,7 +27,7 @@ export interface PoolOptions {
   size?: number;
   /** Per-job limit when run() gives none; default 30 s. */
   defaultTimeoutMs?: number;
-  /** Worker entry, relative to process.cwd(); default lib/routing/worker.ts. */
+  /** Worker entry, relative to process.cwd(); default lib/workers/routing-worker.ts. */
   workerPath?: string;
   /** Heap caps for each worker: a job that needs more fails as "crashed" instead of growing the process. */
   resourceLimits?: ResourceLimits;
@@ -70,7 +70,7 @@ export class WorkerPool<Job, Result> {
     this.timeoutMs = options.defaultTimeoutMs ?? 30_000;
     // Resolved from the working directory (repo root under next start and vitest) so that no
     // bundler tries to follow the worker file.
-    this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath ?? "lib/routing/worker.ts");
+    this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath ?? "lib/workers/routing-worker.ts");
     this.resourceLimits = options.resourceLimits;
   }
 

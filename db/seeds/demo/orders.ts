@@ -1,8 +1,8 @@
-import { documentBins } from "@/lib/editor/bin-codes";
-import type { EditorDocument } from "@/lib/editor/document";
+import { documentBins } from "@/lib/floor-plan/bin-codes";
+import type { EditorDocument } from "@/lib/floor-plan/document";
 import { mulberry32, randomInt } from "@/lib/routing/random";
-import { fennickCatalogue, type CatalogueItem } from "./demo-catalogue";
-import type { WaveOrder } from "./types";
+import { fennickCatalogue, type CatalogueItem } from "./catalogue";
+import type { WaveOrder } from "../../../lib/batching/types";
 
 /*
  * Invented demo data for the invented Fennick Supply Co. (see docs/design.md): an item master slotted into

@@ -1,6 +1,6 @@
 import "server-only";
-import type { EditorDocument } from "@/lib/editor/document";
-import { routingPool } from "@/lib/workers/pool";
+import type { EditorDocument } from "@/lib/floor-plan/document";
+import { routingPool } from "@/lib/workers/pools";
 import { buildLayout, type BuiltLayout } from "./build";
 
 /** buildLayout with Floyd–Warshall, the O(V³) part, in the worker pool, off the server's event loop. */

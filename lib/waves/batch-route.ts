@@ -1,7 +1,7 @@
 import { accessRoute } from "@/lib/routing/access";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import { nodeAccessPoint, type AccessPoint, type CompactGraph } from "@/lib/routing/graph";
-import { routeCells } from "@/lib/layout/route-cells";
+import { routeCells } from "@/lib/layout-versions/route-cells";
 
 /** The walked cells of a batch, depot → stops in order → drop-off, and each leg's length. */
 export function batchRouteCells(graph: CompactGraph, matrix: DistanceMatrix, from: string, to: string, stopAccessPoints: number[]): { cells: number[]; legsMm: number[] } {

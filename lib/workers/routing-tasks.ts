@@ -1,10 +1,10 @@
-import type { CostMatrix } from "./cost-matrix";
-import { CostOverflowError, UnreachableStopError } from "./errors";
-import type { DistanceMatrix } from "./floyd-warshall";
-import { floydWarshall } from "./floyd-warshall";
-import type { CompactGraph } from "./graph";
-import type { SequenceRequest, SequenceResult } from "./sequence";
-import { sequenceStops } from "./sequence";
+import type { CostMatrix } from "../routing/cost-matrix";
+import { CostOverflowError, UnreachableStopError } from "../routing/errors";
+import type { DistanceMatrix } from "../routing/floyd-warshall";
+import { floydWarshall } from "../routing/floyd-warshall";
+import type { CompactGraph } from "../routing/graph";
+import type { SequenceRequest, SequenceResult } from "../routing/sequence";
+import { sequenceStops } from "../routing/sequence";
 
 /** Work the pool can run off the main thread. Plain data so it survives postMessage. */
 export type RoutingJob =

@@ -1,5 +1,5 @@
 // Pure routing engine: no database, framework or Node-only imports here, so it runs in a
-// worker thread or a browser. The worker pool lives in ./pool (Node only) and is not re-exported.
+// worker thread or a browser. The worker pools that run it live in lib/workers/ (Node only).
 export * from "./constants";
 export * from "./drawing";
 export * from "./graph";

@@ -11,9 +11,7 @@ import { estimateSeconds } from "@/lib/batching/estimate";
 import type { PickListData } from "@/lib/contracts/print";
 import { code128Svg } from "./barcode";
 import { batchLabel } from "./batch-label";
-
-/** Bins from this level up are out of reach from the floor (common practice: level 3 and above). */
-const HIGH_LEVEL = 3;
+import { HIGH_LEVEL } from "@/lib/picking/rules";
 
 /** Everything the pick lists of a wave's batches show; `numbers` picks some, default all. */
 export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: number[]): Promise<PickListData[]> {

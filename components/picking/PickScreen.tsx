@@ -7,7 +7,7 @@ import { postJson, swrFetcher } from "@/lib/client/fetch-json";
 import { ProgressBar } from "@/components/ProgressBar";
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/floor-plan/document";
-import type { PickLineState } from "@/db/picking";
+import type { PickLineState } from "@/lib/contracts/picking";
 import type { PickViewDTO } from "@/lib/picking/view";
 import { CAUTION_TEXT, lineForScan, SHORT_REASONS, tapHoldMs, walkingOrder, type ShortReason } from "@/lib/picking/rules";
 import { newIdempotencyKey } from "@/lib/picking/key";

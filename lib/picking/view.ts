@@ -1,6 +1,7 @@
 import "server-only";
-import { getBatch } from "@/db/waves";
-import { pickLines, type PickBatchRow, type PickLineState } from "@/db/picking";
+import { getBatch } from "@/db/batches";
+import { pickLines, type PickBatchRow } from "@/db/picking";
+import type { PickLineState } from "@/lib/contracts/picking";
 import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { immutableCache } from "@/lib/cache/immutable-cache";

@@ -114,7 +114,12 @@ describe("the import-boundary checker", () => {
     "lib/waves/plan.ts": `import "server-only";\nimport { batches } from "@/db/batches";\nimport { pool } from "../workers/pool";`,
     "db/batches.ts": `import "server-only";\nimport { knex } from "./knex";\nimport type { Bin } from "@/lib/floor-plan/bins";`,
     "db/knex.ts": `import "server-only";`,
-    "components/Plan.tsx": `"use client";\nimport { useState } from "react";\nimport type { Bin } from "@/lib/floor-plan/bins";\nimport { label } from "@/lib/client/labels";\nexport const Plan = () => null;`,
+    "components/Plan.tsx": [
+      `"use client";`,
+      `import { useState } from "react";`,
+      `import type { Bin } from "@/lib/floor-plan/bins";`,
+      `import { label } from "@/lib/client/labels";`,
+    ].join("\n"),
     // A type-only import of a server module leaves nothing in the compiled file: not server-only.
     "lib/client/labels.ts": `import type { Plan } from "@/lib/waves/plan";\nexport const label = "";`,
     "app/page.tsx": `import { plan } from "@/lib/waves/plan";\nimport { Plan } from "@/components/Plan";`,

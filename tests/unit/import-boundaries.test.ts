@@ -36,6 +36,8 @@ const WEB_AND_SERVER = [
   SERVER_ONLY,
 ];
 const WORKER_THREADS = ["node:worker_threads", "worker_threads"];
+// Folders and files that are server side as a whole; elsewhere (lib/imports, lib/print, lib/uploads)
+// a server module is one that imports server-only.
 const SERVER_MODULES = [
   "app/**",
   "components/**",
@@ -46,9 +48,6 @@ const SERVER_MODULES = [
   "lib/layout-versions/**",
   "lib/workers/**",
   "lib/mail/**",
-  "lib/imports/**",
-  "lib/print/**",
-  "lib/uploads/**",
   "lib/picking/access.ts",
   "lib/picking/confirm.ts",
   "lib/picking/view.ts",

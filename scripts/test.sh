@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # npm test: every test suite, with every service it needs, from nothing; nothing is left running.
-#   Debian packages (MariaDB, Chromium) -> node_modules -> unit suite (no services)
+#   Debian packages (MariaDB, Chromium) -> node_modules -> format check + unit suite (no services)
 #   -> private MariaDB in .data/test on 127.0.0.1:33062 -> fresh database "trailbin_test"
 #   -> migrations + seed -> next build into .next-test (only when sources changed; always in CI)
 #   -> next start on http://127.0.0.1:3001 -> integration + browser suites.
@@ -110,6 +110,21 @@ run_vitest() {
   TOTAL_FAILED=$((TOTAL_FAILED + failed))
 }
 
+# check_format : prettier in check mode over the tree (.prettierignore says what it skips). An
+# unformatted tree counts as one failed test, so the closing line shows it.
+check_format() {
+  local rc=0
+  log "checking the formatting (prettier --check)"
+  node node_modules/prettier/bin/prettier.cjs --check . --log-level warn --cache --cache-location "$TEST_DIR/prettier-cache" </dev/null || rc=$?
+  if ((rc == 0)); then
+    TOTAL_PASSED=$((TOTAL_PASSED + 1))
+  else
+    ANY_FAILED=1
+    TOTAL_FAILED=$((TOTAL_FAILED + 1))
+    warn "the formatting check failed (prettier exit status $rc) for the files above: Run npm run format"
+  fi
+}
+
 # start_services : everything the integration and browser suites talk to.
 start_services() {
   next_stop_stale "$NEXT_PIDFILE"
@@ -149,7 +164,10 @@ main() {
   ensure_node_modules
   export CHROMIUM_PATH=/usr/bin/chromium
 
-  if wants unit; then run_vitest unit --project unit; fi
+  if wants unit; then
+    check_format
+    run_vitest unit --project unit
+  fi
 
   if wants_services; then
     load_test_env

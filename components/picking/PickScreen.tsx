@@ -8,7 +8,7 @@ import { ProgressBar } from "@/components/ProgressBar";
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/floor-plan/document";
 import type { PickLineState } from "@/lib/contracts/picking";
-import type { PickViewDTO } from "@/lib/picking/view";
+import type { PickViewDTO } from "@/lib/contracts/picking";
 import { CAUTION_TEXT, lineForScan, SHORT_REASONS, tapHoldMs, walkingOrder, type ShortReason } from "@/lib/picking/rules";
 import { newIdempotencyKey } from "@/lib/picking/key";
 import { enqueue, flushQueue, readQueue, type QueuedConfirmation } from "@/lib/picking/queue";

@@ -1,4 +1,5 @@
 // What a picker's handheld gets from the picking API. Types only.
+import type { Caution } from "@/lib/picking/rules";
 
 export type PickBatchStatus = "planned" | "released" | "picking" | "done";
 
@@ -35,4 +36,25 @@ export type MyBatchDTO = PickBatchRef & {
   lineCount: number;
   openLines: number;
   shortLines: number;
+};
+
+export type PickStopDTO = {
+  seq: number;
+  x: number;
+  y: number;
+  binCodes: string[];
+  lines: PickLineState[];
+  cautions: Caution[];
+  /** The path from the previous stop (the depot for the first), as floor-plan cells. */
+  pathCells: number[];
+  legMm: number;
+};
+
+export type PickViewDTO = {
+  /** `version` goes back with every confirmation: it changes when the batch is taken or given back. */
+  batch: { id: number; waveName: string; number: number; status: PickBatchStatus; version: number; assignedName: string | null };
+  depot: string;
+  dropoff: string;
+  stops: PickStopDTO[];
+  finalLeg: { cells: number[]; mm: number };
 };

@@ -15,3 +15,6 @@ export type UserDTO = {
   createdAt: string;
   version: number;
 };
+
+/** The person a session belongs to, as pages and handlers see them. */
+export type SignedInUser = { id: string; email: string; displayName: string; role: Role; siteId: number };

@@ -47,7 +47,6 @@ const SERVER_MODULES = [
   "lib/waves/**",
   "lib/layout-versions/**",
   "lib/workers/**",
-  "lib/mail/**",
   "lib/picking/access.ts",
   "lib/picking/confirm.ts",
   "lib/picking/view.ts",

@@ -6,12 +6,10 @@ import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { batchRouteCells } from "@/lib/waves/batch-route";
 import { documentBins } from "@/lib/floor-plan/bin-codes";
 import { estimateSeconds } from "@/lib/batching/estimate";
+import { HIGH_LEVEL } from "@/lib/picking/rules";
 import type { PickListProps } from "@/components/print/PickList";
 import { code128Svg } from "./barcode";
 import { batchLabel } from "./batch-label";
-
-/** Bins from this level up are out of reach from the floor (common practice: level 3 and above). */
-const HIGH_LEVEL = 3;
 
 /** Everything the pick lists of a wave's batches show; `numbers` picks some, default all. */
 export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: number[]): Promise<PickListProps[]> {

@@ -1,5 +1,5 @@
 import { SIDES, SIDE_DX, SIDE_DY, type GridDrawing } from "@/lib/routing/drawing";
-import { searchCells } from "@/lib/routing/reachability";
+import { searchStart } from "@/lib/routing/reachability";
 
 /**
  * Cell-grid searches behind the live checks. Walking with the one-way marks they use the routing
@@ -9,9 +9,16 @@ export { reachableFrom, reachingTo } from "@/lib/routing/reachability";
 
 /** Floor cells connected to `starts` when one-way marks are ignored. */
 export function connectedTo(d: GridDrawing, starts: number[]): Uint8Array {
-  return searchCells(d, starts, (c, _x, _y, visit) => {
-    for (const nc of floorNeighbours(d, c)) visit(nc);
-  });
+  const { seen, queue } = searchStart(d, starts);
+  for (let head = 0; head < queue.length; head++) {
+    for (const nc of floorNeighbours(d, queue[head] as number)) {
+      if (!seen[nc]) {
+        seen[nc] = 1;
+        queue.push(nc);
+      }
+    }
+  }
+  return seen;
 }
 
 /** Splits the marked floor cells into groups that touch side by side (one-way marks ignored). */

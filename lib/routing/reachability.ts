@@ -6,42 +6,49 @@ import { canStep, SIDES, SIDE_DX, SIDE_DY, type GridDrawing } from "./drawing";
  * editor's live checks (lib/floor-plan/reachability.ts) both search with these.
  */
 
-/** Calls `visit` with each cell one step on from cell c at (x, y). */
-export type NextCells = (c: number, x: number, y: number, visit: (next: number) => void) => void;
-
-/** Breadth-first search from the floor cells among `seeds`: 1 for each cell reached. `next` only offers floor cells. */
-export function searchCells(d: GridDrawing, seeds: number[], next: NextCells): Uint8Array {
-  const seen = new Uint8Array(d.width * d.height);
-  const queue: number[] = [];
-  const visit = (c: number) => {
-    if (seen[c]) return;
-    seen[c] = 1;
-    queue.push(c);
-  };
-  for (const c of seeds) if (d.cells[c] === "floor") visit(c);
-  for (let head = 0; head < queue.length; head++) {
-    const c = queue[head] as number;
-    const x = c % d.width;
-    next(c, x, (c - x) / d.width, visit);
-  }
-  return seen;
-}
-
 /** Floor cells a walker can reach from `starts`, following one-way marks. */
 export function reachableFrom(d: GridDrawing, starts: number[]): Uint8Array {
-  return searchCells(d, starts, (c, x, y, visit) => {
-    for (const dir of SIDES) if (canStep(d, x, y, dir)) visit(c + SIDE_DY[dir] * d.width + SIDE_DX[dir]);
-  });
+  return search(d, starts, false);
 }
 
 /** Floor cells from which a walker can reach one of `targets`, following one-way marks. */
 export function reachingTo(d: GridDrawing, targets: number[]): Uint8Array {
-  return searchCells(d, targets, (_c, x, y, visit) => {
-    for (const dir of SIDES) {
-      // A predecessor stands one cell behind and steps towards `dir` into c; canStep refuses one off the grid.
-      const px = x - SIDE_DX[dir];
-      const py = y - SIDE_DY[dir];
-      if (canStep(d, px, py, dir)) visit(py * d.width + px);
+  return search(d, targets, true);
+}
+
+/** The start of a breadth-first search: the floor cells among `cells` marked seen and queued. */
+export function searchStart(d: GridDrawing, cells: number[]): { seen: Uint8Array; queue: number[] } {
+  const seen = new Uint8Array(d.width * d.height);
+  const queue: number[] = [];
+  for (const c of cells) {
+    if (d.cells[c] === "floor" && !seen[c]) {
+      seen[c] = 1;
+      queue.push(c);
     }
-  });
+  }
+  return { seen, queue };
+}
+
+// One loop for both directions, without a callback per cell: the editor runs it on every edit of
+// plans up to 400 × 400 cells.
+function search(d: GridDrawing, seeds: number[], backwards: boolean): Uint8Array {
+  const { seen, queue } = searchStart(d, seeds);
+  const w = d.width;
+  for (let head = 0; head < queue.length; head++) {
+    const c = queue[head] as number;
+    const x = c % w;
+    const y = (c - x) / w;
+    for (const dir of SIDES) {
+      // Backwards, a predecessor stands one cell behind and steps towards `dir` into c; canStep
+      // refuses a cell off the grid.
+      const sx = backwards ? x - SIDE_DX[dir] : x;
+      const sy = backwards ? y - SIDE_DY[dir] : y;
+      const nc = backwards ? sy * w + sx : c + SIDE_DY[dir] * w + SIDE_DX[dir];
+      if (!seen[nc] && canStep(d, sx, sy, dir)) {
+        seen[nc] = 1;
+        queue.push(nc);
+      }
+    }
+  }
+  return seen;
 }

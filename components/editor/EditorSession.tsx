@@ -8,7 +8,8 @@ import { editorReducer, initialEditorState, isDirty, type Intent } from "@/lib/f
 import { intentForKey } from "@/lib/floor-plan/shortcuts";
 import { backgroundUrl } from "./api";
 import { EditorToolbar } from "./EditorToolbar";
-import { EditorCanvas, type DrawnRun, type Focus } from "./EditorCanvas";
+import type { DrawnRun } from "@/lib/floor-plan/gestures";
+import { EditorCanvas, type Focus } from "./EditorCanvas";
 import { RULER_PX } from "./Rulers";
 import { ChecksPanel } from "./ChecksPanel";
 import { BinListPanel } from "./BinListPanel";

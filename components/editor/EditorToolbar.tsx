@@ -1,21 +1,10 @@
 "use client";
 
 import type { Side } from "@/lib/routing/drawing";
-import type { EditorState, Intent, Tool } from "@/lib/floor-plan/editor-state";
-import { TOOL_KEYS } from "@/lib/floor-plan/shortcuts";
+import type { EditorState, Intent } from "@/lib/floor-plan/editor-state";
+import { offeredTools, paintsWith, toolRow } from "@/lib/floor-plan/tools";
 import { describeCommand } from "@/lib/floor-plan/commands";
 import { canRedo, canUndo } from "@/lib/floor-plan/history";
-
-const TOOLS: { tool: Tool; label: string }[] = [
-  { tool: "select", label: "Select" },
-  { tool: "floor", label: "Floor" },
-  { tool: "blocked", label: "Blocked" },
-  { tool: "erase", label: "Erase" },
-  { tool: "rack", label: "Rack run" },
-  { tool: "one-way", label: "One-way" },
-  { tool: "depot", label: "Depot" },
-  { tool: "dropoff", label: "Drop-off" },
-];
 
 const DIRS: { dir: Side | null; label: string; glyph: string }[] = [
   { dir: "N", label: "Walk north (up)", glyph: "↑" },
@@ -25,17 +14,6 @@ const DIRS: { dir: Side | null; label: string; glyph: string }[] = [
   { dir: null, label: "Clear one-way marks", glyph: "✕" },
 ];
 
-const HINT: Record<Tool, string> = {
-  select: "Click a rack run, depot or drop-off to select it; drag to move it, or drag the empty floor to pan. Arrow keys move, Delete removes.",
-  floor: "Drag to paint walkable floor.",
-  blocked: "Drag to paint walls, columns and docks.",
-  erase: "Drag to paint outside the building (clears one-way marks there).",
-  rack: "Drag along a row or column of cells to draw a rack run, then fill in its numbering.",
-  "one-way": "Drag along an aisle to mark the walking direction.",
-  depot: "Click walkable floor where pickers collect their carts.",
-  dropoff: "Click walkable floor where carts are dropped for packing.",
-};
-
 type Props = { state: EditorState; dispatch: (i: Intent) => void; onFit: () => void };
 
 /** Tools, undo/redo and zoom. Every button sends the same intents as the keyboard. */
@@ -43,15 +21,15 @@ export function EditorToolbar({ state, dispatch, onFit }: Props) {
   const { history, canEdit, tool } = state;
   const lastDone = history.past[history.past.length - 1];
   const nextRedo = history.future[0];
-  const tools = canEdit ? TOOLS : TOOLS.filter((t) => t.tool === "select");
-  const painting = tool === "floor" || tool === "blocked" || tool === "erase";
+  const tools = offeredTools(canEdit);
+  const painting = paintsWith(tool) !== undefined;
   return (
     <div className="space-y-2">
       <div role="toolbar" aria-label="Floor plan tools" className="flex flex-wrap items-center gap-2">
         {tools.map((t) => (
-          <button key={t.tool} type="button" aria-pressed={tool === t.tool} aria-keyshortcuts={TOOL_KEYS[t.tool]} onClick={() => dispatch({ type: "tool", tool: t.tool })} className={tool === t.tool ? "btn-primary px-3" : "btn-quiet px-3"} title={`${t.label} (${TOOL_KEYS[t.tool]})`}>
+          <button key={t.tool} type="button" aria-pressed={tool === t.tool} aria-keyshortcuts={t.key} onClick={() => dispatch({ type: "tool", tool: t.tool })} className={tool === t.tool ? "btn-primary px-3" : "btn-quiet px-3"} title={`${t.label} (${t.key})`}>
             {t.label}
-            <kbd className="text-xs opacity-75">{TOOL_KEYS[t.tool]}</kbd>
+            <kbd className="text-xs opacity-75">{t.key}</kbd>
           </button>
         ))}
         {canEdit && (
@@ -101,7 +79,7 @@ export function EditorToolbar({ state, dispatch, onFit }: Props) {
           <p className="notice-info text-sm">One-way and forklift aisles follow site rules: mark them as the site&apos;s traffic plan says. Trailbin only plans walking routes; site safety rules always come first.</p>
         </div>
       )}
-      <p className="text-sm text-ink-soft">{canEdit ? HINT[tool] : "You can look at the drawing, its bins and its checks; editing is for layout admins. Drag to pan."}</p>
+      <p className="text-sm text-ink-soft">{canEdit ? toolRow(tool).hint : "You can look at the drawing, its bins and its checks; editing is for layout admins. Drag to pan."}</p>
     </div>
   );
 }

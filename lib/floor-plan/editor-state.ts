@@ -2,8 +2,9 @@ import type { Side } from "@/lib/routing/drawing";
 import type { EditorDocument } from "./document";
 import type { Command, PointKind } from "./commands";
 import { canRedo, canUndo, record, redo, revision, startHistory, undo, type History } from "./history";
+import { toolRow, type Tool } from "./tools";
 
-export type Tool = "select" | "floor" | "blocked" | "erase" | "rack" | "one-way" | "depot" | "dropoff";
+export type { Tool } from "./tools";
 export type Selection = { kind: "run" | PointKind; id: string } | null;
 export type PaintShape = "brush" | "rect";
 
@@ -44,8 +45,6 @@ export const DEFAULT_CELL_PX = 20;
 export const MIN_CELL_PX = ZOOM_STEPS[0];
 export const MAX_CELL_PX = ZOOM_STEPS[ZOOM_STEPS.length - 1] as number;
 
-const EDIT_TOOLS: Tool[] = ["floor", "blocked", "erase", "rack", "one-way", "depot", "dropoff"];
-
 export function initialEditorState(document: EditorDocument, canEdit: boolean): EditorState {
   return { history: startHistory(document), canEdit, tool: "select", selection: null, cellPx: DEFAULT_CELL_PX, paintShape: "brush", oneWayDir: "N", savedRevision: 0 };
 }
@@ -58,9 +57,11 @@ export function editorReducer(state: EditorState, intent: Intent): EditorState {
       return state.canEdit && canUndo(state.history) ? withHistory(state, undo(state.history)) : state;
     case "redo":
       return state.canEdit && canRedo(state.history) ? withHistory(state, redo(state.history)) : state;
-    case "tool":
-      if (!state.canEdit && EDIT_TOOLS.includes(intent.tool)) return state;
-      return { ...state, tool: intent.tool, selection: intent.tool === "select" || intent.tool === "rack" ? state.selection : null };
+    case "tool": {
+      const row = toolRow(intent.tool);
+      if (!state.canEdit && row.edits) return state;
+      return { ...state, tool: intent.tool, selection: row.keepsSelection ? state.selection : null };
+    }
     case "select":
       return { ...state, selection: intent.selection && exists(state.history.present, intent.selection) ? intent.selection : null };
     case "delete-selection": {

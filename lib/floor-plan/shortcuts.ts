@@ -1,4 +1,5 @@
-import type { Intent, Tool } from "./editor-state";
+import type { Intent } from "./editor-state";
+import { toolForKey } from "./tools";
 
 export interface KeyLike {
   key: string;
@@ -7,11 +8,6 @@ export interface KeyLike {
   shiftKey: boolean;
   altKey: boolean;
 }
-
-/** Tool keys, also shown on the toolbar buttons. */
-export const TOOL_KEYS: Record<Tool, string> = { select: "V", floor: "F", blocked: "B", erase: "E", rack: "R", "one-way": "O", depot: "D", dropoff: "P" };
-
-const TOOL_BY_KEY = new Map(Object.entries(TOOL_KEYS).map(([tool, key]) => [key.toLowerCase(), tool as Tool]));
 
 const ARROWS: Record<string, [number, number]> = { ArrowUp: [0, -1], ArrowDown: [0, 1], ArrowLeft: [-1, 0], ArrowRight: [1, 0] };
 
@@ -25,7 +21,7 @@ export function intentForKey(k: KeyLike, ctx: { hasSelection: boolean }): Intent
     return null;
   }
   if (k.altKey || mod) return null;
-  const tool = TOOL_BY_KEY.get(key);
+  const tool = k.key.length === 1 ? toolForKey(key) : undefined;
   if (tool) return { type: "tool", tool };
   if (key === "+" || key === "=") return { type: "zoom", by: "in" };
   if (key === "-" || key === "_") return { type: "zoom", by: "out" };

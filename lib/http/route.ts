@@ -7,7 +7,7 @@ import { audit } from "@/db/audit";
 import { auditNoSession } from "@/lib/auth/refusals";
 import { clientIp } from "./client-ip";
 import { originAllowed } from "./origin";
-import { HttpError, jsonError } from "./errors";
+import { fieldsNeedAttention, HttpError, jsonError } from "./errors";
 import { zodIssues } from "./zod-issues";
 import { databaseOutage, databaseOutageResponse } from "./db-errors";
 import { readBodyCapped } from "./read-body";
@@ -85,7 +85,7 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
       if (opts.body) {
         const parsed = opts.body.safeParse(await readJson(req));
         if (!parsed.success) {
-          return jsonError(400, "Some fields need attention.", { issues: zodIssues(parsed.error) });
+          throw fieldsNeedAttention(zodIssues(parsed.error));
         }
         body = parsed.data;
       }

@@ -3,8 +3,6 @@ import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { listOrders, ORDER_STATUSES } from "@/db/orders";
 
-export const dynamic = "force-dynamic";
-
 const statusParam = z.enum([...ORDER_STATUSES, "all"]).default("all");
 
 export const GET = route({ access: "waves.read" }, async ({ user, req }) => {

@@ -16,7 +16,7 @@ export function parseId(raw: unknown): number | null {
 
 /** A route param naming a stored record, for `route({ params: z.object({ id: idParam("wave") }) })`: a mangled link points at nothing (404). */
 export const idParam = (what: string) =>
-  z.unknown().transform((raw, ctx) => {
+  z.unknown().optional().transform((raw, ctx) => {
     const id = parseId(raw);
     if (id === null) {
       ctx.addIssue({ code: "custom", message: noSuch(what) });
@@ -38,4 +38,4 @@ export function stringParam(params: Params, name: string): string {
 }
 
 /** A route param as text ("" when absent), for `route({ params })`. */
-export const textParam = () => z.unknown().transform((raw) => (typeof raw === "string" ? raw : ""));
+export const textParam = () => z.unknown().optional().transform((raw) => (typeof raw === "string" ? raw : ""));

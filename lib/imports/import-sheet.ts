@@ -2,8 +2,8 @@ import "server-only";
 import { rowsNeedFixing } from "@/lib/http/sheet-rows";
 import type { SignedInUser } from "@/lib/auth/session";
 import { analyseImport } from "./analyse";
-import { alreadyImported, commitImport, type AlreadyImported } from "./commit";
-import type { ImportCounts } from "./analyse";
+import { alreadyImported, commitImport } from "./commit";
+import type { AlreadyImported, ImportCounts } from "@/lib/contracts/imports";
 import type { ImportRequest } from "./request";
 
 /**

@@ -1,5 +1,6 @@
 import "server-only";
-import type { JobDTO, JobStart } from "@/db/jobs";
+import type { JobStart } from "@/db/jobs";
+import type { JobDTO } from "@/lib/contracts/jobs";
 import { HttpError } from "@/lib/http/errors";
 
 /**

@@ -1,5 +1,6 @@
 import "server-only";
-import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
+import { createOrJoinJob, updateJob } from "@/db/jobs";
+import type { JobDTO } from "@/lib/contracts/jobs";
 import { ownJobOrConflict } from "@/lib/jobs/join";
 import { cancellable, finished, finishJobIn, JobNoLongerRunning } from "@/lib/jobs/cancel";
 import { getDraft } from "@/db/floor-plans";

@@ -1,5 +1,6 @@
 import "server-only";
-import { getUser, LastAdminError, updateUser, type UserChange, type UserDTO } from "@/db/users";
+import { getUser, LastAdminError, updateUser, type UserChange } from "@/db/users";
+import type { UserDTO } from "@/lib/contracts/users";
 import { releaseBatchesOf } from "@/db/picking";
 import { audit } from "@/db/audit";
 import type { SignedInUser } from "@/lib/auth/session";

@@ -1,9 +1,9 @@
 import "server-only";
-import { createUser, DuplicateEmailError, type UserDTO } from "@/db/users";
+import { createUser, DuplicateEmailError } from "@/db/users";
+import type { Role, UserDTO } from "@/lib/contracts/users";
 import { createInvitedUser } from "@/db/tokens";
 import { getSite } from "@/db/sites";
 import { audit } from "@/db/audit";
-import type { Role } from "@/lib/auth/permissions";
 import type { SignedInUser } from "@/lib/auth/session";
 import { hashPassword } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";

@@ -1,5 +1,6 @@
 import "server-only";
-import { createWave, OrdersTakenError, unclaimedOpenOrderIds, type WaveSettings } from "@/db/waves";
+import { createWave, OrdersTakenError, unclaimedOpenOrderIds } from "@/db/waves";
+import type { WaveSettings } from "@/lib/contracts/waves";
 import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
 import type { SignedInUser } from "@/lib/auth/session";

@@ -1,7 +1,9 @@
 import "server-only";
-import { createOrJoinJob, updateJob, type JobDTO } from "@/db/jobs";
+import { createOrJoinJob, updateJob } from "@/db/jobs";
+import type { JobDTO } from "@/lib/contracts/jobs";
 import { ownJobOrConflict } from "@/lib/jobs/join";
-import { getWave, ordersOfWave, storePlan } from "@/db/waves";
+import { getWave, ordersOfWave } from "@/db/waves";
+import { storePlan } from "@/db/batches";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";

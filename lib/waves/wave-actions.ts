@@ -1,15 +1,17 @@
 import "server-only";
-import { discardWave, getWave, recordPrinted, releaseWave, type WaveDTO } from "@/db/waves";
+import { discardWave, getWave, releaseWave } from "@/db/waves";
+import { recordPrinted } from "@/db/batch-prints";
 import { audit } from "@/db/audit";
 import type { SignedInUser } from "@/lib/auth/session";
 import { HttpError } from "@/lib/http/errors";
 import { wentThrough } from "@/lib/http/repeat";
+import { appOrigin } from "@/lib/mail/config";
 
 const noWave = () => new HttpError(404, "No such wave at this site.");
 
 /** A planned wave's batches go to the pickers' handhelds. */
-export async function releaseWaveBy(user: SignedInUser, id: number, version: number, ip: string): Promise<WaveDTO> {
-  const outcome = await releaseWave(user.siteId, id, version, user.id);
+export async function releaseWaveBy(user: SignedInUser, id: number, version: number, ip: string) {
+  const outcome = await releaseWave(user.siteId, id, version, user.id, appOrigin());
   const wave = await getWave(user.siteId, id);
   if (!wave) throw noWave();
   if (outcome === "not-planned") throw new HttpError(409, "Plan the wave before releasing it.");

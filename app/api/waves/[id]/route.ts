@@ -2,7 +2,9 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { idParam } from "@/lib/http/params";
-import { getWave, listBatches, shortPicksOfWave } from "@/db/waves";
+import { getWave } from "@/db/waves";
+import { listBatches } from "@/db/batches";
+import { shortPicksOfWave } from "@/db/short-picks";
 
 export const GET = route({ access: "waves.read", params: z.object({ id: idParam("wave") }) }, async ({ user, params }) => {
   const wave = await getWave(user.siteId, params.id);

@@ -52,6 +52,9 @@ async function readJson(req: Request): Promise<unknown> {
   }
 }
 
+// No handler needs `export const dynamic = "force-dynamic"`: every one reads the request's headers
+// here (client address, cookie), which makes Next render it per request (ƒ in next build's table).
+
 /**
  * Every route handler goes through here, in this order: Origin (for state changes), session, permission,
  * body validation, then the handler. Any step that fails answers with a JSON error a person can read.

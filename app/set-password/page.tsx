@@ -7,8 +7,6 @@ import { MIN_PASSWORD_LENGTH } from "@/lib/auth/password";
 import { LINK_DEAD } from "@/lib/mail/answers";
 
 export const metadata: Metadata = { title: "Choose a password", referrer: "no-referrer" };
-export const dynamic = "force-dynamic";
-
 // Public: the link in an invitation or reset mail is the only credential. Looking the token up here
 // only decides what to show; POST /api/password/set checks it again and spends it.
 export default async function SetPasswordPage({ searchParams }: { searchParams: Promise<{ token?: string | string[] }> }) {

@@ -12,3 +12,8 @@ export class HttpError extends Error {
 export function jsonError(status: number, message: string, extra?: Record<string, unknown>): Response {
   return Response.json({ error: message, ...extra }, { status });
 }
+
+/** The 400 for a request whose fields a person must correct, each with what is wrong with it. */
+export function fieldsNeedAttention(issues: { path: string; message: string }[]): HttpError {
+  return new HttpError(400, "Some fields need attention.", { issues });
+}

@@ -7,7 +7,7 @@ import { audit } from "@/db/audit";
 import { auditNoSession } from "@/lib/auth/refusals";
 import { clientIp } from "./client-ip";
 import { originAllowed } from "./origin";
-import { HttpError, jsonError } from "./errors";
+import { fieldsNeedAttention, HttpError, jsonError } from "./errors";
 import { zodIssues } from "./zod-issues";
 import { databaseOutage, databaseOutageResponse } from "./db-errors";
 import { readBodyCapped } from "./read-body";
@@ -16,16 +16,16 @@ const MAX_JSON_BYTES = 256 * 1024;
 
 type Params = Record<string, string | string[] | undefined>;
 
-export type RouteContext<B, A extends Access> = {
+export type RouteContext<B, A extends Access, P = Params> = {
   req: Request;
   ip: string;
-  params: Params;
+  params: P;
   body: B;
   user: A extends "public" ? SignedInUser | null : SignedInUser;
   sessionId: string | null;
 };
 
-type Options<S extends z.ZodType | undefined, A extends Access> = { access: A; body?: S };
+type Options<S extends z.ZodType | undefined, A extends Access, P extends z.ZodType | undefined> = { access: A; body?: S; params?: P };
 
 function readCookie(req: Request, name: string): string | null {
   const header = req.headers.get("cookie");
@@ -52,13 +52,16 @@ async function readJson(req: Request): Promise<unknown> {
   }
 }
 
+// No handler needs `export const dynamic = "force-dynamic"`: every one reads the request's headers
+// here (client address, cookie), which makes Next render it per request (ƒ in next build's table).
+
 /**
  * Every route handler goes through here, in this order: Origin (for state changes), session, permission,
  * body validation, then the handler. Any step that fails answers with a JSON error a person can read.
  */
-export function route<A extends Access, S extends z.ZodType | undefined = undefined>(
-  opts: Options<S, A>,
-  handler: (ctx: RouteContext<S extends z.ZodType ? z.infer<S> : undefined, A>) => Promise<Response>,
+export function route<A extends Access, S extends z.ZodType | undefined = undefined, P extends z.ZodType | undefined = undefined>(
+  opts: Options<S, A, P>,
+  handler: (ctx: RouteContext<S extends z.ZodType ? z.infer<S> : undefined, A, P extends z.ZodType ? z.output<P> : Params>) => Promise<Response>,
 ) {
   return async (req: Request, context: { params: Promise<Params> }): Promise<Response> => {
     const ip = clientIp(req.headers);
@@ -85,14 +88,21 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
       if (opts.body) {
         const parsed = opts.body.safeParse(await readJson(req));
         if (!parsed.success) {
-          return jsonError(400, "Some fields need attention.", { issues: zodIssues(parsed.error) });
+          throw fieldsNeedAttention(zodIssues(parsed.error));
         }
         body = parsed.data;
+      }
+      let params: unknown = (await context.params) ?? {};
+      if (opts.params) {
+        // A URL param that names nothing (a mangled link) is a 404, after the body's 400s as before.
+        const parsed = opts.params.safeParse(params);
+        if (!parsed.success) throw new HttpError(404, parsed.error.issues[0]?.message ?? "Nothing is at this address. Check the link.");
+        params = parsed.data;
       }
       return await handler({
         req,
         ip,
-        params: (await context.params) ?? {},
+        params: params as P extends z.ZodType ? z.output<P> : Params,
         body: body as S extends z.ZodType ? z.infer<S> : undefined,
         user: user as RouteContext<unknown, A>["user"],
         sessionId: signedIn ? sessionId : null,

@@ -3,6 +3,7 @@ import type { EditorDocument, RackRun } from "@/lib/floor-plan/document";
 import { rackRunSchema } from "@/lib/floor-plan/document";
 import { bayAt, documentBins, formatCode, rackRunBins, rackRunCells } from "@/lib/floor-plan/bin-codes";
 import { cellOf, mapColumns, type RowProblem } from "@/lib/sheets/columns";
+import { rowsNeedFixing } from "@/lib/http/sheet-rows";
 
 export const BIN_SHEET_HEADER = ["Location code", "Aisle", "Bay", "Level"] as const;
 
@@ -14,13 +15,14 @@ const codeRule = rackRunSchema.shape.customCodes.element.shape.code;
 
 /**
  * A sheet of (code, bay, level) rows → the run's custom codes. Every bad row is reported with its
- * sheet row number; nothing is returned unless every row is good.
+ * sheet row number in a 400; nothing is returned unless every row is good.
  */
-export function parseBinSheet(doc: EditorDocument, run: RackRun, rows: string[][]): { ok: true; customCodes: RackRun["customCodes"] } | { ok: false; problems: RowProblem[] } {
+export function parseBinSheet(doc: EditorDocument, run: RackRun, rows: string[][]): RackRun["customCodes"] {
+  const refuse = (problems: RowProblem[]) => rowsNeedFixing(problems.length, "nothing was changed", problems);
   const [header, ...body] = rows;
-  if (!header) return { ok: false, problems: [{ row: 1, message: "The sheet is empty: it needs a header row with Location code, Bay and Level." }] };
+  if (!header) throw refuse([{ row: 1, message: "The sheet is empty: it needs a header row with Location code, Bay and Level." }]);
   const { columns, problems } = mapColumns(header, { code: ["Location code", "code", "bin", "location"], bay: ["Bay"], level: ["Level"] }, ["code", "bay", "level"]);
-  if (problems.length) return { ok: false, problems };
+  if (problems.length) throw refuse(problems);
   const bays = new Set(rackRunCells(run).map((_c, i) => bayAt(run, i)));
   const otherCodes = new Set(documentBins(doc).filter((b) => b.runId !== run.id).map((b) => b.code));
   const seenCodes = new Map<string, number>();
@@ -45,5 +47,6 @@ export function parseBinSheet(doc: EditorDocument, run: RackRun, rows: string[][
     seenCodes.set(code, row);
     if (code !== formatCode(run.pattern, { aisle: run.aisle, bay, level })) customCodes.push({ bay, level, code });
   });
-  return problems.length ? { ok: false, problems } : { ok: true, customCodes };
+  if (problems.length) throw refuse(problems);
+  return customCodes;
 }

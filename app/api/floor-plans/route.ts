@@ -4,8 +4,6 @@ import { HttpError } from "@/lib/http/errors";
 import { createFloorPlan, DuplicateFloorPlanError, listFloorPlans } from "@/db/floor-plans";
 import { blankDocument, MAX_SIDE_CELLS } from "@/lib/floor-plan/document";
 
-export const dynamic = "force-dynamic";
-
 const NewPlan = z.object({
   name: z.string().trim().min(1, "Give the floor plan a name.").max(120),
   widthM: z.number().positive().max(2000),

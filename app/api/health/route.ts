@@ -2,8 +2,6 @@ import { route } from "@/lib/http/route";
 import { databaseAnswers } from "@/db/health";
 import { DB_RETRY_AFTER_S } from "@/lib/http/db-errors";
 
-export const dynamic = "force-dynamic";
-
 export const GET = route({ access: "public" }, async () => {
   const database = await databaseAnswers();
   if (!database.ok) {

@@ -1,6 +1,4 @@
 import { route } from "@/lib/http/route";
 import { listItems } from "@/db/items";
 
-export const dynamic = "force-dynamic";
-
 export const GET = route({ access: "waves.read" }, async ({ user }) => Response.json({ items: await listItems(user.siteId) }));

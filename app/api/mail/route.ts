@@ -3,8 +3,6 @@ import { listSinkMessages } from "@/db/mail-sink";
 import { listOutbox } from "@/db/outbox";
 import { hideLinkTokens, mailAsSeenBy } from "@/lib/mail/mailbox-view";
 
-export const dynamic = "force-dynamic";
-
 // What the local SMTP sink received (newest first) and the state of the outbox behind it, with the
 // set-password links of other people's mail hidden (lib/mail/mailbox-view.ts says why).
 export const GET = route({ access: "users.manage" }, async ({ user }) => {

@@ -4,8 +4,6 @@ import { HttpError } from "@/lib/http/errors";
 import { listOrders } from "@/db/orders";
 import { ORDER_STATUSES } from "@/lib/contracts/orders";
 
-export const dynamic = "force-dynamic";
-
 const statusParam = z.enum([...ORDER_STATUSES, "all"]).default("all");
 
 export const GET = route({ access: "waves.read" }, async ({ user, req }) => {

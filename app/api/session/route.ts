@@ -17,7 +17,6 @@ export const GET = route({ access: "signed-in" }, async ({ user }) => Response.j
 
 export const POST = route({ access: "public", body: SignIn }, async ({ body, ip }) => {
   const result = await signIn(body.email, body.password, ip);
-  if (!result.ok) return Response.json({ error: result.message, retryAt: result.retryAt }, { status: result.status });
   const cookie = lucia().createSessionCookie(result.sessionId);
   const res = Response.json({ home: safeNextPath(body.next) ?? ROLE_HOME[result.role] });
   res.headers.append("Set-Cookie", cookie.serialize());

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { roleMay } from "@/lib/auth/permissions";
 import { getFloorPlan } from "@/db/floor-plans";
 import { FloorPlanEditor } from "@/components/editor/FloorPlanEditor";
@@ -11,7 +12,7 @@ export const metadata: Metadata = { title: "Floor plan" };
 export default async function FloorPlanPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requireRole("floorplans.read", `/floor-plans/${id}`);
-  const plan = /^\d{1,9}$/.test(id) ? await getFloorPlan(user.siteId, Number(id)) : null;
+  const plan = await getFloorPlan(user.siteId, pageId(id));
   if (!plan) notFound();
   return (
     <>

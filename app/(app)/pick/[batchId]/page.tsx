@@ -3,8 +3,9 @@ import Link from "next/link";
 import { headers } from "next/headers";
 import { forbidden, notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { clientIp } from "@/lib/http/client-ip";
-import { mayWorkBatch } from "@/lib/picking/access";
+import { BatchRefusal, workableBatch } from "@/lib/picking/access";
 import { pickView } from "@/lib/picking/view";
 import { PickScreen } from "@/components/picking/PickScreen";
 
@@ -14,20 +15,22 @@ export default async function PickPage({ params }: { params: Promise<{ batchId: 
   const { batchId } = await params;
   const path = `/pick/${batchId}`;
   const user = await requireRole("picks.work", path);
-  const id = /^\d{1,9}$/.test(batchId) ? Number(batchId) : null;
-  if (!id) notFound();
-  const access = await mayWorkBatch(user, id, clientIp(await headers()), path);
-  if (!access.ok && access.status === 404) notFound();
-  if (!access.ok && access.status === 403) forbidden();
-  if (!access.ok) {
+  const id = pageId(batchId);
+  const batch = await workableBatch(user, id, clientIp(await headers()), path).catch((e: unknown) => {
+    if (!(e instanceof BatchRefusal)) throw e;
+    return e;
+  });
+  if (batch instanceof BatchRefusal) {
+    if (batch.status === 404) notFound();
+    if (batch.status === 403) forbidden();
     return (
       <div className="mx-auto max-w-md">
-        <h1>Batch {access.batch?.number ?? id}</h1>
-        <p className="notice-error mt-4">{access.message}</p>
+        <h1>Batch {batch.batch?.number ?? id}</h1>
+        <p className="notice-error mt-4">{batch.message}</p>
         <Link className="btn-quiet mt-4 w-full" href="/my-batches">Back to my batches</Link>
       </div>
     );
   }
-  const { view, document } = await pickView(user.siteId, access.batch);
+  const { view, document } = await pickView(user.siteId, batch);
   return <PickScreen initial={view} document={document} />;
 }

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { roleMay } from "@/lib/auth/permissions";
 import { getWave } from "@/db/waves";
 import { listBatches } from "@/db/batches";
@@ -19,7 +20,7 @@ export const metadata: Metadata = { title: "Wave" };
 export default async function WavePage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requireRole("waves.read", `/waves/${id}`);
-  const wave = /^\d{1,9}$/.test(id) ? await getWave(user.siteId, Number(id)) : null;
+  const wave = await getWave(user.siteId, pageId(id));
   if (!wave) notFound();
   const [batches, site, shortPicks] = await Promise.all([listBatches(wave.id), getSite(user.siteId), shortPicksOfWave(wave.id)]);
   const timing = siteTiming(site);

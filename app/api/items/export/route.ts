@@ -4,8 +4,6 @@ import { BIN_SEPARATOR } from "@/lib/imports/fields";
 import { TEMPLATE_SHEET, templateHeader } from "@/lib/imports/template";
 import { downloadResponse, workbookBytes } from "@/lib/sheets/write";
 
-export const dynamic = "force-dynamic";
-
 // The template's columns, so an exported item master can be edited and imported back as it is.
 // workbookBytes escapes every text cell that a spreadsheet would run as a formula.
 export const GET = route({ access: "waves.read" }, async ({ user }) => {

@@ -11,8 +11,6 @@ import { resetMail, setPasswordLink } from "@/lib/mail/messages";
 import { appOrigin } from "@/lib/mail/config";
 import { RESET_ANSWER } from "@/lib/mail/answers";
 
-export const dynamic = "force-dynamic";
-
 const Body = z.object({ email: z.string().trim().max(254).email("Enter a valid e-mail address.") });
 
 async function mailResetLink(email: string): Promise<void> {

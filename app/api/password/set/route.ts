@@ -1,14 +1,12 @@
 import { z } from "zod";
 import { route } from "@/lib/http/route";
-import { HttpError } from "@/lib/http/errors";
+import { fieldsNeedAttention, HttpError } from "@/lib/http/errors";
 import { hashPassword, MIN_PASSWORD_LENGTH } from "@/lib/auth/password";
 import { passwordProblem } from "@/lib/auth/password-strength";
 import { peekToken, setPasswordWithToken } from "@/db/tokens";
 import { findUserForSignIn } from "@/db/users";
 import { audit } from "@/db/audit";
 import { LINK_DEAD } from "@/lib/mail/answers";
-
-export const dynamic = "force-dynamic";
 
 const Body = z.object({
   token: z.string().max(200),
@@ -26,7 +24,7 @@ export const POST = route({ access: "public", body: Body }, async ({ body, ip })
   if (found) {
     const person = await findUserForSignIn(found.email);
     const problem = passwordProblem(body.password, { email: found.email, name: person?.displayName });
-    if (problem) throw new HttpError(400, "Some fields need attention.", { issues: [{ path: "password", message: problem }] });
+    if (problem) throw fieldsNeedAttention([{ path: "password", message: problem }]);
   }
   const done = await setPasswordWithToken(body.token, await hashPassword(body.password));
   if (!done) {

@@ -4,8 +4,6 @@ import { HttpError } from "@/lib/http/errors";
 import { previewWave } from "@/db/waves";
 import { getLayoutVersionById } from "@/db/layout-versions";
 
-export const dynamic = "force-dynamic";
-
 // The same filter the new-wave form sends to POST /api/waves, as query parameters.
 const Query = z.object({
   layoutVersionId: z.string().regex(/^[1-9]\d{0,8}$/, "Choose the layout version from the list.").transform(Number),

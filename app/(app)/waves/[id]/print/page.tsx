@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { roleMay } from "@/lib/auth/permissions";
 import { getWave } from "@/db/waves";
 import { pickListsOf } from "@/lib/print/pick-list-data";
@@ -12,7 +13,7 @@ export const metadata: Metadata = { title: "Pick lists" };
 export default async function WavePrintPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requireRole("waves.read", `/waves/${id}/print`);
-  const wave = /^\d{1,9}$/.test(id) ? await getWave(user.siteId, Number(id)) : null;
+  const wave = await getWave(user.siteId, pageId(id));
   if (!wave) notFound();
   const lists = await pickListsOf(user.siteId, wave);
   return (

@@ -1,9 +1,9 @@
 import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
-import { intParam } from "@/lib/http/params";
+import { idParam } from "@/lib/http/params";
 import { rowId, rowVersion } from "@/lib/http/body-fields";
-import { mayWorkBatch } from "@/lib/picking/access";
+import { workableBatch } from "@/lib/picking/access";
 import { confirmPick } from "@/lib/picking/confirm";
 import { SHORT_REASONS } from "@/lib/picking/rules";
 
@@ -18,10 +18,9 @@ const Confirm = z.object({
   batchVersion: rowVersion(),
 });
 
-export const POST = route({ access: "picks.work", body: Confirm }, async ({ user, params, body, ip, req }) => {
-  const id = intParam(params, "batchId", "batch");
-  const access = await mayWorkBatch(user, id, ip, `POST ${new URL(req.url).pathname}`);
-  if (!access.ok) throw new HttpError(access.status, access.message);
+export const POST = route({ access: "picks.work", params: z.object({ batchId: idParam("batch") }), body: Confirm }, async ({ user, params, body, ip, req }) => {
+  const id = params.batchId;
+  await workableBatch(user, id, ip, `POST ${new URL(req.url).pathname}`);
   const outcome = await confirmPick(id, user.id, body, ip);
   if (outcome.kind === "mismatch") throw new HttpError(409, "This confirmation key was already used for a different pick. Confirm again.");
   // A repeat gets the stored answer unchanged; only a header says it is one.

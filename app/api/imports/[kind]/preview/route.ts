@@ -2,8 +2,6 @@ import { route } from "@/lib/http/route";
 import { analyseImport } from "@/lib/imports/analyse";
 import { kindOf, readImportRequest } from "@/lib/imports/request";
 
-export const dynamic = "force-dynamic";
-
 // Writes nothing: the headers, the mapping in use, the first rows and every row problem.
 export const POST = route({ access: "waves.plan" }, async ({ user, params, req }) => {
   const kind = kindOf(params);

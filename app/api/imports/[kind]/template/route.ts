@@ -3,8 +3,6 @@ import { kindOf } from "@/lib/imports/request";
 import { templateHeader, templateWorkbook } from "@/lib/imports/template";
 import { csvText, downloadResponse } from "@/lib/sheets/write";
 
-export const dynamic = "force-dynamic";
-
 export const GET = route({ access: "waves.plan" }, async ({ params, req }) => {
   const kind = kindOf(params);
   const name = kind === "items" ? "item-master-template" : "order-lines-template";

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { getFloorPlan } from "@/db/floor-plans";
 import { getLayoutVersion, listLayoutBins } from "@/db/layout-versions";
 import { VersionExplorer } from "@/components/floor-plans/VersionExplorer";
@@ -10,15 +11,13 @@ import { binDistancesFromDepots } from "@/lib/layout-versions/depot-distances";
 
 export const metadata: Metadata = { title: "Layout version" };
 
-const whole = (s: string) => (/^\d{1,9}$/.test(s) ? Number(s) : null);
-
 export default async function LayoutVersionPage({ params }: { params: Promise<{ id: string; number: string }> }) {
   const { id, number } = await params;
   const user = await requireRole("floorplans.read", `/floor-plans/${id}/versions/${number}`);
-  const planId = whole(id);
-  const n = whole(number);
-  const plan = planId ? await getFloorPlan(user.siteId, planId) : null;
-  const version = plan && n ? await getLayoutVersion(user.siteId, plan.id, n) : null;
+  const planId = pageId(id);
+  const n = pageId(number);
+  const plan = await getFloorPlan(user.siteId, planId);
+  const version = plan ? await getLayoutVersion(user.siteId, plan.id, n) : null;
   if (!plan || !version) notFound();
   const [rows, { graph, matrix }] = await Promise.all([listLayoutBins(version.id), layoutGraph(version.id)]);
   const fromDepot = binDistancesFromDepots(graph, matrix);

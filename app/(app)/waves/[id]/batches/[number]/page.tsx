@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { getWave } from "@/db/waves";
 import { getBatch } from "@/db/batches";
 import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
@@ -15,15 +16,13 @@ import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Batch" };
 
-const whole = (s: string) => (/^\d{1,9}$/.test(s) ? Number(s) : null);
-
 export default async function BatchPage({ params }: { params: Promise<{ id: string; number: string }> }) {
   const { id, number } = await params;
   const user = await requireRole("waves.read", `/waves/${id}/batches/${number}`);
-  const waveId = whole(id);
-  const n = whole(number);
-  const wave = waveId ? await getWave(user.siteId, waveId) : null;
-  const batch = wave && n ? await getBatch(wave.id, n) : null;
+  const waveId = pageId(id);
+  const n = pageId(number);
+  const wave = await getWave(user.siteId, waveId);
+  const batch = wave ? await getBatch(wave.id, n) : null;
   if (!wave || !batch) notFound();
   const v = await getLayoutVersionById(user.siteId, wave.layoutVersionId);
   const version = v ? await getLayoutVersion(user.siteId, v.floorPlanId, v.number) : null;

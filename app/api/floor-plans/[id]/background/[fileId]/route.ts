@@ -1,11 +1,12 @@
+import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
-import { stringParam } from "@/lib/http/params";
+import { textParam } from "@/lib/http/params";
 import { getUpload } from "@/db/uploads";
 import { readStoredFile } from "@/lib/uploads/store";
 
-export const GET = route({ access: "floorplans.read" }, async ({ user, params }) => {
-  const upload = await getUpload(user.siteId, stringParam(params, "fileId"));
+export const GET = route({ access: "floorplans.read", params: z.object({ fileId: textParam() }) }, async ({ user, params }) => {
+  const upload = await getUpload(user.siteId, params.fileId);
   const bytes = upload?.purpose === "floor-background" ? await readStoredFile(upload.id) : null;
   if (!upload || !bytes) throw new HttpError(404, "That picture is not stored here any more. Upload it again.");
   return new Response(new Uint8Array(bytes), {

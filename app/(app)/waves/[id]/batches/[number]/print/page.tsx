@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
+import { pageId } from "@/lib/http/page-params";
 import { roleMay } from "@/lib/auth/permissions";
 import { getWave } from "@/db/waves";
 import { pickListsOf } from "@/lib/print/pick-list-data";
@@ -12,9 +13,9 @@ export const metadata: Metadata = { title: "Pick list" };
 export default async function BatchPrintPage({ params }: { params: Promise<{ id: string; number: string }> }) {
   const { id, number } = await params;
   const user = await requireRole("waves.read", `/waves/${id}/batches/${number}/print`);
-  const wave = /^\d{1,9}$/.test(id) ? await getWave(user.siteId, Number(id)) : null;
-  const n = /^\d{1,9}$/.test(number) ? Number(number) : null;
-  const [list] = wave && n ? await pickListsOf(user.siteId, wave, [n]) : [];
+  const n = pageId(number);
+  const wave = await getWave(user.siteId, pageId(id));
+  const [list] = wave ? await pickListsOf(user.siteId, wave, [n]) : [];
   if (!wave || !list) notFound();
   return (
     <>

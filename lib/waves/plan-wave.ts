@@ -7,7 +7,7 @@ import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { WAVE_TIME_LIMIT_MS, wavePool } from "@/lib/workers/pools";
 import { cancellable, finished, finishJobIn, JobNoLongerRunning } from "@/lib/jobs/cancel";
-import { RoutingJobError } from "@/lib/workers/worker-pool";
+import { TaskError } from "@/lib/workers/worker-pool";
 import type { SignedInUser } from "@/lib/auth/session";
 import { toStoredBatch } from "./to-stored";
 
@@ -40,10 +40,10 @@ function duration(ms: number): string {
 /** What the planner reads on a failed job: what happened, that the wave is untouched, what to do next. */
 function failureMessage(e: unknown): string {
   const unchanged = "The wave is unchanged and can be planned again.";
-  if (e instanceof RoutingJobError && e.reason === "timeout") {
+  if (e instanceof TaskError && e.reason === "timeout") {
     return `Planning failed: it took longer than the time limit of ${duration(WAVE_TIME_LIMIT_MS)} and was stopped. ${unchanged} Plan it again, or make a smaller wave (an earlier cut-off or fewer priorities).`;
   }
-  if (e instanceof RoutingJobError && e.reason === "crashed") {
+  if (e instanceof TaskError && e.reason === "crashed") {
     const memory = /memory/i.test(e.message) ? " because it ran out of memory" : "";
     return `Planning failed: the planning worker stopped unexpectedly${memory}. ${unchanged} Plan it again; if it fails again, make a smaller wave (an earlier cut-off or fewer priorities) or tell your admin.`;
   }
@@ -86,7 +86,7 @@ async function runPlan(jobId: string, siteId: number, waveId: number, version: n
     }
   } catch (e) {
     if (e instanceof JobNoLongerRunning) return;
-    const cancelled = e instanceof RoutingJobError && e.reason === "cancelled";
+    const cancelled = e instanceof TaskError && e.reason === "cancelled";
     if (!cancelled) console.error(`wave planning job ${jobId} failed`, e);
     await updateJob(jobId, cancelled ? { status: "cancelled", message: "Planning was cancelled; the wave is as it was." } : { status: "failed", message: failureMessage(e) }).catch(() => undefined);
   } finally {

@@ -37,11 +37,9 @@ export type JobContext<Input> = {
 
 export type JobDefinition<Input> = {
   /** Who may watch a job of this kind, and who may stop it: it follows what the job works on. */
-  watch: Permission;
-  cancel: Permission;
-  /** The job's message once it starts running. */
-  startMessage: string;
-  cancelledMessage: string;
+  access: { watch: Permission; cancel: Permission };
+  /** The job's message once it starts running, and once it is cancelled. */
+  messages: { start: string; cancelled: string };
   /** The words a failed job shows a person; engine or SQL details stay in the server log. */
   failureMessage(e: unknown, jobId: string): string;
   run(ctx: JobContext<Input>): Promise<void>;
@@ -65,7 +63,7 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
   const aborts = new Map<string, AbortController>();
 
   async function run(jobId: string): Promise<void> {
-    const claimed = await store.claim(jobId, (kind) => kinds.get(kind)?.startMessage ?? "Starting");
+    const claimed = await store.claim(jobId, (kind) => kinds.get(kind)?.messages.start ?? "Starting");
     // Cancelled while it waited to start, or another worker has it.
     if (!claimed) return;
     const kind = claimed.job.kind;
@@ -101,7 +99,7 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
       if (e instanceof JobNoLongerRunning) return;
       pacer.stop();
       if (controller.signal.aborted) {
-        await store.update(jobId, { status: "cancelled", message: definition.cancelledMessage }).catch(() => undefined);
+        await store.update(jobId, { status: "cancelled", message: definition.messages.cancelled }).catch(() => undefined);
         return;
       }
       console.error(`${kind} job ${jobId} failed`, e);
@@ -147,8 +145,8 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
   async function jobFor(user: SignedInUser, id: string, need: "watch" | "cancel") {
     const job = await store.get(user.siteId, id);
     const definition = job ? kinds.get(job.kind) : undefined;
-    if (!job || !definition || !roleMay(user.role, definition.watch)) throw new HttpError(404, "No such job. It may belong to another site or have been cleared.");
-    if (!roleMay(user.role, definition[need])) throw new HttpError(403, "Your role may watch this job but not stop it.");
+    if (!job || !definition || !roleMay(user.role, definition.access.watch)) throw new HttpError(404, "No such job. It may belong to another site or have been cleared.");
+    if (!roleMay(user.role, definition.access[need])) throw new HttpError(403, "Your role may watch this job but not stop it.");
     return { job, definition };
   }
 
@@ -162,7 +160,7 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
    */
   async function cancelJob(user: SignedInUser, id: string): Promise<{ job: JobDTO; stopped: boolean }> {
     const { job, definition } = await jobFor(user, id, "cancel");
-    if (await store.update(job.id, { status: "cancelled", message: definition.cancelledMessage })) {
+    if (await store.update(job.id, { status: "cancelled", message: definition.messages.cancelled })) {
       aborts.get(job.id)?.abort();
       return { job: (await store.get(user.siteId, job.id)) ?? job, stopped: true };
     }

@@ -16,10 +16,8 @@ export type PublishResult = { layoutVersionId: number; number: number };
 type PublishInput = { floorPlanId: number; draftVersion: number };
 
 export const publishLayoutJob = defineJob<PublishInput>("publish-layout", {
-  watch: "floorplans.read",
-  cancel: "floorplans.edit",
-  startMessage: "Reading the draft",
-  cancelledMessage: "Publishing was cancelled; no new layout version was made.",
+  access: { watch: "floorplans.read", cancel: "floorplans.edit" },
+  messages: { start: "Reading the draft", cancelled: "Publishing was cancelled; no new layout version was made." },
   failureMessage: publishFailureMessage,
   async run({ siteId, userId, input: { floorPlanId, draftVersion }, progress, signal, finish }) {
     const draft = await getDraft(siteId, floorPlanId);

@@ -32,10 +32,8 @@ function failureMessage(e: unknown): string {
 type PlanInput = { waveId: number; version: number };
 
 export const planWaveJob = defineJob<PlanInput>("plan-wave", {
-  watch: "waves.read",
-  cancel: "waves.plan",
-  startMessage: "Loading orders and the layout",
-  cancelledMessage: "Planning was cancelled; the wave is as it was.",
+  access: { watch: "waves.read", cancel: "waves.plan" },
+  messages: { start: "Loading orders and the layout", cancelled: "Planning was cancelled; the wave is as it was." },
   failureMessage,
   async run({ siteId, input: { waveId, version }, progress, signal, finish }) {
     const wave = await getWave(siteId, waveId);

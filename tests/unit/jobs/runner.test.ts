@@ -52,10 +52,8 @@ function setUp(run: JobDefinition<{ n: number }>["run"]) {
   let runJob: (id: string) => Promise<void> = async () => {};
   const runner = createJobRunner(store, (r) => ((runJob = r), { enqueue: (id) => void queued.push(id) }));
   const kind = runner.defineJob<{ n: number }>("test-kind", {
-    watch: "waves.read",
-    cancel: "waves.plan",
-    startMessage: "Starting",
-    cancelledMessage: "Cancelled; nothing changed.",
+    access: { watch: "waves.read", cancel: "waves.plan" },
+    messages: { start: "Starting", cancelled: "Cancelled; nothing changed." },
     failureMessage: (e) => `Failed: ${(e as Error).message}`,
     run,
   });

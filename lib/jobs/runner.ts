@@ -57,10 +57,16 @@ export class JobNoLongerRunning extends Error {
   }
 }
 
-export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string) => Promise<void>) => JobQueue) {
-  const kinds = new Map<string, JobDefinition<never>>();
-  // Only a fast path for a cancel that reaches the process running the job: the job's row decides.
-  const aborts = new Map<string, AbortController>();
+/**
+ * What every runner of one process shares: the registered kinds, and the running jobs' stop switches
+ * (only a fast path for a cancel that reaches the process running the job: the job's row decides).
+ */
+export type RunnerState = { kinds: Map<string, JobDefinition<never>>; aborts: Map<string, AbortController> };
+
+export const newRunnerState = (): RunnerState => ({ kinds: new Map(), aborts: new Map() });
+
+export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string) => Promise<void>) => JobQueue, state: RunnerState = newRunnerState()) {
+  const { kinds, aborts } = state;
 
   async function run(jobId: string): Promise<void> {
     const claimed = await store.claim(jobId, (kind) => kinds.get(kind)?.messages.start ?? "Starting");
@@ -176,5 +182,3 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
 
   return { defineJob, startJob, watchJob, cancelJob, run };
 }
-
-export type JobRunner = ReturnType<typeof createJobRunner>;

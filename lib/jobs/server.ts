@@ -1,14 +1,14 @@
 import "server-only";
 import { claimJob, createOrJoinJob, failOrphanedJobs, getJob, updateJob } from "@/db/jobs";
-import { createJobRunner, type JobRunner } from "./runner";
+import { createJobRunner, newRunnerState, type RunnerState } from "./runner";
 import { inProcessQueue } from "./queue";
 
-// One runner per server process, shared by every route bundle: its kinds and its cancel fast path.
-const globalForJobs = globalThis as unknown as { trailbinJobRunner?: JobRunner };
-const runner = (globalForJobs.trailbinJobRunner ??= createJobRunner({ createOrJoin: createOrJoinJob, claim: claimJob, update: updateJob, get: getJob }, inProcessQueue));
+// Route bundles may each load their own copy of this module; they share the kinds and the running
+// jobs through globalThis, while each copy throws its own bundle's HttpError for route() to recognise.
+const globalForJobs = globalThis as unknown as { trailbinJobs?: RunnerState };
+const state = (globalForJobs.trailbinJobs ??= newRunnerState());
 
-export const { defineJob, startJob, watchJob, cancelJob } = runner;
-export { JobNoLongerRunning } from "./runner";
+export const { defineJob, startJob, watchJob, cancelJob } = createJobRunner({ createOrJoin: createOrJoinJob, claim: claimJob, update: updateJob, get: getJob }, inProcessQueue, state);
 
 /**
  * The in-process queue's jobs die with the process that ran them: at start, the ones a previous

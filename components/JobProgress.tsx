@@ -2,8 +2,9 @@
 
 import useSWR from "swr";
 import { requestJson, swrFetcher } from "@/lib/client/fetch-json";
+import type { JobDTO } from "@/lib/contracts/jobs";
 
-type Job = { status: "queued" | "running" | "done" | "failed" | "cancelled"; progress: number; message: string; result: unknown };
+type Job = Pick<JobDTO, "status" | "progress" | "message" | "result">;
 
 /** Follows a long job (publishing, planning) with a progress bar until it ends; optionally cancellable. */
 export function JobProgress({ jobId, what, done, onFinished, cancellable = false }: { jobId: string; what: string; done: (result: unknown, message: string) => React.ReactNode; onFinished?: () => void; cancellable?: boolean }) {

@@ -3,7 +3,7 @@ import { Logo } from "./Logo";
 import { SignOutButton } from "./SignOutButton";
 import { NavLink } from "./NavLink";
 import { roleMay, ROLE_LABEL, type Access } from "@/lib/auth/permissions";
-import type { SignedInUser } from "@/lib/auth/session";
+import type { SignedInUser } from "@/lib/contracts/users";
 
 const LINKS: { href: string; label: string; access: Access }[] = [
   { href: "/floor-plans", label: "Floor plans", access: "floorplans.read" },

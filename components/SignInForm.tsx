@@ -1,31 +1,15 @@
 "use client";
 
-import { useState } from "react";
-import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
+import { usePostForm } from "@/components/usePostForm";
 
 export function SignInForm({ next }: { next?: string }) {
-  const [failure, setFailure] = useState<ApiFailure | null>(null);
-  const [busy, setBusy] = useState(false);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    if (busy) return;
-    const form = new FormData(e.currentTarget);
-    setBusy(true);
-    setFailure(null);
-    const result = await postJson<{ home: string }>("/api/session", {
-      email: String(form.get("email") ?? ""),
-      password: String(form.get("password") ?? ""),
-      next,
-    });
-    if (result.ok) {
-      window.location.assign(result.data.home);
-      return;
-    }
-    setFailure(result);
-    setBusy(false);
-  }
+  const { onSubmit, failure, busy } = usePostForm<{ home: string }>({
+    url: "/api/session",
+    body: (form) => ({ email: String(form.get("email") ?? ""), password: String(form.get("password") ?? ""), next }),
+    onDone: (r) => window.location.assign(r.home),
+    leaves: true,
+  });
 
   return (
     <form onSubmit={onSubmit} className="space-y-5" noValidate>

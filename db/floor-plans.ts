@@ -1,17 +1,10 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
+import { isDuplicateKey } from "./rows";
 import type { EditorDocument } from "@/lib/floor-plan/document";
+import type { DraftDTO, FloorPlanSummary } from "@/lib/contracts/floor-plans";
 
-export type FloorPlanSummary = {
-  id: number;
-  name: string;
-  draftVersion: number;
-  draftUpdatedAt: string;
-  latestVersion: { id: number; number: number; publishedAt: string; binCount: number; fromDraftVersion: number } | null;
-};
-
-export type DraftDTO = { floorPlanId: number; version: number; document: EditorDocument; updatedAt: string; updatedByName: string | null };
 
 export async function listFloorPlans(siteId: number): Promise<FloorPlanSummary[]> {
   const plans = await db()("floor_plans as p")
@@ -49,7 +42,7 @@ export async function createFloorPlan(siteId: number, name: string, document: Ed
       await t("floor_plan_drafts").insert({ floor_plan_id: id, version: 1, document: JSON.stringify(document), updated_by: userId });
       return Number(id);
     } catch (e) {
-      if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new DuplicateFloorPlanError(name);
+      if (isDuplicateKey(e)) throw new DuplicateFloorPlanError(name);
       throw e;
     }
   };

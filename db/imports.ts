@@ -1,6 +1,7 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
+import { isDuplicateKey } from "./rows";
 import type { ImportKind } from "@/lib/imports/fields";
 
 export type ImportRecordDTO = { id: number; filename: string; rowCount: number; importedAt: string; importedBy: string | null };
@@ -37,7 +38,7 @@ export async function recordImport(trx: Knex.Transaction, r: { siteId: number; k
     const [id] = await trx("import_files").insert(row);
     return id as number;
   } catch (e) {
-    if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new DuplicateImportError("this file was imported already");
+    if (isDuplicateKey(e)) throw new DuplicateImportError("this file was imported already");
     throw e;
   }
 }

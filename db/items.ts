@@ -2,16 +2,10 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import type { ItemRecord } from "@/lib/imports/items";
-
-export type ItemDTO = { sku: string; description: string; uom: string; unitWeightG: number; bins: string[] };
+import { chunks } from "./rows";
+import type { ItemDTO } from "@/lib/contracts/items";
 
 const CHUNK = 500;
-
-function chunks<T>(a: readonly T[], size = CHUNK): T[][] {
-  const out: T[][] = [];
-  for (let i = 0; i < a.length; i += size) out.push(a.slice(i, i + size));
-  return out;
-}
 
 export async function listItems(siteId: number): Promise<ItemDTO[]> {
   const items = await db()("items").where({ site_id: siteId }).orderBy("sku").select("id", "sku", "description", "uom", "unit_weight_g");
@@ -34,7 +28,7 @@ export async function listItems(siteId: number): Promise<ItemDTO[]> {
 /** How many SKUs exist at the site already, ignoring case as the unique key does. */
 async function existingIds(q: Knex, siteId: number, skus: readonly string[]): Promise<Map<string, number>> {
   const out = new Map<string, number>();
-  for (const part of chunks(skus)) {
+  for (const part of chunks(skus, CHUNK)) {
     const rows = await q("items").where({ site_id: siteId }).whereIn("sku", part).select("id", "sku");
     for (const r of rows as { id: number; sku: string }[]) out.set(r.sku.toUpperCase(), r.id);
   }
@@ -48,7 +42,7 @@ async function existingIds(q: Knex, siteId: number, skus: readonly string[]): Pr
 export async function upsertItems(trx: Knex.Transaction, siteId: number, items: readonly ItemRecord[]): Promise<{ inserted: number; updated: number }> {
   const before = await existingIds(trx, siteId, items.map((i) => i.sku));
   const now = new Date();
-  for (const part of chunks(items)) {
+  for (const part of chunks(items, CHUNK)) {
     await trx("items")
       .insert(part.map((i) => ({ site_id: siteId, sku: i.sku, description: i.description, uom: i.uom, unit_weight_g: i.unitWeightG, updated_at: now })))
       .onConflict(["site_id", "sku"])
@@ -56,9 +50,9 @@ export async function upsertItems(trx: Knex.Transaction, siteId: number, items: 
   }
   const ids = await existingIds(trx, siteId, items.map((i) => i.sku));
   const itemIds = [...ids.values()];
-  for (const part of chunks(itemIds)) await trx("item_bins").whereIn("item_id", part).del();
+  for (const part of chunks(itemIds, CHUNK)) await trx("item_bins").whereIn("item_id", part).del();
   const binRows = items.flatMap((i) => i.bins.map((code, k) => ({ item_id: ids.get(i.sku.toUpperCase())!, bin_code: code, rank: k + 1 })));
-  for (const part of chunks(binRows)) await trx("item_bins").insert(part);
+  for (const part of chunks(binRows, CHUNK)) await trx("item_bins").insert(part);
   const updated = items.filter((i) => before.has(i.sku.toUpperCase())).length;
   return { inserted: items.length - updated, updated };
 }
@@ -69,7 +63,7 @@ export async function upsertItems(trx: Knex.Transaction, siteId: number, items: 
  */
 export async function itemsWithBinsInVersion(siteId: number, layoutVersionId: number, skus: readonly string[]): Promise<Map<string, { itemId: number; binsInVersion: number }>> {
   const out = new Map<string, { itemId: number; binsInVersion: number }>();
-  for (const part of chunks(skus)) {
+  for (const part of chunks(skus, CHUNK)) {
     const rows = await db()("items as i")
       .leftJoin("item_bins as b", "b.item_id", "i.id")
       .leftJoin("layout_bins as l", function () {

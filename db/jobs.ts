@@ -2,9 +2,7 @@ import "server-only";
 import { randomBytes } from "node:crypto";
 import type { Knex } from "knex";
 import { db } from "./knex";
-
-export type JobStatus = "queued" | "running" | "done" | "failed" | "cancelled";
-export type JobDTO = { id: string; kind: string; status: JobStatus; progress: number; message: string; result: unknown; createdAt: string; updatedAt: string };
+import type { JobDTO, JobStatus } from "@/lib/contracts/jobs";
 
 type JobRow = { id: string; site_id: number; kind: string; status: JobStatus; progress: number; message: string; result: string | null; input: string | null; created_by: string | null; created_at: Date; updated_at: Date };
 

@@ -2,23 +2,11 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { Knex } from "knex";
 import { db } from "./knex";
+import { insertInChunks } from "./rows";
 import type { CompactGraph } from "@/lib/routing/graph";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import type { EditorDocument } from "@/lib/floor-plan/document";
-
-export type LayoutVersionDTO = {
-  id: number;
-  floorPlanId: number;
-  number: number;
-  publishedAt: string;
-  publishedByName: string | null;
-  nodeCount: number;
-  edgeCount: number;
-  binCount: number;
-  matrixSha256: string;
-};
-
-export type BinRowDTO = { code: string; rackRun: string; aisle: number; bay: number; level: number; x: number; y: number; accessPoint: number };
+import type { BinRowDTO, LayoutVersionDTO } from "@/lib/contracts/layout-versions";
 
 // Int32 matrices go to the database as little-endian bytes, whatever the server's byte order.
 export function int32ToBytes(a: Int32Array): Buffer {
@@ -65,10 +53,6 @@ async function readMatrix(q: Knex | Knex.Transaction, layoutVersionId: number, m
   return rows.length ? Buffer.concat(rows.map((r: { bytes: Buffer }) => r.bytes)) : null;
 }
 
-const CHUNK = 1000;
-async function insertChunked(trx: Knex.Transaction, table: string, rows: Record<string, unknown>[]) {
-  for (let i = 0; i < rows.length; i += CHUNK) await trx(table).insert(rows.slice(i, i + CHUNK));
-}
 
 export type PublishInput = {
   floorPlanId: number;
@@ -120,18 +104,18 @@ export async function insertLayoutVersion(input: PublishInput, beforeCommit?: (t
     const none = Buffer.alloc(0);
     const back = matrixChecksum((await readMatrix(trx, v, "dist")) ?? none, (await readMatrix(trx, v, "next")) ?? none);
     if (back !== matrixChecksum(dist, next)) throw new Error(`layout version ${v}: the stored matrices do not read back as written`);
-    await insertChunked(trx, "layout_nodes", input.graph.nodes.map((n) => ({ layout_version_id: v, node: n.id, x: n.x, y: n.y, kind: n.kind, label: n.label ?? null })));
-    await insertChunked(
+    await insertInChunks(trx, "layout_nodes", input.graph.nodes.map((n) => ({ layout_version_id: v, node: n.id, x: n.x, y: n.y, kind: n.kind, label: n.label ?? null })));
+    await insertInChunks(
       trx,
       "layout_edges",
       input.graph.edges.map((e) => ({ layout_version_id: v, edge: e.id, from_node: e.from, to_node: e.to, length_mm: e.lengthMm, one_way: e.oneWay, cells: JSON.stringify(e.cells) })),
     );
-    await insertChunked(
+    await insertInChunks(
       trx,
       "layout_access_points",
       input.graph.accessPoints.map((a) => ({ layout_version_id: v, access_point: a.id, x: a.x, y: a.y, node: a.node, edge: a.edge, offset_mm: a.offsetMm })),
     );
-    await insertChunked(
+    await insertInChunks(
       trx,
       "layout_bins",
       input.graph.bins.map((b) => {
@@ -177,6 +161,26 @@ function versionsOfSite(siteId: number) {
 export async function listLayoutVersions(siteId: number, floorPlanId: number): Promise<LayoutVersionDTO[]> {
   const rows = await versionsOfSite(siteId).where("v.floor_plan_id", floorPlanId).orderBy("v.number", "desc").select(versionColumns);
   return rows.map(toVersionDTO);
+}
+
+export type SiteLayoutVersion = LayoutVersionDTO & { floorPlanName: string };
+
+/**
+ * The site's published versions with their floor plan's name, in one query: by floor plan name, newest
+ * first; `latestOnly` keeps each floor plan's newest, `withDocument` adds the version's document.
+ */
+export async function listSiteLayoutVersions(siteId: number, which: { latestOnly?: boolean; withDocument: true }): Promise<(SiteLayoutVersion & { document: EditorDocument })[]>;
+export async function listSiteLayoutVersions(siteId: number, which?: { latestOnly?: boolean; withDocument?: false }): Promise<SiteLayoutVersion[]>;
+export async function listSiteLayoutVersions(siteId: number, which: { latestOnly?: boolean; withDocument?: boolean } = {}): Promise<(SiteLayoutVersion & { document?: EditorDocument })[]> {
+  const rows = await versionsOfSite(siteId)
+    .modify((q) => (which.latestOnly ? q.whereRaw("v.number = (select max(number) from layout_versions w where w.floor_plan_id = v.floor_plan_id)") : q))
+    .orderBy([{ column: "p.name" }, { column: "v.number", order: "desc" }])
+    .select([...versionColumns, "p.name as floor_plan_name", ...(which.withDocument ? ["v.document"] : [])]);
+  return rows.map((r: VersionRow & { floor_plan_name: string; document?: string }) => ({
+    ...toVersionDTO(r),
+    floorPlanName: r.floor_plan_name,
+    ...(which.withDocument ? { document: JSON.parse(r.document!) as EditorDocument } : {}),
+  }));
 }
 
 export async function getLayoutVersion(siteId: number, floorPlanId: number, number: number): Promise<(LayoutVersionDTO & { document: EditorDocument }) | null> {

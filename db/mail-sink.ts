@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "./knex";
+import type { SinkMessage } from "@/lib/contracts/mail";
 
 // The local SMTP sink's store: scripts/mail-sink.ts writes, the admin mail page and the tests read.
 
@@ -12,18 +13,6 @@ export type SinkMessageInput = {
   subject: string | null;
   text: string | null;
   raw: string;
-};
-
-export type SinkMessage = {
-  id: number;
-  receivedAt: string;
-  envelopeFrom: string | null;
-  envelopeTo: string[];
-  messageId: string | null;
-  from: string | null;
-  to: string | null;
-  subject: string | null;
-  text: string | null;
 };
 
 type Row = {

@@ -2,14 +2,11 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import type { OrderRecord } from "@/lib/imports/orders";
+import { chunks, isDuplicateKey, iso } from "./rows";
+import type { OrderDTO, OrderStatus } from "@/lib/contracts/orders";
 
-export const ORDER_STATUSES = ["open", "planned", "released"] as const;
-export type OrderStatus = (typeof ORDER_STATUSES)[number];
-
-export type OrderDTO = { id: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: string | null; status: OrderStatus; lineCount: number; note: string | null };
 
 const CHUNK = 500;
-const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 export async function listOrders(siteId: number, status?: OrderStatus): Promise<OrderDTO[]> {
   const q = db()("orders as o")
@@ -26,8 +23,8 @@ export async function listOrders(siteId: number, status?: OrderStatus): Promise<
 /** Which of these order numbers exist at the site (upper-cased: the unique key ignores case). */
 export async function existingOrderNumbers(siteId: number, numbers: readonly string[]): Promise<Set<string>> {
   const out = new Set<string>();
-  for (let i = 0; i < numbers.length; i += CHUNK) {
-    const rows = await db()("orders").where({ site_id: siteId }).whereIn("order_number", numbers.slice(i, i + CHUNK)).select("order_number");
+  for (const part of chunks(numbers, CHUNK)) {
+    const rows = await db()("orders").where({ site_id: siteId }).whereIn("order_number", part).select("order_number");
     for (const r of rows as { order_number: string }[]) out.add(r.order_number.toUpperCase());
   }
   return out;
@@ -38,21 +35,20 @@ export class OrderNumberTakenError extends Error {}
 /** New orders and their lines from one import file, inside the caller's transaction. */
 export async function insertOrders(trx: Knex.Transaction, siteId: number, importFileId: number, orders: readonly OrderRecord[]): Promise<{ orders: number; lines: number }> {
   let lines = 0;
-  for (let i = 0; i < orders.length; i += CHUNK) {
-    const part = orders.slice(i, i + CHUNK);
+  for (const part of chunks(orders, CHUNK)) {
     try {
       await trx("orders").insert(
         part.map((o) => ({ site_id: siteId, order_number: o.orderNumber, customer_ref: o.customerRef, priority: o.priority, cutoff_at: o.cutoffAt, import_file_id: importFileId })),
       );
     } catch (e) {
       // Another file with one of these numbers committed after this one was checked.
-      if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new OrderNumberTakenError(String((e as Error).message));
+      if (isDuplicateKey(e)) throw new OrderNumberTakenError(String((e as Error).message));
       throw e;
     }
     const ids = await trx("orders").where({ site_id: siteId, import_file_id: importFileId }).whereIn("order_number", part.map((o) => o.orderNumber)).select("id", "order_number");
     const idOf = new Map((ids as { id: number; order_number: string }[]).map((r) => [r.order_number.toUpperCase(), r.id]));
     const rows = part.flatMap((o) => o.lines.map((l) => ({ order_id: idOf.get(o.orderNumber.toUpperCase())!, line_no: l.lineNo, item_id: l.itemId, quantity: l.quantity })));
-    for (let k = 0; k < rows.length; k += CHUNK) await trx("order_lines").insert(rows.slice(k, k + CHUNK));
+    for (const slice of chunks(rows, CHUNK)) await trx("order_lines").insert(slice);
     lines += rows.length;
   }
   return { orders: orders.length, lines };
@@ -84,8 +80,8 @@ export async function openOrdersForPlanning(siteId: number, opts: { cutoffBefore
     customer_ref: string | null;
   }[];
   const byOrder = new Map<number, PlanningLine[]>();
-  for (let i = 0; i < orders.length; i += CHUNK) {
-    const ids = orders.slice(i, i + CHUNK).map((o) => o.id);
+  for (const part of chunks(orders, CHUNK)) {
+    const ids = part.map((o) => o.id);
     const lines = (await db()("order_lines as l").join("items as it", "it.id", "l.item_id").whereIn("l.order_id", ids).orderBy(["l.order_id", "l.line_no"]).select("l.id", "l.order_id", "l.line_no", "l.quantity", "l.item_id", "it.sku", "it.unit_weight_g")) as {
       id: number;
       order_id: number;

@@ -1,9 +1,9 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
+import { isDuplicateKey } from "./rows";
 import { headerText, InvalidAddressError, isValidAddress } from "@/lib/mail/headers";
-
-export type OutboxStatus = "pending" | "sending" | "sent" | "failed";
+import type { OutboxRow, OutboxStatus } from "@/lib/contracts/mail";
 
 export type OutgoingMail = {
   /** One logical message, one key: queueing the same key twice keeps the first and sends it once. */
@@ -15,22 +15,6 @@ export type OutgoingMail = {
   html?: string | null;
   /** Not before this time (default: now). */
   notBefore?: Date;
-};
-
-export type OutboxRow = {
-  id: number;
-  dedupeKey: string;
-  to: string;
-  toName: string | null;
-  subject: string;
-  text: string;
-  html: string | null;
-  status: OutboxStatus;
-  attempts: number;
-  nextAttemptAt: string;
-  lastError: string | null;
-  createdAt: string;
-  sentAt: string | null;
 };
 
 type Row = {
@@ -87,7 +71,7 @@ export async function enqueueMail(trx: Knex.Transaction, msg: OutgoingMail): Pro
     return true;
   } catch (e) {
     // A duplicate key fails only this statement in MariaDB; the caller's transaction goes on.
-    if ((e as { code?: string }).code === "ER_DUP_ENTRY") return false;
+    if (isDuplicateKey(e)) return false;
     throw e;
   }
 }

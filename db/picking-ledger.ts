@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "./knex";
+import { chunks } from "./rows";
 
 /** A stored confirmation as the check after a load run sees it: whom it answered what, for which line. */
 export type StoredConfirmation = { key: string; batchId: number; userId: string; status: number; orderLineId: number | null };
@@ -15,8 +16,7 @@ const CHUNK = 500;
 export async function pickLedger(batchIds: readonly number[]): Promise<{ confirmations: StoredConfirmation[]; lines: StoredPickLine[] }> {
   const confirmations: StoredConfirmation[] = [];
   const lines: StoredPickLine[] = [];
-  for (let i = 0; i < batchIds.length; i += CHUNK) {
-    const ids = batchIds.slice(i, i + CHUNK);
+  for (const ids of chunks(batchIds, CHUNK)) {
     const c = await db()("pick_confirmations")
       .whereIn("batch_id", ids)
       .select("idempotency_key", "batch_id", "user_id", db().raw("json_value(response, '$.status') as status"), db().raw("json_value(response, '$.body.line.orderLineId') as order_line_id"));

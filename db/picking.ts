@@ -2,17 +2,11 @@ import "server-only";
 import { db } from "./knex";
 import { queueShortPickSummaryIfWaveDone } from "./wave-mail";
 import { audit } from "./audit";
-
-export type PickBatchStatus = "planned" | "released" | "picking" | "done";
+import { isDuplicateKey, iso, json } from "./rows";
+import type { MyBatchDTO, PickBatchRef, PickBatchStatus, PickLineState, PickStatus } from "@/lib/contracts/picking";
 
 /** The batch's row with its wave, as the picking routes need it to decide who may work it. */
-export type PickBatchRow = {
-  id: number;
-  waveId: number;
-  waveName: string;
-  number: number;
-  status: PickBatchStatus;
-  version: number;
+export type PickBatchRow = PickBatchRef & {
   assignedTo: string | null;
   assignedName: string | null;
   layoutVersionId: number;
@@ -21,9 +15,6 @@ export type PickBatchRow = {
   startedAt: string | null;
   finishedAt: string | null;
 };
-
-const json = <T>(v: unknown): T => (typeof v === "string" ? JSON.parse(v) : v) as T;
-const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
 export async function getPickBatch(siteId: number, batchId: number): Promise<PickBatchRow | null> {
   const r = await db()("batches as b")
@@ -50,22 +41,6 @@ export async function getPickBatch(siteId: number, batchId: number): Promise<Pic
   };
 }
 
-export type PickLineState = {
-  orderLineId: number;
-  stopSeq: number;
-  tote: number;
-  binCode: string;
-  orderNumber: string;
-  sku: string;
-  description: string;
-  quantity: number;
-  uom: string;
-  unitWeightG: number;
-  pickStatus: "open" | "picked" | "short";
-  pickedQty: number | null;
-  shortReason: string | null;
-};
-
 /** Every line of a batch with its pick state, in walking order (stop, then tote). */
 export async function pickLines(batchId: number): Promise<PickLineState[]> {
   const rows = await db()("batch_lines as bl")
@@ -91,19 +66,6 @@ export async function pickLines(batchId: number): Promise<PickLineState[]> {
     shortReason: (r.short_reason as string | null) ?? null,
   }));
 }
-
-export type MyBatchDTO = {
-  id: number;
-  waveId: number;
-  waveName: string;
-  number: number;
-  status: PickBatchStatus;
-  version: number;
-  stopCount: number;
-  lineCount: number;
-  openLines: number;
-  shortLines: number;
-};
 
 function batchesWithCounts(siteId: number) {
   return db()("batches as b")
@@ -210,14 +172,14 @@ export type ConfirmInput = {
   scan?: string;
   quantity: number;
   short?: { reason: string };
+  /** Where the wave's summary mail links to, when this line finishes the wave. */
+  mailOrigin: string;
 };
 
 export type ConfirmOutcome =
   | { kind: "fresh"; answer: StoredAnswer; event: "pick.confirmed" | "pick.short" | null }
   | { kind: "replay"; answer: StoredAnswer }
   | { kind: "mismatch" };
-
-const isDuplicate = (e: unknown) => (e as { code?: string; errno?: number })?.code === "ER_DUP_ENTRY" || (e as { errno?: number })?.errno === 1062;
 
 /**
  * One confirmation in one transaction, in few round trips (each costs more than the SQL behind it).
@@ -266,7 +228,7 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
         const done = open === 0;
         if (done) {
           await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3), ...(status === "released" ? { started_at: trx.fn.now(3) } : {}) });
-          await queueShortPickSummaryIfWaveDone(trx, input.batchId);
+          await queueShortPickSummaryIfWaveDone(trx, input.batchId, input.mailOrigin);
         } else if (status === "released") {
           await trx("batches").where({ id: input.batchId }).update({ status: "picking", started_at: trx.fn.now(3) });
         }
@@ -277,7 +239,7 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
       return { kind: "fresh" as const, answer, event };
     });
   } catch (e) {
-    if (!isDuplicate(e)) throw e;
+    if (!isDuplicateKey(e)) throw e;
     const stored = await db()("pick_confirmations").where({ idempotency_key: input.key }).first("user_id", "batch_id", "request_sha256", "response");
     if (!stored) throw e;
     if (stored.request_sha256 !== input.requestSha256 || stored.user_id !== input.userId || Number(stored.batch_id) !== input.batchId) return { kind: "mismatch" };
@@ -285,6 +247,6 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
   }
 }
 
-export type PickLineRowForCheck = { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: "open" | "picked" | "short" };
+export type PickLineRowForCheck = { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: PickStatus };
 
 export type Decision = { answer: StoredAnswer; apply?: { status: "picked" | "short"; pickedQty: number; shortReason: string | null } };

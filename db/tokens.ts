@@ -2,8 +2,8 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import { enqueueMail, type OutgoingMail } from "./outbox";
-import { createUser, type UserDTO } from "./users";
-import type { Role } from "@/lib/auth/permissions";
+import { createUser } from "./users";
+import type { Role, UserDTO } from "@/lib/contracts/users";
 import { INVITE_LIFETIME_MS, looksLikeToken, newLinkToken, RESET_LIFETIME_MS, tokenSha256 } from "@/lib/mail/token";
 
 export type TokenPurpose = "invite" | "reset";

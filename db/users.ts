@@ -1,19 +1,8 @@
 import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
-import type { Role } from "@/lib/auth/permissions";
-
-export type UserDTO = {
-  id: string;
-  siteId: number;
-  email: string;
-  displayName: string;
-  role: Role;
-  disabled: boolean;
-  lastSignInAt: string | null;
-  createdAt: string;
-  version: number;
-};
+import { isDuplicateKey, iso } from "./rows";
+import type { Role, UserDTO } from "@/lib/contracts/users";
 
 type UserRow = {
   id: string;
@@ -27,8 +16,6 @@ type UserRow = {
   created_at: Date;
   version: number;
 };
-
-const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 function toDTO(r: UserRow): UserDTO {
   return {
@@ -87,7 +74,7 @@ export async function createUser(
       await alongside?.(trx);
     });
   } catch (e) {
-    if ((e as { code?: string }).code === "ER_DUP_ENTRY") throw new DuplicateEmailError(input.email);
+    if (isDuplicateKey(e)) throw new DuplicateEmailError(input.email);
     throw e;
   }
   const created = await getUser(input.id);

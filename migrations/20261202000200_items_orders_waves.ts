@@ -1,7 +1,8 @@
 import type { Knex } from "knex";
 
 export async function up(knex: Knex): Promise<void> {
-  // Site timing for estimates; defaults are common practice (about 1 m/s pushing a cart, 15 s per line).
+  // Site timing for estimates; defaults are common practice (about 1 m/s pushing a cart, 15 s per line),
+  // the same figures as DEFAULT_SITE_TIMING in lib/batching/estimate.ts (this landed migration keeps its own copy).
   await knex.schema.alterTable("sites", (t) => {
     t.integer("walking_speed_mm_s").unsigned().notNullable().defaultTo(1000);
     t.integer("seconds_per_line").unsigned().notNullable().defaultTo(15);

@@ -6,13 +6,10 @@
 #      on 127.0.0.1:33063 that is stopped again at the end.
 set -euo pipefail
 
-source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
-source "$TRAILBIN_ROOT/scripts/lib/app.sh"
+source "$(dirname "${BASH_SOURCE[0]}")/lib/run.sh"
 cd "$TRAILBIN_ROOT"
 
 BENCH_DIR=$TRAILBIN_ROOT/.data/bench
-MDB_PID=
 
 main() {
   ensure_debian_packages
@@ -25,9 +22,7 @@ main() {
   echo
   trap 'mariadb_stop' EXIT INT TERM
   mariadb_up "$BENCH_DIR" "${BENCH_DB_PORT:-33063}" "the benchmark MariaDB" "run with BENCH_DB_PORT=<another port>"
-  export DB_HOST=127.0.0.1 DB_PORT=$MDB_PORT DB_NAME=trailbin_bench DB_USER=trailbin DB_PASSWORD
-  DB_PASSWORD=$(random_secret)
-  mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate
+  fresh_database trailbin_bench
   migrate_and_seed >/dev/null
   node --conditions=react-server --import tsx scripts/bench-import.ts
 }

@@ -16,35 +16,22 @@
 # Arguments go to scripts/load.ts: --write puts the results into docs/benchmarks.md.
 set -euo pipefail
 
-source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
-source "$TRAILBIN_ROOT/scripts/lib/app.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
+source "$(dirname "${BASH_SOURCE[0]}")/lib/run.sh"
 cd "$TRAILBIN_ROOT"
 
 LOAD_DIR=$TRAILBIN_ROOT/.data/load
 APP_PORT=${LOAD_PORT:-3010}
 DB_PORT_LOAD=${LOAD_DB_PORT:-33070}
 MAIL_PORT_LOAD=${LOAD_MAIL_SINK_PORT:-2530}
-NEXT_PIDFILE=$LOAD_DIR/next.pid
-NEXT_LOG=$LOAD_DIR/next.log
-MAIL_PIDFILE=$LOAD_DIR/mail-sink.pid
-MAIL_LOG=$LOAD_DIR/mail-sink.log
-MDB_PID=
-NEXT_PID=
+run_files "$LOAD_DIR"
 
 take_load_lock() {
-  mkdir -p "$LOAD_DIR"
-  exec 9>"$LOAD_DIR/load.lock"
-  flock -n 9 || die "another npm run load is already running in this checkout; wait for it to finish"
+  run_lock "$LOAD_DIR/load.lock" || die "another npm run load is already running in this checkout; wait for it to finish"
 }
 
 cleanup() {
   trap - EXIT INT TERM
-  next_stop
-  rm -f "$NEXT_PIDFILE"
-  mail_sink_stop "$MAIL_PIDFILE"
-  mariadb_stop
+  run_stop
 }
 
 main() {
@@ -61,9 +48,7 @@ main() {
   mariadb_up "$LOAD_DIR" "$DB_PORT_LOAD" "the load-run MariaDB" "run with LOAD_DB_PORT=<another port>"
 
   # A fresh database every run: the check afterwards must see only this run's confirmations.
-  export DB_HOST=127.0.0.1 DB_PORT=$MDB_PORT DB_NAME=trailbin_load DB_USER=trailbin DB_PASSWORD
-  DB_PASSWORD=$(random_secret)
-  mariadb_provision "$DB_NAME" "$DB_USER" "$DB_PASSWORD" recreate
+  fresh_database trailbin_load
   migrate_and_seed
   mail_sink_start "$MAIL_PORT_LOAD" "$MAIL_LOG" "$MAIL_PIDFILE"
 

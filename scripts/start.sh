@@ -15,10 +15,7 @@
 # The data stays in .data/demo between runs; delete that folder (and .env.local) to start afresh.
 set -euo pipefail
 
-source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
-source "$TRAILBIN_ROOT/scripts/lib/app.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
+source "$(dirname "${BASH_SOURCE[0]}")/lib/run.sh"
 cd "$TRAILBIN_ROOT"
 
 if [[ -n ${TRAILBIN_DATA_DIR:-} ]]; then
@@ -31,21 +28,13 @@ else
 fi
 APP_PORT=${PORT:-3000}
 APP_URL=http://127.0.0.1:$APP_PORT
-NEXT_PIDFILE=$DEMO_DIR/next.pid
-NEXT_LOG=$DEMO_DIR/next.log
+run_files "$DEMO_DIR"
 MAIL_SINK_PORT=${MAIL_SINK_PORT:-2525}
-MAIL_PIDFILE=$DEMO_DIR/mail-sink.pid
-MAIL_LOG=$DEMO_DIR/mail-sink.log
-MDB_PID=
-NEXT_PID=
 BUILD_PID=
 
-# take_start_lock : one demo per checkout. The lock lives on fd 9 for the life of this script (the
-# kernel drops it when we exit, however we exit); servers are started with 9>&- so they never hold it.
+# take_start_lock : one demo per checkout.
 take_start_lock() {
-  mkdir -p "$DEMO_DIR"
-  exec 9>"$DEMO_DIR/start.lock"
-  if ! flock -n 9; then
+  if ! run_lock "$DEMO_DIR/start.lock"; then
     local pid url
     pid=$(sed -n 1p "$DEMO_DIR/start.pid" 2>/dev/null) || true
     url=$(sed -n 2p "$DEMO_DIR/start.pid" 2>/dev/null) || true
@@ -87,10 +76,7 @@ shutdown() {
     stop_tree "$BUILD_PID" "next build"
     BUILD_PID=
   fi
-  next_stop
-  rm -f "$NEXT_PIDFILE"
-  mail_sink_stop "$MAIL_PIDFILE"
-  mariadb_stop
+  run_stop
   rm -f "$DEMO_DIR/start.pid"
   echo "Stopped."
 }

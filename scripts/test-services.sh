@@ -7,9 +7,7 @@
 # name, so a server restarted here is stopped at the end of the run like the first one.
 set -euo pipefail
 
-source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
+source "$(dirname "${BASH_SOURCE[0]}")/lib/run.sh"
 cd "$TRAILBIN_ROOT"
 
 TEST_DIR=$TRAILBIN_ROOT/.data/test

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # npm test: every test suite, with every service it needs, from nothing; nothing is left running.
-#   Debian packages (MariaDB, Chromium) -> node_modules -> unit suite (no services)
+#   Debian packages (MariaDB, Chromium) -> node_modules -> format check + unit suite (no services)
 #   -> private MariaDB in .data/test on 127.0.0.1:33062 -> fresh database "trailbin_test"
 #   -> migrations + seed -> next build into .next-test (only when sources changed; always in CI)
 #   -> next start on http://127.0.0.1:3001 -> integration + browser suites.
@@ -19,23 +19,15 @@
 # command that stops and starts the test MariaDB or mail sink, scripts/test-services.sh).
 set -euo pipefail
 
-source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mariadb.sh"
-source "$TRAILBIN_ROOT/scripts/lib/app.sh"
-source "$TRAILBIN_ROOT/scripts/lib/mail.sh"
+source "$(dirname "${BASH_SOURCE[0]}")/lib/run.sh"
 cd "$TRAILBIN_ROOT"
 
 TEST_DIR=$TRAILBIN_ROOT/.data/test
 ENV_FILE=$TEST_DIR/env
 APP_PORT=${TEST_PORT:-3001}
 DB_PORT_TEST=${TEST_DB_PORT:-33062}
-NEXT_PIDFILE=$TEST_DIR/next.pid
-NEXT_LOG=$TEST_DIR/next.log
 MAIL_SINK_PORT_TEST=${TEST_MAIL_SINK_PORT:-2526}
-MAIL_PIDFILE=$TEST_DIR/mail-sink.pid
-MAIL_LOG=$TEST_DIR/mail-sink.log
-MDB_PID=
-NEXT_PID=
+run_files "$TEST_DIR"
 TOTAL_PASSED=0
 TOTAL_FAILED=0
 ANY_FAILED=0
@@ -49,9 +41,7 @@ wants() { [[ $SUITES == *" $1 "* ]]; }
 wants_services() { wants integration || wants browser; }
 
 take_test_lock() {
-  mkdir -p "$TEST_DIR"
-  exec 9>"$TEST_DIR/test.lock"
-  if ! flock -n 9; then
+  if ! run_lock "$TEST_DIR/test.lock"; then
     printf 'Another npm test is already running in this checkout (pid %s); wait for it to finish.\n' \
       "$(cat "$TEST_DIR/test.pid" 2>/dev/null || echo unknown)" >&2
     exit 1
@@ -74,10 +64,7 @@ load_test_env() {
 }
 
 cleanup() {
-  next_stop
-  rm -f "$NEXT_PIDFILE"
-  mail_sink_stop "$MAIL_PIDFILE"
-  mariadb_stop
+  run_stop
   rm -f "$TEST_DIR/test.pid"
 }
 
@@ -108,6 +95,21 @@ run_vitest() {
   fi
   TOTAL_PASSED=$((TOTAL_PASSED + passed))
   TOTAL_FAILED=$((TOTAL_FAILED + failed))
+}
+
+# check_format : prettier in check mode over the tree (.prettierignore says what it skips). An
+# unformatted tree counts as one failed test, so the closing line shows it.
+check_format() {
+  local rc=0
+  log "checking the formatting (prettier --check)"
+  node node_modules/prettier/bin/prettier.cjs --check . --log-level warn --cache --cache-location "$TEST_DIR/prettier-cache" </dev/null || rc=$?
+  if ((rc == 0)); then
+    TOTAL_PASSED=$((TOTAL_PASSED + 1))
+  else
+    ANY_FAILED=1
+    TOTAL_FAILED=$((TOTAL_FAILED + 1))
+    warn "the formatting check failed (prettier exit status $rc) for the files above: Run npm run format"
+  fi
 }
 
 # start_services : everything the integration and browser suites talk to.
@@ -149,7 +151,10 @@ main() {
   ensure_node_modules
   export CHROMIUM_PATH=/usr/bin/chromium
 
-  if wants unit; then run_vitest unit --project unit; fi
+  if wants unit; then
+    check_format
+    run_vitest unit --project unit
+  fi
 
   if wants_services; then
     load_test_env

@@ -1,16 +1,10 @@
 import type { EditorDocument, RackRun } from "@/lib/floor-plan/document";
 import type { Problem } from "@/lib/floor-plan/checks";
 import { postJson, requestJson, uploadFile, type ApiResult } from "@/lib/client/fetch-json";
+import type { RowProblem } from "@/lib/contracts/imports";
 
-/** The draft API's answers (contract with app/api/floor-plans/[id]/…). */
-export type DraftResponse = {
-  draft: { version: number; document: EditorDocument; updatedAt: string; updatedByName: string | null };
-  latestVersion: { id: number; number: number; publishedAt: string } | null;
-};
-export type SaveConflict = { error: string; current: { version: number; updatedByName: string | null; updatedAt: string } };
-export type JobStatus = "queued" | "running" | "done" | "failed" | "cancelled";
-export type JobResponse = { job: { status: JobStatus; progress: number; message: string; result: { layoutVersionId: number; number: number } | null } };
-export type BadRow = { row: number; message: string };
+export type { DraftResponse, SaveConflict } from "@/lib/contracts/floor-plans";
+export type BadRow = RowProblem;
 
 export const draftUrl = (planId: number) => `/api/floor-plans/${planId}/draft`;
 export const backgroundUrl = (planId: number, fileId: string) => `/api/floor-plans/${planId}/background/${fileId}`;

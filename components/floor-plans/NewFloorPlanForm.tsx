@@ -1,29 +1,17 @@
 "use client";
 
-import { useState } from "react";
-import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
+import { usePostForm } from "@/components/usePostForm";
 
 export function NewFloorPlanForm() {
-  const [failure, setFailure] = useState<ApiFailure | null>(null);
-  const [busy, setBusy] = useState(false);
-  async function submit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    if (busy) return;
-    const f = new FormData(e.currentTarget);
-    setBusy(true);
-    const r = await postJson<{ id: number }>("/api/floor-plans", {
-      name: String(f.get("name") ?? ""),
-      widthM: Number(f.get("widthM")),
-      heightM: Number(f.get("heightM")),
-      cellMm: Number(f.get("cellMm")),
-    });
-    if (r.ok) return window.location.assign(`/floor-plans/${r.data.id}`);
-    setFailure(r);
-    setBusy(false);
-  }
+  const { onSubmit, failure, busy } = usePostForm<{ id: number }>({
+    url: "/api/floor-plans",
+    body: (f) => ({ name: String(f.get("name") ?? ""), widthM: Number(f.get("widthM")), heightM: Number(f.get("heightM")), cellMm: Number(f.get("cellMm")) }),
+    onDone: (r) => window.location.assign(`/floor-plans/${r.id}`),
+    leaves: true,
+  });
   return (
-    <form onSubmit={submit} className="card mt-8 max-w-3xl space-y-4" noValidate aria-labelledby="new-plan">
+    <form onSubmit={onSubmit} className="card mt-8 max-w-3xl space-y-4" noValidate aria-labelledby="new-plan">
       <h2 id="new-plan">Start a floor plan</h2>
       <div className="grid gap-4 sm:grid-cols-4">
         <label className="sm:col-span-4"><span className="label">Name</span><input name="name" className="field" required maxLength={120} placeholder="e.g. Ground floor" /></label>

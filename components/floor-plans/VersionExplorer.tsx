@@ -5,7 +5,7 @@ import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { requestJson } from "@/lib/client/fetch-json";
 import type { EditorDocument } from "@/lib/floor-plan/document";
-import type { BinRowDTO } from "@/db/layout-versions";
+import type { BinRowDTO } from "@/lib/contracts/layout-versions";
 import { documentBins } from "@/lib/floor-plan/bin-codes";
 
 export type VersionBin = BinRowDTO & { fromDepot: { depot: string; mm: number } | null };

@@ -9,7 +9,9 @@ import type { ImportKind } from "@/lib/imports/fields";
 import { MappingFields } from "./MappingFields";
 import { PreviewTable } from "./PreviewTable";
 import { ProblemList } from "./ProblemList";
-import { importedSentence, type ImportAnswer, type PreviewAnswer, type RowProblem, type VersionOption } from "./types";
+import { importedSentence } from "./import-text";
+import type { ImportAnswer, PreviewAnswer, RowProblem } from "@/lib/contracts/imports";
+import type { VersionOption } from "@/lib/contracts/layout-versions";
 
 type Props = {
   kind: ImportKind;

@@ -1,4 +1,5 @@
-import { columnLetter, type PreviewAnswer } from "./types";
+import { columnLetter } from "./import-text";
+import type { PreviewAnswer } from "@/lib/contracts/imports";
 
 /** One select per field: which column of the person's sheet holds it. */
 export function MappingFields({ answer, disabled, onChange }: { answer: PreviewAnswer; disabled: boolean; onChange: (key: string, column: number | null) => void }) {

@@ -1,4 +1,4 @@
-import type { PreviewAnswer } from "./types";
+import type { PreviewAnswer } from "@/lib/contracts/imports";
 
 /** The first rows as Trailbin reads them, under the field names (scrolls sideways on a phone). */
 export function PreviewTable({ answer }: { answer: PreviewAnswer }) {

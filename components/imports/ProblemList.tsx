@@ -1,4 +1,4 @@
-import type { RowProblem } from "./types";
+import type { RowProblem } from "@/lib/contracts/imports";
 
 const SHOWN = 200;
 

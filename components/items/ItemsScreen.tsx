@@ -4,10 +4,11 @@ import useSWR from "swr";
 import { useMemo } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { ImportPanel } from "@/components/imports/ImportPanel";
-import type { VersionOption } from "@/components/imports/types";
+import type { VersionOption } from "@/lib/contracts/layout-versions";
+import type { ItemDTO } from "@/lib/contracts/items";
 import { swrFetcher } from "@/lib/client/fetch-json";
 
-type Item = { sku: string; description: string; uom: string; unitWeightG: number; bins: string[] };
+type Item = ItemDTO;
 
 const columns: DataColumn<Item>[] = [
   { accessorKey: "sku", header: "SKU" },

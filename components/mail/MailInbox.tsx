@@ -4,8 +4,8 @@ import useSWR from "swr";
 import { useState } from "react";
 import { swrFetcher } from "@/lib/client/fetch-json";
 import { linkParts } from "@/lib/mail/link-text";
-import type { SinkMessage } from "@/db/mail-sink";
-import type { OutboxRow } from "@/db/outbox";
+import type { SinkMessage } from "@/lib/contracts/mail";
+import type { OutboxRow } from "@/lib/contracts/mail";
 
 type OutboxState = Omit<OutboxRow, "text" | "html">;
 

@@ -4,10 +4,11 @@ import useSWR from "swr";
 import { useMemo, useState } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { ImportPanel } from "@/components/imports/ImportPanel";
-import type { VersionOption } from "@/components/imports/types";
+import type { VersionOption } from "@/lib/contracts/layout-versions";
+import type { OrderDTO } from "@/lib/contracts/orders";
 import { swrFetcher } from "@/lib/client/fetch-json";
 
-type Order = { id: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: string | null; status: "open" | "planned" | "released"; lineCount: number; note: string | null };
+type Order = OrderDTO;
 
 const STATUSES = [
   { value: "open", label: "Open (not yet in a wave)" },

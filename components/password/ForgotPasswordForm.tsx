@@ -1,25 +1,16 @@
 "use client";
 
 import { useState } from "react";
-import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
+import { usePostForm } from "@/components/usePostForm";
 
 export function ForgotPasswordForm() {
-  const [failure, setFailure] = useState<ApiFailure | null>(null);
-  const [busy, setBusy] = useState(false);
   const [done, setDone] = useState<string | null>(null);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    if (busy) return;
-    const f = new FormData(e.currentTarget);
-    setBusy(true);
-    setFailure(null);
-    const r = await postJson<{ message: string }>("/api/password/reset-request", { email: String(f.get("email") ?? "") });
-    setBusy(false);
-    if (!r.ok) return setFailure(r);
-    setDone(r.data.message);
-  }
+  const { onSubmit, failure, busy } = usePostForm<{ message: string }>({
+    url: "/api/password/reset-request",
+    body: (f) => ({ email: String(f.get("email") ?? "") }),
+    onDone: (r) => setDone(r.message),
+  });
 
   if (done) return <p role="status" className="notice-info">{done}</p>;
 

@@ -2,30 +2,17 @@
 
 import Link from "next/link";
 import { useState } from "react";
-import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
+import { usePostForm } from "@/components/usePostForm";
 
 export function SetPasswordForm({ token, email, minLength }: { token: string; email: string; minLength: number }) {
-  const [failure, setFailure] = useState<ApiFailure | null>(null);
-  const [busy, setBusy] = useState(false);
   const [done, setDone] = useState<string | null>(null);
-
-  async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
-    e.preventDefault();
-    if (busy) return;
-    const f = new FormData(e.currentTarget);
-    const password = String(f.get("password") ?? "");
-    if (password !== String(f.get("again") ?? "")) {
-      setFailure({ ok: false, status: 0, message: "The two passwords differ. Type the same one twice." });
-      return;
-    }
-    setBusy(true);
-    setFailure(null);
-    const r = await postJson<{ message: string }>("/api/password/set", { token, password });
-    setBusy(false);
-    if (!r.ok) return setFailure(r);
-    setDone(r.data.message);
-  }
+  const { onSubmit, failure, busy } = usePostForm<{ message: string }>({
+    url: "/api/password/set",
+    check: (f) => (String(f.get("password") ?? "") === String(f.get("again") ?? "") ? null : "The two passwords differ. Type the same one twice."),
+    body: (f) => ({ token, password: String(f.get("password") ?? "") }),
+    onDone: (r) => setDone(r.message),
+  });
 
   if (done) {
     return (

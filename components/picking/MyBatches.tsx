@@ -5,7 +5,7 @@ import Link from "next/link";
 import useSWR from "swr";
 import { postJson, swrFetcher } from "@/lib/client/fetch-json";
 import { ProgressBar } from "@/components/ProgressBar";
-import type { MyBatchDTO } from "@/db/picking";
+import type { MyBatchDTO } from "@/lib/contracts/picking";
 
 type Answer = { batches: MyBatchDTO[]; next: MyBatchDTO | null };
 

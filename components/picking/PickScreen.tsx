@@ -3,22 +3,17 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import Link from "next/link";
 import useSWR from "swr";
-import { postJson, swrFetcher } from "@/lib/client/fetch-json";
+import { swrFetcher } from "@/lib/client/fetch-json";
 import { ProgressBar } from "@/components/ProgressBar";
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/floor-plan/document";
-import type { PickLineState } from "@/db/picking";
-import type { PickViewDTO } from "@/lib/picking/view";
+import type { PickLineState } from "@/lib/contracts/picking";
+import type { PickViewDTO } from "@/lib/contracts/picking";
 import { CAUTION_TEXT, lineForScan, SHORT_REASONS, tapHoldMs, walkingOrder, type ShortReason } from "@/lib/picking/rules";
-import { newIdempotencyKey } from "@/lib/picking/key";
-import { enqueue, flushQueue, readQueue, type QueuedConfirmation } from "@/lib/picking/queue";
+import type { PickAction } from "@/lib/picking/queue";
+import { usePickQueue } from "@/components/picking/usePickQueue";
 
-type Local = { status: "picked" | "short"; pickedQty: number; shortReason: string | null };
 type Feedback = { kind: "wrong" | "ok" | "error"; text: string } | null;
-
-const RETRY_MS = 5000;
-
-const store = () => (typeof window === "undefined" ? null : window.localStorage);
 
 /** The handheld: one stop at a time, confirmed by a scan or a tap, queued on the device when offline. */
 export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; document: EditorDocument | null }) {
@@ -26,23 +21,25 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   const { data, mutate } = useSWR<PickViewDTO>(url, swrFetcher, { fallbackData: initial, revalidateOnFocus: false });
   const view = data ?? initial;
   const batchId = view.batch.id;
-  const [local, setLocal] = useState<Record<number, Local>>({});
   const [skipped, setSkipped] = useState<number[]>([]);
-  const [waiting, setWaiting] = useState(0);
   const [feedback, setFeedback] = useState<Feedback>(null);
   const [scan, setScan] = useState("");
   const [shortOpen, setShortOpen] = useState(false);
   const [shortQty, setShortQty] = useState(0);
   const [shortReason, setShortReason] = useState<ShortReason>("empty bin");
   const scanRef = useRef<HTMLInputElement>(null);
-  const flushing = useRef(false);
   // The line the tap button confirms, set only once that line has been on screen for a moment.
   const [armed, setArmed] = useState<number | null>(null);
   const armedRef = useRef<number | null>(null);
   const lastBin = useRef<string | null>(null);
-  const again = useRef(false);
+  const { waiting, statusOf, record: queueRecord, flush } = usePickQueue({
+    batchId,
+    batchVersion: view.batch.version,
+    revalidate: mutate,
+    onRefused: (text) => setFeedback({ kind: "error", text }),
+  });
 
-  const stateOf = useCallback((l: PickLineState) => local[l.orderLineId]?.status ?? l.pickStatus, [local]);
+  const stateOf = useCallback((l: PickLineState) => statusOf(l.orderLineId, l.pickStatus), [statusOf]);
   const order = useMemo(() => walkingOrder(view.stops.map((s) => s.seq), skipped), [view.stops, skipped]);
   const openStops = order.map((seq) => view.stops.find((s) => s.seq === seq)!).filter((s) => s.lines.some((l) => stateOf(l) === "open"));
   const stop = openStops[0] ?? null;
@@ -66,80 +63,15 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
     return () => clearTimeout(timer);
   }, [shownId, shownBin]);
 
-  const flush = useCallback(async () => {
-    const s = store();
-    if (!s) return;
-    if (flushing.current) {
-      again.current = true;
-      return;
-    }
-    flushing.current = true;
-    try {
-      await flushQueue(
-        s,
-        batchId,
-        async (c) => {
-          const r = await postJson<unknown>(`/api/batches/${batchId}/confirm`, c);
-          return { status: r.status, body: r.ok ? r.data : r.body };
-        },
-        (c, r) => {
-          // "Already confirmed" means the line is done either way; any other refusal undoes the tick.
-          if (r.status !== 200 && r.status !== 409) {
-            setLocal((m) => {
-              const { [c.orderLineId]: _gone, ...rest } = m;
-              return rest;
-            });
-            const msg = (r.body as { error?: string } | null)?.error ?? `The server refused a confirmation (${r.status}).`;
-            setFeedback({ kind: "error", text: msg });
-          }
-        },
-      );
-    } finally {
-      flushing.current = false;
-      setWaiting(readQueue(s, batchId).length);
-      await mutate();
-    }
-    if (again.current) {
-      again.current = false;
-      if (readQueue(s, batchId).length) setTimeout(() => void flushRef.current(), 0);
-    }
-  }, [batchId, mutate]);
-  const flushRef = useRef(flush);
-  flushRef.current = flush;
-
   useEffect(() => {
     scanRef.current?.focus();
-    const s = store();
-    if (s) {
-      // Confirmations queued before a reload still count on this screen.
-      const queued = readQueue(s, batchId);
-      setWaiting(queued.length);
-      setLocal((m) => ({ ...Object.fromEntries(queued.map((c) => [c.orderLineId, { status: c.short ? "short" : "picked", pickedQty: c.quantity, shortReason: c.short?.reason ?? null } as Local])), ...m }));
-    }
-    void flush();
-    const online = () => void flush();
-    window.addEventListener("online", online);
-    return () => window.removeEventListener("online", online);
-  }, [batchId, flush]);
+  }, [batchId]);
 
-  // A 503 or a dropped connection leaves picks queued, and the picker may have nothing left to tap
-  // that would send them; so while any wait, try again on a timer until the server takes them.
-  useEffect(() => {
-    if (waiting === 0) return;
-    const timer = setInterval(() => void flushRef.current(), RETRY_MS);
-    return () => clearInterval(timer);
-  }, [waiting]);
-
-  function record(l: PickLineState, c: Omit<QueuedConfirmation, "idempotencyKey" | "binCode" | "batchVersion">) {
-    const s = store();
+  function record(l: PickLineState, c: PickAction) {
     armedRef.current = null;
     setArmed(null);
     lastBin.current = l.binCode;
-    // One key per action, made here on the device: every resend of this action carries it.
-    const q: QueuedConfirmation = { idempotencyKey: newIdempotencyKey(), ...c, binCode: l.binCode, batchVersion: view.batch.version };
-    setLocal((m) => ({ ...m, [l.orderLineId]: { status: c.short ? "short" : "picked", pickedQty: c.quantity, shortReason: c.short?.reason ?? null } }));
-    if (s) setWaiting(enqueue(s, batchId, q).length);
-    void flush();
+    queueRecord(c, l.binCode);
     focusScan();
   }
 

@@ -1,20 +1,8 @@
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
-import type { BatchDetailDTO } from "@/db/waves";
-import type { EditorDocument } from "@/lib/floor-plan/document";
+import type { PickListData } from "@/lib/contracts/print";
 import { kilograms, metres, minutes } from "@/lib/format/units";
 
-export type PickListProps = {
-  label: string;
-  barcodeSvg: string;
-  waveName: string;
-  batch: BatchDetailDTO;
-  printedBefore: number;
-  seconds: number;
-  document: EditorDocument;
-  routeCells: number[];
-  dropoff: string;
-  highLevels: Set<string>;
-};
+export type PickListProps = PickListData;
 
 const HEAVY_LINE_G = 15_000;
 

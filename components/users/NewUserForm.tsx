@@ -5,7 +5,7 @@ import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
 import { ROLE_LABEL, ROLES } from "@/lib/auth/permissions";
-import type { UserDTO } from "@/db/users";
+import type { UserDTO } from "@/lib/contracts/users";
 
 export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<void> }) {
   const [failure, setFailure] = useState<ApiFailure | null>(null);

@@ -5,7 +5,7 @@ import { useMemo, useState } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { swrFetcher, patchJson } from "@/lib/client/fetch-json";
 import { ROLE_LABEL, ROLES, type Role } from "@/lib/auth/permissions";
-import type { UserDTO } from "@/db/users";
+import type { UserDTO } from "@/lib/contracts/users";
 import { NewUserForm } from "./NewUserForm";
 
 const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : "never");

@@ -2,7 +2,7 @@
 
 import useSWR from "swr";
 import { swrFetcher } from "@/lib/client/fetch-json";
-import type { BatchSummaryDTO } from "@/db/waves";
+import type { BatchSummaryDTO } from "@/lib/contracts/batches";
 
 /** How far the picker is with this batch, refreshed while the wave is out on the floor. */
 export function BatchLiveStatus({ waveId, number, live }: { waveId: number; number: number; live: boolean }) {

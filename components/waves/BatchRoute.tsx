@@ -2,7 +2,7 @@
 
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/floor-plan/document";
-import type { BatchDetailDTO } from "@/db/waves";
+import type { BatchDetailDTO } from "@/lib/contracts/batches";
 import { metres } from "@/lib/format/units";
 
 type Props = { document: EditorDocument; cells: number[]; stops: BatchDetailDTO["stops"]; legsMm: number[]; from: string; to: string };

@@ -4,8 +4,7 @@ import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
 import { WavePreview } from "./WavePreview";
-
-export type LayoutChoice = { id: number; label: string; depots: { id: string; name: string }[]; dropoffs: { id: string; name: string }[] };
+import type { LayoutChoice } from "@/lib/contracts/layout-versions";
 
 /** A datetime-local value (the planner's local time) as an ISO instant, or undefined when empty or unfinished. */
 function isoOf(local: string): string | undefined {

@@ -1,4 +1,4 @@
-import type { BatchSummaryDTO } from "@/db/waves";
+import type { BatchSummaryDTO } from "@/lib/contracts/batches";
 import { metres } from "@/lib/format/units";
 
 /** Usual walk against planned walk per batch: the grey bar is what the site would walk, the green what it will. */

@@ -1,4 +1,4 @@
-import type { WaveDTO } from "@/db/waves";
+import type { WaveDTO } from "@/lib/contracts/waves";
 
 /**
  * Every order of the plan no batch holds, with its reason: all of them (a long list scrolls), since

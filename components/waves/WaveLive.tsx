@@ -2,7 +2,8 @@
 
 import useSWR from "swr";
 import { swrFetcher } from "@/lib/client/fetch-json";
-import type { BatchSummaryDTO, ShortPickDTO, WaveDTO } from "@/db/waves";
+import type { BatchSummaryDTO } from "@/lib/contracts/batches";
+import type { ShortPickDTO, WaveDTO } from "@/lib/contracts/waves";
 import type { SiteTiming } from "@/lib/batching/estimate";
 import { WaveResults } from "./WaveResults";
 

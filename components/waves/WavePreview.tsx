@@ -2,7 +2,7 @@
 
 import useSWR from "swr";
 import { swrFetcher } from "@/lib/client/fetch-json";
-import type { WavePreviewDTO } from "@/db/waves";
+import type { WavePreviewDTO } from "@/lib/contracts/waves";
 
 const n = (x: number) => x.toLocaleString("en-GB");
 

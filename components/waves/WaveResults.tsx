@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useMemo } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
-import type { BatchSummaryDTO } from "@/db/waves";
+import type { BatchSummaryDTO } from "@/lib/contracts/batches";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 import { estimateSeconds, type SiteTiming } from "@/lib/batching/estimate";
 

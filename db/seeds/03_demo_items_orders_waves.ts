@@ -4,7 +4,10 @@ import { demoItems, demoOrders, DEMO_CART_LIMITS, type DemoOrder } from "./demo/
 import { batchOrders } from "../../lib/batching/batching";
 import { toStoredBatch } from "../../lib/waves/to-stored";
 import { loadLayoutGraph } from "../layout-versions";
-import { createWave, releaseWave, storePlan, getWave, type WaveSettings } from "../waves";
+import { createWave, releaseWave, getWave } from "../waves";
+import { storePlan } from "../batches";
+import type { WaveSettings } from "../../lib/contracts/waves";
+import { appOrigin } from "../../lib/mail/config";
 import { closeDb } from "../knex";
 import { DEMO_FLOOR_PLAN } from "./02_demo_floor_plan";
 
@@ -59,7 +62,7 @@ export async function seed(knex: Knex): Promise<void> {
       await storePlan(waveId, wave!.version, stored, totals, result.unbatchable);
     }
     const mondayWave = await getWave(site.id, monday);
-    await releaseWave(site.id, monday, mondayWave!.version, planner.id);
+    await releaseWave(site.id, monday, mondayWave!.version, planner.id, appOrigin());
     // Monday's first two batches are on Priya's handheld; the rest wait to be taken.
     const picker = await knex("users").where({ site_id: site.id, email: "picker@bramblegate.example" }).first("id");
     await knex("batches").where({ wave_id: monday }).whereIn("number", [1, 2]).update({ assigned_to: picker.id });

@@ -1,7 +1,8 @@
 // The one permission table. Pages, route handlers and server actions ask for a permission, never a
 // role, so changing who may do what is a one-line change here (and the access tests follow it).
-export const ROLES = ["admin", "planner", "picker"] as const;
-export type Role = (typeof ROLES)[number];
+import type { Role } from "@/lib/contracts/users";
+
+export { ROLES, type Role } from "@/lib/contracts/users";
 
 export const PERMISSIONS = {
   "users.manage": ["admin"],

@@ -2,9 +2,9 @@ import "server-only";
 import { generateIdFromEntropySize, type Session, type User } from "lucia";
 import { lucia, SESSION_ABSOLUTE_MS } from "./lucia";
 import { audit } from "@/db/audit";
-import type { Role } from "./permissions";
 
-export type SignedInUser = { id: string; email: string; displayName: string; role: Role; siteId: number };
+export type { SignedInUser } from "@/lib/contracts/users";
+import type { SignedInUser } from "@/lib/contracts/users";
 
 export function newId(): string {
   return generateIdFromEntropySize(10);

@@ -10,6 +10,13 @@ export type SiteTiming = {
  * both with their own time studies.
  */
 export const DEFAULT_SITE_TIMING: SiteTiming = { walkingSpeedMmPerS: 1000, secondsPerLine: 15 };
+// The sites table's column defaults (migration 20261202000200) hold the same two figures; a landed
+// migration never changes, so a new default here needs a new migration for that table too.
+
+/** A site's own timing, or the defaults for a site that has none (or is not found). */
+export function siteTiming(site: Partial<SiteTiming> | null | undefined): SiteTiming {
+  return { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? DEFAULT_SITE_TIMING.walkingSpeedMmPerS, secondsPerLine: site?.secondsPerLine ?? DEFAULT_SITE_TIMING.secondsPerLine };
+}
 
 /** Walking time plus handling time per line. */
 export function estimateSeconds(work: { distanceMm: number; lines: number }, timing: SiteTiming = DEFAULT_SITE_TIMING): number {

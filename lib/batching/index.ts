@@ -2,6 +2,6 @@
 export * from "./types";
 export { batchOrders, binCodesOf, type BatchingOptions } from "./batching";
 export { BatchingCancelled } from "./errors";
-export { estimateSeconds, DEFAULT_SITE_TIMING, type SiteTiming } from "./estimate";
+export { estimateSeconds, DEFAULT_SITE_TIMING, siteTiming, type SiteTiming } from "./estimate";
 export type { SavingsOptions } from "./savings";
 export { compareUrgency, cutoffMs } from "./urgency";

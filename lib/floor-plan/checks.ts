@@ -4,40 +4,9 @@ import { bayAt, MAX_CODE_LENGTH, rackRunBins, rackRunCells, unusedCustomCodes } 
 import { toGridDrawing } from "./to-drawing";
 import { connectedTo, groupsOf, reachableFrom, reachingTo } from "./reachability";
 import { engineOnlyProblems, graphSizeProblems } from "./engine-checks";
+import type { Problem } from "./problems";
 
-export type ProblemKind =
-  | "no-depot"
-  | "no-dropoff"
-  | "point-not-on-floor"
-  | "duplicate-id"
-  | "rack-overlap"
-  | "duplicate-code"
-  | "code-too-long"
-  | "too-many-junctions"
-  | "bin-unreachable"
-  | "no-path"
-  | "one-way-trap"
-  | "floor-cut-off"
-  | "one-way-off-floor"
-  | "custom-code-unused"
-  | "no-bins";
-
-export interface Problem {
-  kind: ProblemKind;
-  /** A sentence a person can act on. */
-  message: string;
-  /** Cells (row-major) to highlight and zoom to; may be empty for whole-document problems. */
-  cells: number[];
-  /** Errors block publishing; warnings do not. */
-  severity: "error" | "warning";
-  /** The rack run the problem is about, so the editor can select it. */
-  runId?: string;
-}
-
-/** Whether any problem blocks publishing. */
-export function hasErrors(problems: readonly Problem[]): boolean {
-  return problems.some((p) => p.severity === "error");
-}
+export { hasErrors, type Problem, type ProblemKind } from "./problems";
 
 /**
  * Live checks of a floor plan. Pure, and linear in the cell count apart from one search per

@@ -1,5 +1,5 @@
 import type { Side } from "@/lib/routing/drawing";
-import { GROUND, MAX_SIDE_CELLS, rackRunSchema, type EditorDocument, type EditorPoint, type GroundChar, type RackRun } from "./document";
+import { CELL_MM_MAX, CELL_MM_MIN, GROUND, MAX_SIDE_CELLS, rackRunSchema, type EditorDocument, type EditorPoint, type GroundChar, type RackRun } from "./document";
 
 export type PointKind = "depot" | "dropoff";
 export type RunChanges = Partial<Omit<RackRun, "id">>;
@@ -114,7 +114,7 @@ export function execute(doc: EditorDocument, cmd: Command): Executed | null {
     case "resize":
       return resize(doc, cmd.width, cmd.height);
     case "set-cell-size": {
-      if (!Number.isInteger(cmd.cellMm) || cmd.cellMm < 250 || cmd.cellMm > 5000 || cmd.cellMm === doc.cellMm) return null;
+      if (!Number.isInteger(cmd.cellMm) || cmd.cellMm < CELL_MM_MIN || cmd.cellMm > CELL_MM_MAX || cmd.cellMm === doc.cellMm) return null;
       return { doc: { ...doc, cellMm: cmd.cellMm }, inverse: { type: "set-cell-size", cellMm: doc.cellMm } };
     }
     case "set-background": {

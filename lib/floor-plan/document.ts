@@ -13,6 +13,9 @@ export const DOCUMENT_FORMAT = 1;
 export const MAX_SIDE_CELLS = 400;
 export const MAX_RACK_RUNS = 2000;
 export const MAX_LEVELS = 12;
+/** The real size of one grid cell, in mm: the editor's field, its command and the saved document all hold to it. */
+export const CELL_MM_MIN = 250;
+export const CELL_MM_MAX = 5000;
 
 /** Ground paint per cell, row-major: "." outside the floor, "f" walkable floor, "x" wall/column/dock. */
 export const GROUND = { outside: ".", floor: "f", blocked: "x" } as const;
@@ -67,7 +70,7 @@ export const editorDocumentSchema = z
     format: z.literal(DOCUMENT_FORMAT),
     width: z.number().int().min(4).max(MAX_SIDE_CELLS),
     height: z.number().int().min(4).max(MAX_SIDE_CELLS),
-    cellMm: z.number().int().min(250).max(5000),
+    cellMm: z.number().int().min(CELL_MM_MIN).max(CELL_MM_MAX),
     ground: z.string().regex(/^[.fx]*$/, "Ground paint uses only '.', 'f' and 'x'."),
     oneWay: z.array(z.object({ cell: z.number().int().min(0), dir: side })).max(MAX_SIDE_CELLS * MAX_SIDE_CELLS),
     rackRuns: z.array(rackRunSchema).max(MAX_RACK_RUNS),

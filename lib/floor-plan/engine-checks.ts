@@ -2,7 +2,7 @@ import { validateDrawing, type DrawingIssue, type IssueCode } from "@/lib/routin
 import type { GridDrawing } from "@/lib/routing/drawing";
 import { junctionCount } from "@/lib/routing/build-graph";
 import { MAX_JUNCTIONS } from "@/lib/routing/limits";
-import type { Problem, ProblemKind } from "./checks";
+import type { Problem, ProblemKind } from "./problems";
 
 /** Problems that leave no walk at all from a depot to a drop-off, so every bin and floor cell follows from them. */
 const ROOT: ProblemKind[] = ["no-depot", "no-dropoff", "point-not-on-floor", "no-path"];

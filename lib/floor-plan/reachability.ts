@@ -1,58 +1,17 @@
-import { canStep, SIDES, SIDE_DX, SIDE_DY, type GridDrawing } from "@/lib/routing/drawing";
+import { SIDES, SIDE_DX, SIDE_DY, type GridDrawing } from "@/lib/routing/drawing";
+import { searchStart } from "@/lib/routing/reachability";
 
 /**
- * Cell-grid searches behind the live checks. They walk the same step rule as the routing engine
- * (canStep), so what they call reachable is what the published graph will connect.
+ * Cell-grid searches behind the live checks. Walking with the one-way marks they use the routing
+ * engine's own searches, so the editor and the engine's validator never disagree on what is reachable.
  */
-
-/** Floor cells a walker can reach from `starts`, following one-way marks. */
-export function reachableFrom(d: GridDrawing, starts: number[]): Uint8Array {
-  const seen = new Uint8Array(d.width * d.height);
-  const queue = seedQueue(d, starts, seen);
-  for (let head = 0; head < queue.length; head++) {
-    const c = queue[head] as number;
-    const x = c % d.width;
-    const y = (c - x) / d.width;
-    for (const dir of SIDES) {
-      const nc = c + SIDE_DY[dir] * d.width + SIDE_DX[dir];
-      if (!seen[nc] && canStep(d, x, y, dir)) {
-        seen[nc] = 1;
-        queue.push(nc);
-      }
-    }
-  }
-  return seen;
-}
-
-/** Floor cells from which a walker can reach one of `targets`, following one-way marks. */
-export function reachingTo(d: GridDrawing, targets: number[]): Uint8Array {
-  const seen = new Uint8Array(d.width * d.height);
-  const queue = seedQueue(d, targets, seen);
-  for (let head = 0; head < queue.length; head++) {
-    const c = queue[head] as number;
-    const x = c % d.width;
-    const y = (c - x) / d.width;
-    for (const dir of SIDES) {
-      // A predecessor stands one cell behind and steps towards `dir` into c.
-      const px = x - SIDE_DX[dir];
-      const py = y - SIDE_DY[dir];
-      const pc = py * d.width + px;
-      if (px >= 0 && py >= 0 && px < d.width && py < d.height && !seen[pc] && canStep(d, px, py, dir)) {
-        seen[pc] = 1;
-        queue.push(pc);
-      }
-    }
-  }
-  return seen;
-}
+export { reachableFrom, reachingTo } from "@/lib/routing/reachability";
 
 /** Floor cells connected to `starts` when one-way marks are ignored. */
 export function connectedTo(d: GridDrawing, starts: number[]): Uint8Array {
-  const seen = new Uint8Array(d.width * d.height);
-  const queue = seedQueue(d, starts, seen);
+  const { seen, queue } = searchStart(d, starts);
   for (let head = 0; head < queue.length; head++) {
-    const c = queue[head] as number;
-    for (const nc of floorNeighbours(d, c)) {
+    for (const nc of floorNeighbours(d, queue[head] as number)) {
       if (!seen[nc]) {
         seen[nc] = 1;
         queue.push(nc);
@@ -96,15 +55,4 @@ function floorNeighbours(d: GridDrawing, c: number): number[] {
     if (d.cells[nc] === "floor") out.push(nc);
   }
   return out;
-}
-
-function seedQueue(d: GridDrawing, cells: number[], seen: Uint8Array): number[] {
-  const queue: number[] = [];
-  for (const c of cells) {
-    if (d.cells[c] === "floor" && !seen[c]) {
-      seen[c] = 1;
-      queue.push(c);
-    }
-  }
-  return queue;
 }

@@ -12,10 +12,9 @@ import { cell, isBlankRow, resolveMapping, type ColumnMapping } from "./mapping"
 import { binLookup, validateItemRows, type ItemRecord } from "./items";
 import { referencedKeys, validateOrderRows, type OrderRecord } from "./orders";
 import type { ImportRequest } from "./request";
+import type { ImportCounts } from "@/lib/contracts/imports";
 
 export const PREVIEW_ROWS = 10;
-
-export type ImportCounts = { rows: number; items?: number; inserted?: number; updated?: number; orders?: number; lines?: number };
 
 export type Analysis = {
   headers: string[];

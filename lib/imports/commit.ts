@@ -4,10 +4,9 @@ import { DuplicateImportError, findImport, recordImport, type ImportRecordDTO } 
 import { upsertItems } from "@/db/items";
 import { countsOfImport, insertOrders, OrderNumberTakenError } from "@/db/orders";
 import { HttpError } from "@/lib/http/errors";
-import type { Analysis, ImportCounts } from "./analyse";
+import type { Analysis } from "./analyse";
+import type { AlreadyImported, ImportCounts } from "@/lib/contracts/imports";
 import type { ImportRequest } from "./request";
-
-export type AlreadyImported = { alreadyImported: true; importedAt: string; filename: string; counts: ImportCounts };
 
 export async function alreadyImported(record: ImportRecordDTO): Promise<AlreadyImported> {
   const c = await countsOfImport(record.id);

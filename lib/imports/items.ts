@@ -1,6 +1,6 @@
 import type { RowProblem } from "@/lib/sheets/columns";
 import { BIN_SEPARATOR } from "./fields";
-import { cell, isBlankRow, type ColumnMapping } from "./mapping";
+import { cell, eachDataRow, firstRowOf, type ColumnMapping } from "./mapping";
 
 export type ItemRecord = { row: number; sku: string; description: string; uom: string; unitWeightG: number; bins: string[] };
 
@@ -28,9 +28,7 @@ export function validateItemRows(body: readonly string[][], mapping: ColumnMappi
   const items: ItemRecord[] = [];
   const problems: RowProblem[] = [];
   const firstRowOfSku = new Map<string, number>();
-  body.forEach((r, i) => {
-    const row = i + 2;
-    if (isBlankRow(r)) return;
+  eachDataRow(body, (r, row) => {
     const messages: string[] = [];
     const sku = cell(r, mapping, "sku");
     const description = cell(r, mapping, "description");
@@ -63,10 +61,8 @@ export function validateItemRows(body: readonly string[][], mapping: ColumnMappi
     } else if (codes.length === 0) messages.push(`No pick bin: give at least one bin code (several separated by “${BIN_SEPARATOR}”).`);
 
     if (sku && sku.length <= MAX.sku) {
-      const key = sku.toUpperCase();
-      const first = firstRowOfSku.get(key);
+      const first = firstRowOf(firstRowOfSku, sku.toUpperCase(), row);
       if (first !== undefined) messages.push(`SKU ${sku} is listed twice in this file (first on row ${first}).`);
-      else firstRowOfSku.set(key, row);
     }
 
     if (messages.length) problems.push({ row, message: messages.join(" ") });

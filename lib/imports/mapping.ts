@@ -68,3 +68,17 @@ export function cell(row: readonly string[], mapping: ColumnMapping, key: string
 }
 
 export const isBlankRow = (row: readonly string[]) => row.every((c) => c.trim() === "");
+
+/** Calls `visit` with each data row that is not blank and its sheet row number (the header is row 1). */
+export function eachDataRow(body: readonly string[][], visit: (r: readonly string[], row: number) => void): void {
+  body.forEach((r, i) => {
+    if (!isBlankRow(r)) visit(r, i + 2);
+  });
+}
+
+/** The row `key` was first seen on, or undefined when this is the first time (and `row` is noted for it). */
+export function firstRowOf(firstRows: Map<string, number>, key: string, row: number): number | undefined {
+  const first = firstRows.get(key);
+  if (first === undefined) firstRows.set(key, row);
+  return first;
+}

@@ -1,6 +1,6 @@
 import type { RowProblem } from "@/lib/sheets/columns";
 import { parseCutoff } from "./cutoff";
-import { cell, isBlankRow, type ColumnMapping } from "./mapping";
+import { cell, eachDataRow, firstRowOf, type ColumnMapping } from "./mapping";
 
 export type OrderLineRecord = { row: number; lineNo: number; itemId: number; sku: string; quantity: number };
 export type OrderRecord = { firstRow: number; orderNumber: string; customerRef: string | null; priority: number; cutoffAt: Date | null; lines: OrderLineRecord[] };
@@ -41,9 +41,7 @@ export function validateOrderRows(body: readonly string[][], mapping: ColumnMapp
   const problems: RowProblem[] = [];
   const lineRows = new Map<string, number>();
   let lineCount = 0;
-  body.forEach((r, i) => {
-    const row = i + 2;
-    if (isBlankRow(r)) return;
+  eachDataRow(body, (r, row) => {
     const messages: string[] = [];
     const orderNumber = cell(r, mapping, "orderNumber");
     const lineText = cell(r, mapping, "lineNo");
@@ -94,10 +92,8 @@ export function validateOrderRows(body: readonly string[][], mapping: ColumnMapp
       if (order.customerRef !== customerRef) messages.push(`The customer reference differs from ${at}.`);
     }
     if (orderNumber && lineNo !== null) {
-      const lineKey = `${key}\u0000${lineNo}`;
-      const first = lineRows.get(lineKey);
+      const first = firstRowOf(lineRows, `${key}\u0000${lineNo}`, row);
       if (first !== undefined) messages.push(`Order ${orderNumber} line ${lineNo} is listed twice (first on row ${first}).`);
-      else lineRows.set(lineKey, row);
     }
 
     if (messages.length) {

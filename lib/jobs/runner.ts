@@ -1,5 +1,6 @@
 import type { Knex } from "knex";
-import type { JobDTO, JobStart, JobStatus, JobToRun } from "@/db/jobs";
+import type { JobStart, JobToRun } from "@/db/jobs";
+import type { JobDTO, JobStatus } from "@/lib/contracts/jobs";
 import type { SignedInUser } from "@/lib/auth/session";
 import { roleMay, type Permission } from "@/lib/auth/permissions";
 import { HttpError } from "@/lib/http/errors";

@@ -1,5 +1,5 @@
 import "server-only";
-import type { JobDTO } from "@/db/jobs";
+import type { JobDTO } from "@/lib/contracts/jobs";
 import { defineJob, startJob } from "@/lib/jobs/server";
 import { getDraft } from "@/db/floor-plans";
 import { AlreadyPublishedError, insertLayoutVersion } from "@/db/layout-versions";

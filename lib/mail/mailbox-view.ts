@@ -1,4 +1,4 @@
-import type { SinkMessage } from "@/db/mail-sink";
+import type { SinkMessage } from "@/lib/contracts/mail";
 
 // The mail page stands in for a real mail service, where an admin could not read other people's
 // mail. A set-password link is the key to its addressee's account, so it is shown in full only to

@@ -1,5 +1,6 @@
 import "server-only";
-import { claimMail, dueMailIds, markAttemptFailed, markSent, releaseStaleClaims, type OutboxRow } from "@/db/outbox";
+import { claimMail, dueMailIds, markAttemptFailed, markSent, releaseStaleClaims } from "@/db/outbox";
+import type { OutboxRow } from "@/lib/contracts/mail";
 import { afterFailure } from "./backoff";
 import { appOrigin, MAIL_FROM } from "./config";
 import { smtpTransport, type MailTransport } from "./transport";

@@ -3,7 +3,7 @@
 export const SHORT_REASONS = ["empty bin", "damaged", "wrong item", "other"] as const;
 export type ShortReason = (typeof SHORT_REASONS)[number];
 
-/** Bins from this level up are out of reach from the floor (as on the printed pick list). */
+/** Bins from this level up are out of reach from the floor (common practice); the handheld and the printed pick list both mark them. */
 export const HIGH_LEVEL = 3;
 /** A line this heavy (unit weight × quantity) is a two-person or waist-height lift. */
 export const HEAVY_LINE_G = 15_000;

@@ -1,6 +1,7 @@
 import "server-only";
-import { getBatch } from "@/db/waves";
-import { pickLines, type PickBatchRow, type PickLineState } from "@/db/picking";
+import { getBatch } from "@/db/batches";
+import { pickLines, type PickBatchRow } from "@/db/picking";
+import type { PickLineState } from "@/lib/contracts/picking";
 import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { immutableCache } from "@/lib/cache/immutable-cache";
@@ -9,26 +10,8 @@ import type { EditorDocument } from "@/lib/floor-plan/document";
 import { batchLegs } from "./legs";
 import { cautionsOf, HIGH_LEVEL, type Caution } from "./rules";
 
-export type PickStopDTO = {
-  seq: number;
-  x: number;
-  y: number;
-  binCodes: string[];
-  lines: PickLineState[];
-  cautions: Caution[];
-  /** The path from the previous stop (the depot for the first), as floor-plan cells. */
-  pathCells: number[];
-  legMm: number;
-};
-
-export type PickViewDTO = {
-  /** `version` goes back with every confirmation: it changes when the batch is taken or given back. */
-  batch: { id: number; waveName: string; number: number; status: PickBatchRow["status"]; version: number; assignedName: string | null };
-  depot: string;
-  dropoff: string;
-  stops: PickStopDTO[];
-  finalLeg: { cells: number[]; mm: number };
-};
+export type { PickStopDTO, PickViewDTO } from "@/lib/contracts/picking";
+import type { PickStopDTO, PickViewDTO } from "@/lib/contracts/picking";
 
 const placeName = (doc: EditorDocument, id: string) => {
   const p = [...doc.depots, ...doc.dropoffs].find((x) => x.id === id);

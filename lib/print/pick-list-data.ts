@@ -1,28 +1,28 @@
 import "server-only";
-import { getBatch, listBatches, printCounts, type WaveDTO } from "@/db/waves";
+import { getBatch, listBatches } from "@/db/batches";
+import { printCounts } from "@/db/batch-prints";
+import type { WaveDTO } from "@/lib/contracts/waves";
 import { getLayoutVersion, getLayoutVersionById } from "@/db/layout-versions";
 import { getSite } from "@/db/sites";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { batchRouteCells } from "@/lib/waves/batch-route";
 import { documentBins } from "@/lib/floor-plan/bin-codes";
-import { estimateSeconds } from "@/lib/batching/estimate";
-import type { PickListProps } from "@/components/print/PickList";
+import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
+import type { PickListData } from "@/lib/contracts/print";
+import { HIGH_LEVEL } from "@/lib/picking/rules";
 import { code128Svg } from "./barcode";
 import { batchLabel } from "./batch-label";
 
-/** Bins from this level up are out of reach from the floor (common practice: level 3 and above). */
-const HIGH_LEVEL = 3;
-
 /** Everything the pick lists of a wave's batches show; `numbers` picks some, default all. */
-export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: number[]): Promise<PickListProps[]> {
+export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: number[]): Promise<PickListData[]> {
   const v = await getLayoutVersionById(siteId, wave.layoutVersionId);
   const version = v ? await getLayoutVersion(siteId, v.floorPlanId, v.number) : null;
   if (!version) return [];
   const [{ graph, matrix }, site, counts, all] = await Promise.all([layoutGraph(wave.layoutVersionId), getSite(siteId), printCounts(wave.id), listBatches(wave.id)]);
-  const timing = { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? 1000, secondsPerLine: site?.secondsPerLine ?? 15 };
+  const timing = siteTiming(site);
   const highLevels = new Set(documentBins(version.document).filter((b) => b.level >= HIGH_LEVEL).map((b) => b.code));
   const dropoff = [...version.document.dropoffs, ...version.document.depots].find((p) => p.id === wave.settings.dropoffId);
-  const out: PickListProps[] = [];
+  const out: PickListData[] = [];
   for (const summary of all) {
     if (numbers && !numbers.includes(summary.number)) continue;
     const batch = await getBatch(wave.id, summary.number);

@@ -1,5 +1,6 @@
-import { binAccessCell, canStep, cellIndex, inGrid, SIDES, SIDE_DX, SIDE_DY } from "./drawing";
-import type { CellRef, GridDrawing, Side } from "./drawing";
+import { binAccessCell, cellIndex, inGrid } from "./drawing";
+import type { CellRef, GridDrawing } from "./drawing";
+import { reachableFrom, reachingTo } from "./reachability";
 
 export type IssueCode =
   | "bad-shape"
@@ -18,31 +19,6 @@ export interface DrawingIssue {
   message: string;
   cells?: CellRef[];
   bins?: string[];
-}
-
-/** Cells reachable from the seeds on the raw cell grid, forwards or against the one-way marks. */
-function flood(d: GridDrawing, seeds: number[], backwards: boolean): Uint8Array {
-  const seen = new Uint8Array(d.width * d.height);
-  const stack = seeds.filter((c) => d.cells[c] === "floor");
-  for (const c of stack) seen[c] = 1;
-  while (stack.length > 0) {
-    const c = stack.pop() as number;
-    const x = c % d.width;
-    const y = (c - x) / d.width;
-    for (const s of SIDES) {
-      const nx = x + SIDE_DX[s];
-      const ny = y + SIDE_DY[s];
-      if (!inGrid(d, nx, ny)) continue;
-      const back: Side = s === "N" ? "S" : s === "S" ? "N" : s === "E" ? "W" : "E";
-      const ok = backwards ? canStep(d, nx, ny, back) : canStep(d, x, y, s);
-      const nc = cellIndex(d, nx, ny);
-      if (ok && !seen[nc]) {
-        seen[nc] = 1;
-        stack.push(nc);
-      }
-    }
-  }
-  return seen;
 }
 
 function cellsWhere(d: GridDrawing, pred: (c: number) => boolean): CellRef[] {
@@ -74,8 +50,8 @@ export function validateDrawing(d: GridDrawing): DrawingIssue[] {
   for (const b of d.bins) (seenCodes.has(b.code) ? dupes : seenCodes).add(b.code);
   if (dupes.size > 0) issues.push({ code: "duplicate-bin-code", severity: "error", message: `duplicate location codes: ${[...dupes].join(", ")}`, bins: [...dupes] });
 
-  const fromDepot = flood(d, d.depots.filter(onFloor).map((p) => cellIndex(d, p.x, p.y)), false);
-  const toDropoff = flood(d, d.dropoffs.filter(onFloor).map((p) => cellIndex(d, p.x, p.y)), true);
+  const fromDepot = reachableFrom(d, d.depots.filter(onFloor).map((p) => cellIndex(d, p.x, p.y)));
+  const toDropoff = reachingTo(d, d.dropoffs.filter(onFloor).map((p) => cellIndex(d, p.x, p.y)));
   const noAccess: string[] = [];
   const unreachable: string[] = [];
   for (const b of d.bins) {

@@ -7,6 +7,7 @@ export * from "./build-graph";
 export * from "./kept-lines";
 export * from "./limits";
 export * from "./diagnostics";
+export * from "./reachability";
 export * from "./floyd-warshall";
 export * from "./access";
 export * from "./cost-matrix";

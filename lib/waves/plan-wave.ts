@@ -1,7 +1,8 @@
 import "server-only";
-import type { JobDTO } from "@/db/jobs";
+import type { JobDTO } from "@/lib/contracts/jobs";
 import { defineJob, startJob } from "@/lib/jobs/server";
-import { getWave, ordersOfWave, storePlan } from "@/db/waves";
+import { getWave, ordersOfWave } from "@/db/waves";
+import { storePlan } from "@/db/batches";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";

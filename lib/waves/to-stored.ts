@@ -1,6 +1,6 @@
 import type { CompactGraph } from "@/lib/routing/graph";
 import type { BatchPlan, WaveOrder } from "@/lib/batching/types";
-import type { StoredBatch } from "@/db/waves";
+import type { StoredBatch } from "@/lib/contracts/batches";
 
 /** A planned batch as rows: stops in walking order, each order line at its stop and in its tote. */
 export function toStoredBatch(graph: CompactGraph, plan: BatchPlan, ordersById: Map<number, WaveOrder>): StoredBatch {

@@ -3,6 +3,7 @@
 # next start. Needs common.sh; runs from TRAILBIN_ROOT.
 
 NODE_MODULES_STAMP=node_modules/.trailbin-install-stamp
+NEXT_PID=
 
 # What node_modules was installed from: the lockfile, plus Node's version (a new Node may need
 # native addons rebuilt).

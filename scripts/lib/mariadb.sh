@@ -7,7 +7,9 @@
 #   MDB_DATADIR  MDB_DIR/mysql          the InnoDB files
 #   MDB_SOCKET   MDB_DIR/mysqld.sock    root logs in over this socket (unix_socket auth, no password)
 #   MDB_PIDFILE, MDB_LOG, MDB_PORT
-# Needs common.sh.
+# Needs common.sh. Sets MDB_PID to the server it started or adopted.
+
+MDB_PID=
 
 mariadb_configure() {
   MDB_DIR=$1

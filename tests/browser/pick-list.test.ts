@@ -5,7 +5,7 @@ import { APP_URL } from "../support/app";
 import { ARTIFACTS, launchBrowser } from "../support/browser";
 import { signedInPage } from "../support/browser-session";
 import { decodeBarcodePng } from "../support/decode-barcode";
-import { getBatch } from "@/db/waves";
+import { getBatch } from "@/db/batches";
 import { closeDb } from "@/db/knex";
 import { batchLabel } from "@/lib/print/batch-label";
 

@@ -2,7 +2,8 @@ import { afterAll, describe, expect, it } from "vitest";
 import { api, makeUser, ORIGIN } from "../support/app";
 import { testService } from "../support/test-services";
 import { closeDb } from "@/db/knex";
-import { listOutbox, type OutboxRow } from "@/db/outbox";
+import { listOutbox } from "@/db/outbox";
+import type { OutboxRow } from "@/lib/contracts/mail";
 import { sinkMessagesTo } from "@/db/mail-sink";
 import { FIRST_RETRY_MS } from "@/lib/mail/backoff";
 

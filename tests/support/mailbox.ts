@@ -1,4 +1,5 @@
-import { sinkMessagesTo, type SinkMessage } from "@/db/mail-sink";
+import { sinkMessagesTo } from "@/db/mail-sink";
+import type { SinkMessage } from "@/lib/contracts/mail";
 
 /** The sink stores what it receives in the database; poll it, as a person would refresh a mailbox. */
 export async function waitForMail(address: string, count = 1, timeoutMs = 10_000): Promise<SinkMessage[]> {

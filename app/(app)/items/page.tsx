@@ -3,7 +3,7 @@ import { requireRole } from "@/lib/auth/guard";
 import { roleMay } from "@/lib/auth/permissions";
 import { PageHeader } from "@/components/PageHeader";
 import { ItemsScreen } from "@/components/items/ItemsScreen";
-import { layoutVersionOptions } from "@/components/imports/versions";
+import { importVersionOptions } from "@/lib/layout-versions/choices";
 
 export const metadata: Metadata = { title: "Item master" };
 
@@ -13,7 +13,7 @@ export default async function ItemsPage() {
   return (
     <>
       <PageHeader title="Item master" lead="Every SKU with its unit of measure, unit weight and pick bins. The first pick bin of an SKU is its main one." />
-      <ItemsScreen canPlan={canPlan} versions={canPlan ? await layoutVersionOptions(user.siteId) : []} />
+      <ItemsScreen canPlan={canPlan} versions={canPlan ? await importVersionOptions(user.siteId) : []} />
     </>
   );
 }

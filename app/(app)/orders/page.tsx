@@ -4,7 +4,7 @@ import { roleMay } from "@/lib/auth/permissions";
 import { getSite } from "@/db/sites";
 import { PageHeader } from "@/components/PageHeader";
 import { OrdersScreen } from "@/components/orders/OrdersScreen";
-import { layoutVersionOptions } from "@/components/imports/versions";
+import { importVersionOptions } from "@/lib/layout-versions/choices";
 
 export const metadata: Metadata = { title: "Orders" };
 
@@ -20,7 +20,7 @@ export default async function OrdersPage() {
           Trying Trailbin out? Import <a className="font-semibold underline" href="/demo/bramblegate-orders-2026-11-28.csv" download>the demo order sheet</a> (Saturday&apos;s invented orders for Bramblegate), then plan a wave from them.
         </p>
       )}
-      <OrdersScreen canPlan={canPlan} versions={canPlan ? await layoutVersionOptions(user.siteId) : []} timeZone={site?.timezone ?? "UTC"} />
+      <OrdersScreen canPlan={canPlan} versions={canPlan ? await importVersionOptions(user.siteId) : []} timeZone={site?.timezone ?? "UTC"} />
     </>
   );
 }

@@ -3,38 +3,19 @@ import Link from "next/link";
 import { requireRole } from "@/lib/auth/guard";
 import { roleMay } from "@/lib/auth/permissions";
 import { listWaves } from "@/db/waves";
-import { listFloorPlans } from "@/db/floor-plans";
-import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
+import { waveLayoutChoices } from "@/lib/layout-versions/choices";
 import { PageHeader } from "@/components/PageHeader";
 import { EmptyState } from "@/components/EmptyState";
-import { NewWaveForm, type LayoutChoice } from "@/components/waves/NewWaveForm";
+import { NewWaveForm } from "@/components/waves/NewWaveForm";
 import { metres, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Waves" };
 
 const STATUS = { draft: "◌ Draft", planned: "◐ Planned", released: "● Released" } as const;
 
-async function layoutChoices(siteId: number): Promise<LayoutChoice[]> {
-  const plans = await listFloorPlans(siteId);
-  const out: LayoutChoice[] = [];
-  for (const p of plans) {
-    if (!p.latestVersion) continue;
-    const v = await getLayoutVersionById(siteId, p.latestVersion.id);
-    const full = v ? await getLayoutVersion(siteId, p.id, v.number) : null;
-    if (!full) continue;
-    out.push({
-      id: full.id,
-      label: `${p.name}, version ${full.number}`,
-      depots: full.document.depots.map((d) => ({ id: d.id, name: d.name })),
-      dropoffs: [...full.document.dropoffs, ...full.document.depots].map((d) => ({ id: d.id, name: d.name })),
-    });
-  }
-  return out;
-}
-
 export default async function WavesPage() {
   const user = await requireRole("waves.read", "/waves");
-  const [waves, layouts] = await Promise.all([listWaves(user.siteId), layoutChoices(user.siteId)]);
+  const [waves, layouts] = await Promise.all([listWaves(user.siteId), waveLayoutChoices(user.siteId)]);
   return (
     <>
       <PageHeader title="Waves" lead="Groups of orders cut into cart-sized batches, each with an exact walking route and its savings against the usual walk through the aisles." />

@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
-import { listOrders, ORDER_STATUSES } from "@/db/orders";
+import { listOrders } from "@/db/orders";
+import { ORDER_STATUSES } from "@/lib/contracts/orders";
 
 export const dynamic = "force-dynamic";
 

@@ -1,4 +1,4 @@
-import type { Role } from "../../../lib/auth/permissions";
+import type { Role } from "../../../lib/contracts/users";
 
 // Invented people of the invented Fennick Supply Co.; these passwords exist only in demo databases.
 export const DEMO_SITE = { code: "BRAMBLEGATE", name: "Fennick Supply Co. — Bramblegate warehouse", timezone: "Europe/London" } as const;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import type { JobDTO, JobStart, JobToRun } from "@/db/jobs";
+import type { JobStart, JobToRun } from "@/db/jobs";
+import type { JobDTO } from "@/lib/contracts/jobs";
 import type { SignedInUser } from "@/lib/auth/session";
 import { HttpError } from "@/lib/http/errors";
 import { createJobRunner, JobNoLongerRunning, type JobDefinition, type JobStore } from "@/lib/jobs/runner";

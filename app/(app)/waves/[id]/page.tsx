@@ -3,13 +3,15 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
 import { roleMay } from "@/lib/auth/permissions";
-import { getWave, listBatches, shortPicksOfWave } from "@/db/waves";
+import { getWave } from "@/db/waves";
+import { listBatches } from "@/db/batches";
+import { shortPicksOfWave } from "@/db/short-picks";
 import { getSite } from "@/db/sites";
 import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
 import { UnbatchedOrders } from "@/components/waves/UnbatchedOrders";
-import { estimateSeconds } from "@/lib/batching/estimate";
+import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
 import { metres, minutes, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Wave" };
@@ -20,7 +22,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
   const wave = /^\d{1,9}$/.test(id) ? await getWave(user.siteId, Number(id)) : null;
   if (!wave) notFound();
   const [batches, site, shortPicks] = await Promise.all([listBatches(wave.id), getSite(user.siteId), shortPicksOfWave(wave.id)]);
-  const timing = { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? 1000, secondsPerLine: site?.secondsPerLine ?? 15 };
+  const timing = siteTiming(site);
   const rows = batches.map((b) => ({ ...b, seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing) }));
   const totalSeconds = rows.reduce((a, b) => a + b.seconds, 0);
   const s = wave.settings;

@@ -1,7 +1,9 @@
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
-import { getWave, listBatches, shortPicksOfWave } from "@/db/waves";
+import { getWave } from "@/db/waves";
+import { listBatches } from "@/db/batches";
+import { shortPicksOfWave } from "@/db/short-picks";
 
 export const dynamic = "force-dynamic";
 

@@ -2,7 +2,8 @@ import { z } from "zod";
 import { route } from "@/lib/http/route";
 import { HttpError } from "@/lib/http/errors";
 import { intParam } from "@/lib/http/params";
-import { getWave, recordPrinted } from "@/db/waves";
+import { getWave } from "@/db/waves";
+import { recordPrinted } from "@/db/batch-prints";
 import { audit } from "@/db/audit";
 
 const Printed = z.object({ numbers: z.array(z.number().int().positive().max(10_000, "No wave has that many batches.")).min(1, "Say which batches were printed.").max(2000) });

@@ -5,12 +5,13 @@ import { intParam } from "@/lib/http/params";
 import { rowVersion } from "@/lib/http/body-fields";
 import { getWave, releaseWave } from "@/db/waves";
 import { audit } from "@/db/audit";
+import { appOrigin } from "@/lib/mail/config";
 
 const Release = z.object({ version: rowVersion() });
 
 export const POST = route({ access: "waves.plan", body: Release }, async ({ user, params, body, ip }) => {
   const id = intParam(params, "id", "wave");
-  const outcome = await releaseWave(user.siteId, id, body.version, user.id);
+  const outcome = await releaseWave(user.siteId, id, body.version, user.id, appOrigin());
   const wave = await getWave(user.siteId, id);
   if (!wave) throw new HttpError(404, "No such wave at this site.");
   if (outcome === "not-planned") throw new HttpError(409, "Plan the wave before releasing it.");

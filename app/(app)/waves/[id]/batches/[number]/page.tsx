@@ -2,14 +2,15 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
-import { getBatch, getWave } from "@/db/waves";
+import { getWave } from "@/db/waves";
+import { getBatch } from "@/db/batches";
 import { getLayoutVersionById, getLayoutVersion } from "@/db/layout-versions";
 import { getSite } from "@/db/sites";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { batchRouteCells } from "@/lib/waves/batch-route";
 import { BatchRoute } from "@/components/waves/BatchRoute";
 import { BatchLiveStatus } from "@/components/waves/BatchLiveStatus";
-import { estimateSeconds } from "@/lib/batching/estimate";
+import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Batch" };
@@ -29,7 +30,7 @@ export default async function BatchPage({ params }: { params: Promise<{ id: stri
   if (!version) notFound();
   const [{ graph, matrix }, site] = await Promise.all([layoutGraph(wave.layoutVersionId), getSite(user.siteId)]);
   const { cells, legsMm } = batchRouteCells(graph, matrix, wave.settings.depotId, wave.settings.dropoffId, batch.stops.map((s) => s.accessPoint));
-  const seconds = estimateSeconds({ distanceMm: batch.distanceMm, lines: batch.lineCount }, { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? 1000, secondsPerLine: site?.secondsPerLine ?? 15 });
+  const seconds = estimateSeconds({ distanceMm: batch.distanceMm, lines: batch.lineCount }, siteTiming(site));
   return (
     <>
       <p className="mb-2 text-sm">

@@ -1,23 +1,5 @@
 import type { ImportKind } from "@/lib/imports/fields";
-
-export type RowProblem = { row: number; message: string };
-export type ImportCounts = { rows: number; items?: number; inserted?: number; updated?: number; orders?: number; lines?: number };
-
-/** POST /api/imports/[kind]/preview */
-export type PreviewAnswer = {
-  headers: string[];
-  mapping: Record<string, number | null>;
-  fields: { key: string; label: string; required: boolean }[];
-  preview: string[][];
-  problems: RowProblem[];
-  counts: ImportCounts;
-  duplicate: { importedAt: string; filename: string } | null;
-};
-
-/** POST /api/imports/[kind]: 201 { counts } or 200 { alreadyImported, … } */
-export type ImportAnswer = { counts: ImportCounts; alreadyImported?: undefined } | { alreadyImported: true; importedAt: string; filename: string; counts: ImportCounts };
-
-export type VersionOption = { id: number; label: string };
+import type { ImportAnswer } from "@/lib/contracts/imports";
 
 export function importedSentence(kind: ImportKind, a: ImportAnswer): string {
   const c = a.counts;

@@ -1,0 +1,36 @@
+// A wave's batches as the wave pages, the pick lists and db/batches.ts see them. Types only.
+
+export type BatchSummaryDTO = {
+  id: number;
+  number: number;
+  lineCount: number;
+  toteCount: number;
+  weightG: number;
+  stopCount: number;
+  distanceMm: number;
+  baselineMm: number;
+  optimal: boolean;
+  method: string;
+  status: string;
+  pickedLines: number;
+  shortLines: number;
+};
+
+export type BatchStopLine = { orderNumber: string; tote: number; sku: string; description: string; quantity: number; uom: string; binCode: string; unitWeightG: number };
+
+export type BatchDetailDTO = BatchSummaryDTO & {
+  stops: { seq: number; x: number; y: number; accessPoint: number; lines: BatchStopLine[] }[];
+};
+
+/** One planned batch as the planning job stores it. */
+export type StoredBatch = {
+  lineCount: number;
+  toteCount: number;
+  weightG: number;
+  distanceMm: number;
+  baselineMm: number;
+  optimal: boolean;
+  method: string;
+  stops: { accessPoint: number; x: number; y: number }[];
+  lines: { orderLineId: number; stopSeq: number; tote: number; binCode: string }[];
+};

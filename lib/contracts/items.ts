@@ -1,0 +1,3 @@
+// The item master as GET /api/items lists it. Types only.
+
+export type ItemDTO = { sku: string; description: string; uom: string; unitWeightG: number; bins: string[] };

@@ -13,8 +13,8 @@ export async function register() {
     process.exit(1);
   }
   try {
-    const { failOrphanedJobs } = await import("./db/jobs");
-    const n = await failOrphanedJobs();
+    const { failJobsOfPreviousRun } = await import("./lib/jobs/server");
+    const n = await failJobsOfPreviousRun();
     if (n > 0) console.log(`marked ${n} job(s) left over from the previous server run as failed`);
   } catch (e) {
     console.error("could not clear jobs left over from the previous run:", (e as Error).message);

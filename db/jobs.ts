@@ -4,7 +4,9 @@ import type { Knex } from "knex";
 import { db } from "./knex";
 import type { JobDTO, JobStatus } from "@/lib/contracts/jobs";
 
-type JobRow = { id: string; kind: string; status: JobStatus; progress: number; message: string; result: string | null; created_at: Date; updated_at: Date };
+type JobRow = { id: string; site_id: number; kind: string; status: JobStatus; progress: number; message: string; result: string | null; input: string | null; created_by: string | null; created_at: Date; updated_at: Date };
+
+const json = (v: unknown): unknown => (typeof v === "string" ? JSON.parse(v) : v);
 
 const toDTO = (r: JobRow): JobDTO => ({
   id: r.id,
@@ -12,7 +14,7 @@ const toDTO = (r: JobRow): JobDTO => ({
   status: r.status,
   progress: r.progress,
   message: r.message,
-  result: typeof r.result === "string" ? JSON.parse(r.result) : r.result,
+  result: json(r.result),
   createdAt: r.created_at.toISOString(),
   updatedAt: r.updated_at.toISOString(),
 });
@@ -23,7 +25,7 @@ const toDTO = (r: JobRow): JobDTO => ({
  */
 export type JobStart = { job: JobDTO; created: boolean; startedBy: { id: string; name: string } | null };
 
-export async function createOrJoinJob(siteId: number, kind: string, key: string, userId: string | null, message: string): Promise<JobStart> {
+export async function createOrJoinJob(siteId: number, kind: string, key: string, userId: string | null, message: string, input: unknown = null): Promise<JobStart> {
   return db().transaction(async (trx) => {
     await trx("sites").where({ id: siteId }).forUpdate().first("id");
     const existing = (await trx("jobs as j")
@@ -37,7 +39,7 @@ export async function createOrJoinJob(siteId: number, kind: string, key: string,
       return { job: toDTO(existing), created: false, startedBy };
     }
     const id = randomBytes(16).toString("hex");
-    await trx("jobs").insert({ id, site_id: siteId, kind, job_key: key, status: "queued", message, created_by: userId });
+    await trx("jobs").insert({ id, site_id: siteId, kind, job_key: key, status: "queued", message, created_by: userId, input: JSON.stringify(input) });
     const row = (await trx("jobs").where({ id }).first()) as JobRow;
     return { job: toDTO(row), created: true, startedBy: null };
   });
@@ -58,6 +60,23 @@ export async function updateJob(id: string, patch: { status?: JobStatus; progres
   if (patch.result !== undefined) row.result = JSON.stringify(patch.result);
   const changed = await q("jobs").where({ id }).whereIn("status", ["queued", "running"]).update(row);
   return changed > 0;
+}
+
+/** A job as a worker runs it: who started it, at which site, on what. */
+export type JobToRun = { job: JobDTO; siteId: number; userId: string | null; input: unknown };
+
+/**
+ * Takes a queued job to run it, and says whether this caller got it: only one claim of a job ever
+ * succeeds, so several worker processes can share one queue; a job cancelled while it waited is not taken.
+ */
+export async function claimJob(id: string, startMessage: (kind: string) => string): Promise<JobToRun | null> {
+  const queued = (await db()("jobs").where({ id, status: "queued" }).first()) as JobRow | undefined;
+  if (!queued) return null;
+  const message = startMessage(queued.kind).slice(0, 500);
+  const changed = await db()("jobs").where({ id, status: "queued" }).update({ status: "running", progress: 0, message, updated_at: db().fn.now(3) });
+  if (changed === 0) return null;
+  const job = toDTO({ ...queued, status: "running", progress: 0, message });
+  return { job, siteId: queued.site_id, userId: queued.created_by, input: json(queued.input) };
 }
 
 export async function getJob(siteId: number, id: string): Promise<JobDTO | null> {

@@ -1,8 +1,6 @@
 import "server-only";
-import { createOrJoinJob, updateJob } from "@/db/jobs";
 import type { JobDTO } from "@/lib/contracts/jobs";
-import { ownJobOrConflict } from "@/lib/jobs/join";
-import { cancellable, finished, finishJobIn, JobNoLongerRunning } from "@/lib/jobs/cancel";
+import { defineJob, startJob } from "@/lib/jobs/server";
 import { getDraft } from "@/db/floor-plans";
 import { AlreadyPublishedError, insertLayoutVersion } from "@/db/layout-versions";
 import { audit } from "@/db/audit";
@@ -14,6 +12,31 @@ import { rackRunOfBins } from "./build";
 import { publishFailureMessage } from "./publish-failure";
 
 export type PublishResult = { layoutVersionId: number; number: number };
+
+type PublishInput = { floorPlanId: number; draftVersion: number };
+
+export const publishLayoutJob = defineJob<PublishInput>("publish-layout", {
+  access: { watch: "floorplans.read", cancel: "floorplans.edit" },
+  messages: { start: "Reading the draft", cancelled: "Publishing was cancelled; no new layout version was made." },
+  failureMessage: publishFailureMessage,
+  async run({ siteId, userId, input: { floorPlanId, draftVersion }, progress, signal, finish }) {
+    const draft = await getDraft(siteId, floorPlanId);
+    if (!draft || draft.version !== draftVersion) throw new HttpError(409, "The draft changed while publishing started. Reload it and publish again.");
+    const { graph, matrix } = await computeLayout(draft.document, (f, stage) => progress(0.05 + f * 0.8, stage), signal);
+    if (signal.aborted) return;
+    progress(0.9, `Storing ${graph.nodes.length} junctions, ${graph.edges.length} corridors and ${graph.bins.length} bins`);
+    try {
+      const stored = await insertLayoutVersion(
+        { floorPlanId, fromDraftVersion: draftVersion, document: draft.document, graph, matrix, rackRunOfBin: rackRunOfBins(draft.document), userId },
+        (trx, v) => finish(trx, { message: `Published as version ${v.number}`, result: { layoutVersionId: v.id, number: v.number } }),
+      );
+      await audit({ event: "layout.published", actorUserId: userId, subject: `floor-plan:${floorPlanId}`, detail: { version: stored.number, bins: graph.bins.length } });
+    } catch (e) {
+      if (!(e instanceof AlreadyPublishedError)) throw e;
+      await finish(null, { message: `Already published as version ${e.existing.number}`, result: { layoutVersionId: e.existing.id, number: e.existing.number } });
+    }
+  },
+});
 
 /**
  * Starts publishing the draft as saved at `draftVersion` and returns its job at once; the browser
@@ -30,51 +53,13 @@ export async function startPublish(user: SignedInUser, floorPlanId: number, draf
   if (errors.length > 0) {
     throw new HttpError(422, `This draft has ${errors.length} problem${errors.length === 1 ? "" : "s"} to fix before it can be published.`, { problems: errors });
   }
-  const start = await createOrJoinJob(user.siteId, "publish-layout", `publish:${floorPlanId}@${draftVersion}`, user.id, "Waiting to start");
-  const job = ownJobOrConflict(start, user.id, (by, j) =>
-    j.status === "done"
-      ? `${by} has already published this save of the draft. Reload the floor plan to see the new version.`
-      : `${by} is publishing this save of the draft right now. Wait a moment, then reload the floor plan to see the new version.`,
+  return startJob(
+    publishLayoutJob,
+    { siteId: user.siteId, key: `publish:${floorPlanId}@${draftVersion}`, userId: user.id, message: "Waiting to start", input: { floorPlanId, draftVersion } },
+    (by, j) =>
+      j.status === "done"
+        ? `${by} has already published this save of the draft. Reload the floor plan to see the new version.`
+        : `${by} is publishing this save of the draft right now. Wait a moment, then reload the floor plan to see the new version.`,
+    (job) => audit({ event: "layout.publish_started", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, ip, detail: { draftVersion, job: job.id } }),
   );
-  if (start.created) {
-    await audit({ event: "layout.publish_started", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, ip, detail: { draftVersion, job: job.id } });
-    void runPublish(job.id, floorPlanId, draftVersion, user);
-  }
-  return job;
-}
-
-async function runPublish(jobId: string, floorPlanId: number, draftVersion: number, user: SignedInUser): Promise<void> {
-  let lastWrite = 0;
-  const progress = (fraction: number, message: string) => {
-    // Progress comes from the worker many times a second; the database needs a few writes at most.
-    const now = Date.now();
-    if (now - lastWrite < 250 && fraction < 1) return;
-    lastWrite = now;
-    void updateJob(jobId, { status: "running", progress: fraction, message }).catch(() => undefined);
-  };
-  const signal = cancellable(jobId);
-  try {
-    // Cancelled while it waited to start.
-    if (!(await updateJob(jobId, { status: "running", progress: 0, message: "Reading the draft" }))) return;
-    const draft = await getDraft(user.siteId, floorPlanId);
-    if (!draft || draft.version !== draftVersion) throw new HttpError(409, "The draft changed while publishing started. Reload it and publish again.");
-    const { graph, matrix } = await computeLayout(draft.document, (f, stage) => progress(0.05 + f * 0.8, stage));
-    if (signal.aborted) return;
-    progress(0.9, `Storing ${graph.nodes.length} junctions, ${graph.edges.length} corridors and ${graph.bins.length} bins`);
-    const stored = await insertLayoutVersion(
-      { floorPlanId, fromDraftVersion: draftVersion, document: draft.document, graph, matrix, rackRunOfBin: rackRunOfBins(draft.document), userId: user.id },
-      (trx, v) => finishJobIn(trx, jobId, { message: `Published as version ${v.number}`, result: { layoutVersionId: v.id, number: v.number } }),
-    );
-    await audit({ event: "layout.published", actorUserId: user.id, subject: `floor-plan:${floorPlanId}`, detail: { version: stored.number, bins: graph.bins.length } });
-  } catch (e) {
-    if (e instanceof JobNoLongerRunning) return;
-    if (e instanceof AlreadyPublishedError) {
-      await updateJob(jobId, { status: "done", progress: 1, message: `Already published as version ${e.existing.number}`, result: { layoutVersionId: e.existing.id, number: e.existing.number } });
-      return;
-    }
-    console.error(`publish job ${jobId} failed`, e);
-    await updateJob(jobId, { status: "failed", message: publishFailureMessage(e, jobId) }).catch(() => undefined);
-  } finally {
-    finished(jobId);
-  }
 }

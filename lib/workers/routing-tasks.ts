@@ -6,12 +6,12 @@ import type { CompactGraph } from "../routing/graph";
 import type { SequenceRequest, SequenceResult } from "../routing/sequence";
 import { sequenceStops } from "../routing/sequence";
 
-/** Work the pool can run off the main thread. Plain data so it survives postMessage. */
-export type RoutingJob =
+/** Work the routing pool can run off the main thread. Plain data so it survives postMessage. */
+export type RoutingTask =
   | { kind: "sequence"; matrix: CostMatrix; request: Omit<SequenceRequest, "onProgress"> }
   | { kind: "floyd-warshall"; graph: CompactGraph };
 
-export type JobResult<J extends RoutingJob> = J extends { kind: "sequence" } ? SequenceResult : DistanceMatrix;
+export type TaskResult<T extends RoutingTask> = T extends { kind: "sequence" } ? SequenceResult : DistanceMatrix;
 
 export interface SerializedError {
   name: string;
@@ -21,13 +21,13 @@ export interface SerializedError {
 }
 
 export type WorkerMessage =
-  | { type: "progress"; jobId: number; fraction: number }
-  | { type: "done"; jobId: number; result: SequenceResult | DistanceMatrix }
-  | { type: "error"; jobId: number; error: SerializedError };
+  | { type: "progress"; taskId: number; fraction: number }
+  | { type: "done"; taskId: number; result: SequenceResult | DistanceMatrix }
+  | { type: "error"; taskId: number; error: SerializedError };
 
-export function runJob(job: RoutingJob, onProgress: (fraction: number) => void): SequenceResult | DistanceMatrix {
-  if (job.kind === "sequence") return sequenceStops(job.matrix, { ...job.request, onProgress });
-  return floydWarshall(job.graph, onProgress);
+export function runTask(task: RoutingTask, onProgress: (fraction: number) => void): SequenceResult | DistanceMatrix {
+  if (task.kind === "sequence") return sequenceStops(task.matrix, { ...task.request, onProgress });
+  return floydWarshall(task.graph, onProgress);
 }
 
 export function serializeError(e: unknown): SerializedError {

@@ -1,5 +1,5 @@
 // Worker-thread entry for RoutingPool (TypeScript; the pool registers tsx before loading it).
-import { runJob } from "./routing-tasks";
-import { serveJobs } from "./serve-tasks";
+import { runTask } from "./routing-tasks";
+import { serveTasks } from "./serve-tasks";
 
-serveJobs(runJob);
+serveTasks(runTask);

@@ -3,7 +3,7 @@ import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import type { BatchingMethod, CartLimits, WaveOrder } from "@/lib/batching/types";
 
 /** Everything the wave worker needs, as plain data for postMessage. */
-export type WaveJob = {
+export type WaveTask = {
   graph: CompactGraph;
   matrix: DistanceMatrix;
   orders: WaveOrder[];

@@ -1,35 +1,37 @@
-// Node-only: runs routing jobs in worker_threads so long solves never block the server's event loop.
+// Node-only: runs tasks (routing, wave planning) in worker_threads so long solves never block the server's event loop.
 import path from "node:path";
 import { Worker, type ResourceLimits } from "node:worker_threads";
-import type { JobResult, RoutingJob, SerializedError } from "./routing-tasks";
+import type { RoutingTask, SerializedError, TaskResult } from "./routing-tasks";
 import { deserializeError } from "./routing-tasks";
 
-/** What a worker entry sends back; any entry speaking it (see ./serve-jobs) can back a pool. */
+/** What a worker entry sends back; any entry speaking it (see ./serve-tasks) can back a pool. */
 type PoolMessage =
-  | { type: "progress"; jobId: number; fraction: number }
-  | { type: "done"; jobId: number; result: unknown }
-  | { type: "error"; jobId: number; error: SerializedError };
+  | { type: "progress"; taskId: number; fraction: number }
+  | { type: "done"; taskId: number; result: unknown }
+  | { type: "error"; taskId: number; error: SerializedError };
 
-export type JobFailure = "timeout" | "cancelled" | "crashed" | "closed";
+export type TaskFailure = "timeout" | "cancelled" | "crashed" | "closed";
 
-/** A job that did not finish: over its time limit, cancelled, its worker died, or the pool closed. */
-export class RoutingJobError extends Error {
-  readonly reason: JobFailure;
-  constructor(reason: JobFailure, message: string) {
+/** A task that did not finish: over its time limit, cancelled, its worker died, or the pool closed. */
+export class TaskError extends Error {
+  readonly reason: TaskFailure;
+  constructor(reason: TaskFailure, message: string) {
     super(message);
-    this.name = "RoutingJobError";
+    this.name = "TaskError";
     this.reason = reason;
   }
 }
 
 export interface PoolOptions {
+  /** What the pool's workers do, as its errors name it ("routing worker crashed", "wave planning worker crashed"). */
+  kind: string;
   /** Worker threads; default 1 (the bench machine has 2 cores shared with the web server). */
   size?: number;
-  /** Per-job limit when run() gives none; default 30 s. */
+  /** Per-task limit when run() gives none; default 30 s. */
   defaultTimeoutMs?: number;
-  /** Worker entry, relative to process.cwd(); default lib/workers/routing-worker.ts. */
-  workerPath?: string;
-  /** Heap caps for each worker: a job that needs more fails as "crashed" instead of growing the process. */
+  /** Worker entry, relative to process.cwd(). */
+  workerPath: string;
+  /** Heap caps for each worker: a task that needs more fails as "crashed" instead of growing the process. */
   resourceLimits?: ResourceLimits;
 }
 
@@ -41,7 +43,7 @@ export interface RunOptions {
 
 interface Pending {
   id: number;
-  job: unknown;
+  task: unknown;
   opts: RunOptions;
   resolve: (v: unknown) => void;
   reject: (e: Error) => void;
@@ -54,8 +56,9 @@ interface Slot {
   onAbort: (() => void) | null;
 }
 
-/** A pool of worker threads running one kind of job; the entry decides what a job means. */
-export class WorkerPool<Job, Result> {
+/** A pool of worker threads running one kind of task; the entry decides what a task means. */
+export class WorkerPool<Task, Result> {
+  private readonly kind: string;
   private readonly size: number;
   private readonly timeoutMs: number;
   private readonly entry: string;
@@ -65,25 +68,26 @@ export class WorkerPool<Job, Result> {
   private nextId = 1;
   private closed = false;
 
-  constructor(options: PoolOptions = {}) {
+  constructor(options: PoolOptions) {
+    this.kind = options.kind;
     this.size = Math.max(1, options.size ?? 1);
     this.timeoutMs = options.defaultTimeoutMs ?? 30_000;
     // Resolved from the working directory (repo root under next start and vitest) so that no
     // bundler tries to follow the worker file.
-    this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath ?? "lib/workers/routing-worker.ts");
+    this.entry = path.resolve(/*turbopackIgnore: true*/ process.cwd(), options.workerPath);
     this.resourceLimits = options.resourceLimits;
   }
 
-  run(job: Job, opts: RunOptions = {}): Promise<Result> {
-    if (this.closed) return Promise.reject(new RoutingJobError("closed", "the routing pool is closed"));
-    if (opts.signal?.aborted) return Promise.reject(new RoutingJobError("cancelled", "job cancelled before it started"));
+  run(task: Task, opts: RunOptions = {}): Promise<Result> {
+    if (this.closed) return Promise.reject(new TaskError("closed", `the ${this.kind} pool is closed`));
+    if (opts.signal?.aborted) return Promise.reject(new TaskError("cancelled", "task cancelled before it started"));
     return new Promise<Result>((resolve, reject) => {
-      const p: Pending = { id: this.nextId++, job, opts, resolve: resolve as (v: unknown) => void, reject };
+      const p: Pending = { id: this.nextId++, task, opts, resolve: resolve as (v: unknown) => void, reject };
       const onQueuedAbort = () => {
         const i = this.queue.indexOf(p);
         if (i >= 0) {
           this.queue.splice(i, 1);
-          reject(new RoutingJobError("cancelled", `job ${p.id} cancelled while queued`));
+          reject(new TaskError("cancelled", `task ${p.id} cancelled while queued`));
         }
       };
       opts.signal?.addEventListener("abort", onQueuedAbort, { once: true });
@@ -92,17 +96,17 @@ export class WorkerPool<Job, Result> {
     });
   }
 
-  /** Jobs waiting for a free worker. */
+  /** Tasks waiting for a free worker. */
   get queued(): number {
     return this.queue.length;
   }
 
   async close(): Promise<void> {
     this.closed = true;
-    for (const p of this.queue.splice(0)) p.reject(new RoutingJobError("closed", "the routing pool was closed"));
+    for (const p of this.queue.splice(0)) p.reject(new TaskError("closed", `the ${this.kind} pool was closed`));
     await Promise.all(
       this.slots.splice(0).map((s) => {
-        if (s.running) this.finish(s, () => s.running?.reject(new RoutingJobError("closed", "the routing pool was closed")));
+        if (s.running) this.finish(s, () => s.running?.reject(new TaskError("closed", `the ${this.kind} pool was closed`)));
         return s.worker.terminate();
       }),
     );
@@ -117,8 +121,8 @@ export class WorkerPool<Job, Result> {
     worker.unref();
     const slot: Slot = { worker, running: null, timer: null, onAbort: null };
     worker.on("message", (m: PoolMessage) => this.onMessage(slot, m));
-    worker.on("error", (e) => this.fail(slot, "crashed", `routing worker crashed: ${e.message}`));
-    worker.on("exit", (code) => this.fail(slot, "crashed", `routing worker exited with code ${code}`));
+    worker.on("error", (e) => this.fail(slot, "crashed", `${this.kind} worker crashed: ${e.message}`));
+    worker.on("exit", (code) => this.fail(slot, "crashed", `${this.kind} worker exited with code ${code}`));
     this.slots.push(slot);
     return slot;
   }
@@ -136,17 +140,17 @@ export class WorkerPool<Job, Result> {
     slot.running = p;
     slot.worker.ref();
     const limit = p.opts.timeoutMs ?? this.timeoutMs;
-    slot.timer = setTimeout(() => this.fail(slot, "timeout", `job ${p.id} exceeded its ${limit} ms limit`), limit);
+    slot.timer = setTimeout(() => this.fail(slot, "timeout", `task ${p.id} exceeded its ${limit} ms limit`), limit);
     if (p.opts.signal) {
-      slot.onAbort = () => this.fail(slot, "cancelled", `job ${p.id} cancelled`);
+      slot.onAbort = () => this.fail(slot, "cancelled", `task ${p.id} cancelled`);
       p.opts.signal.addEventListener("abort", slot.onAbort, { once: true });
     }
-    slot.worker.postMessage({ jobId: p.id, job: p.job });
+    slot.worker.postMessage({ taskId: p.id, task: p.task });
   }
 
   private onMessage(slot: Slot, m: PoolMessage): void {
     const p = slot.running;
-    if (!p || m.jobId !== p.id) return;
+    if (!p || m.taskId !== p.id) return;
     if (m.type === "progress") p.opts.onProgress?.(m.fraction);
     else if (m.type === "done") this.finish(slot, () => p.resolve(m.result));
     else this.finish(slot, () => p.reject(deserializeError(m.error)));
@@ -164,8 +168,8 @@ export class WorkerPool<Job, Result> {
     if (!this.closed) this.pump();
   }
 
-  /** Ends the running job with an error and replaces the worker: a busy thread cannot be interrupted otherwise. */
-  private fail(slot: Slot, reason: JobFailure, message: string): void {
+  /** Ends the running task with an error and replaces the worker: a busy thread cannot be interrupted otherwise. */
+  private fail(slot: Slot, reason: TaskFailure, message: string): void {
     const i = this.slots.indexOf(slot);
     if (i < 0) return;
     this.slots.splice(i, 1);
@@ -176,14 +180,18 @@ export class WorkerPool<Job, Result> {
     if (slot.timer) clearTimeout(slot.timer);
     if (p && slot.onAbort) p.opts.signal?.removeEventListener("abort", slot.onAbort);
     slot.running = null;
-    p?.reject(new RoutingJobError(reason, message));
+    p?.reject(new TaskError(reason, message));
     if (!this.closed) this.pump();
   }
 }
 
-/** The routing engine's pool: sequencing and Floyd–Warshall jobs, typed by kind. */
-export class RoutingPool extends WorkerPool<RoutingJob, unknown> {
-  override run<J extends RoutingJob>(job: J, opts: RunOptions = {}): Promise<JobResult<J>> {
-    return super.run(job, opts) as Promise<JobResult<J>>;
+/** The routing engine's pool: sequencing and Floyd–Warshall tasks, typed by kind. */
+export class RoutingPool extends WorkerPool<RoutingTask, unknown> {
+  constructor(options: Partial<PoolOptions> = {}) {
+    super({ kind: "routing", workerPath: "lib/workers/routing-worker.ts", ...options });
+  }
+
+  override run<T extends RoutingTask>(task: T, opts: RunOptions = {}): Promise<TaskResult<T>> {
+    return super.run(task, opts) as Promise<TaskResult<T>>;
   }
 }

@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from "vitest";
 import { buildGraph, floydWarshall, generateWarehouse, sequenceStops, UNREACHABLE, UnreachableStopError } from "../../lib/routing";
-import { RoutingJobError, RoutingPool } from "../../lib/workers/worker-pool";
+import { TaskError as RoutingJobError, RoutingPool } from "../../lib/workers/worker-pool";
 import { randomInstance } from "./helpers/instances";
 
 const pool = new RoutingPool({ size: 1, defaultTimeoutMs: 30_000 });

@@ -1,7 +1,4 @@
 import { z } from "zod";
-import { HttpError } from "./errors";
-
-type Params = Record<string, string | string[] | undefined>;
 
 const noSuch = (what: string) => `No such ${what}. Check the link or go back to the list.`;
 
@@ -24,18 +21,6 @@ export const idParam = (what: string) =>
     }
     return id;
   });
-
-/** A positive whole number from the URL, or a 404: a mangled link points at nothing. */
-export function intParam(params: Params, name: string, what: string): number {
-  const id = parseId(params[name]);
-  if (id === null) throw new HttpError(404, noSuch(what));
-  return id;
-}
-
-export function stringParam(params: Params, name: string): string {
-  const raw = params[name];
-  return typeof raw === "string" ? raw : "";
-}
 
 /** A route param as text ("" when absent), for `route({ params })`. */
 export const textParam = () => z.unknown().optional().transform((raw) => (typeof raw === "string" ? raw : ""));

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { idParam, intParam, parseId, textParam } from "@/lib/http/params";
+import { idParam, parseId, textParam } from "@/lib/http/params";
 import { HttpError } from "@/lib/http/errors";
 import { wentThrough } from "@/lib/http/repeat";
 
@@ -27,20 +27,6 @@ describe("the one id rule for URLs", () => {
     const bad = params.safeParse({ id: "12", number: "x" });
     expect(bad.success).toBe(false);
     expect(bad.error?.issues[0]?.message).toBe("No such batch. Check the link or go back to the list.");
-  });
-
-  it("intParam answers the same rule with an HttpError 404", () => {
-    expect(intParam({ id: "5" }, "id", "wave")).toBe(5);
-    const e = (() => {
-      try {
-        intParam({ id: "0" }, "id", "wave");
-      } catch (err) {
-        return err;
-      }
-    })();
-    expect(e).toBeInstanceOf(HttpError);
-    expect((e as HttpError).status).toBe(404);
-    expect((e as HttpError).message).toBe("No such wave. Check the link or go back to the list.");
   });
 
   it("text params are the string, or empty", () => {

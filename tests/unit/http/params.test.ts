@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
 import { idParam, parseId, textParam } from "@/lib/http/params";
-import { HttpError } from "@/lib/http/errors";
 import { wentThrough } from "@/lib/http/repeat";
 
 describe("the one id rule for URLs", () => {

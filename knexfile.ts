@@ -4,7 +4,8 @@ import type { Knex } from "knex";
 // the app, the migrations and the seeds all read the same variables.
 function required(name: string): string {
   const value = process.env[name];
-  if (!value) throw new Error(`${name} is not set: run the app through "npm start" or "npm test", which set up the database`);
+  if (!value)
+    throw new Error(`${name} is not set: run the app through "npm start" or "npm test", which set up the database`);
   return value;
 }
 

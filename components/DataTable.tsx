@@ -55,7 +55,8 @@ export function DataTable<T extends RowData>({ data, columns, searchLabel, pageS
     getRowId: (row) => rowId(row),
     globalFilterFn: "includesString",
     state: { globalFilter: query },
-    onGlobalFilterChange: (updater) => setQuery((q) => String(typeof updater === "function" ? updater(q) : updater ?? "")),
+    onGlobalFilterChange: (updater) =>
+      setQuery((q) => String(typeof updater === "function" ? updater(q) : (updater ?? ""))),
     initialState: { pagination: { pageIndex: 0, pageSize } },
   });
   const rows = table.getRowModel().rows;
@@ -78,9 +79,18 @@ export function DataTable<T extends RowData>({ data, columns, searchLabel, pageS
                   const sorted = header.column.getIsSorted();
                   const canSort = header.column.getCanSort();
                   return (
-                    <th key={header.id} scope="col" aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"} className="px-3 py-2 font-semibold">
+                    <th
+                      key={header.id}
+                      scope="col"
+                      aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none"}
+                      className="px-3 py-2 font-semibold"
+                    >
                       {canSort ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="flex min-h-tap items-center gap-1 font-semibold">
+                        <button
+                          type="button"
+                          onClick={header.column.getToggleSortingHandler()}
+                          className="flex min-h-tap items-center gap-1 font-semibold"
+                        >
                           <FlexRender header={header} />
                           <span aria-hidden="true">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
                         </button>
@@ -117,7 +127,12 @@ export function DataTable<T extends RowData>({ data, columns, searchLabel, pageS
         <span>
           {total} {total === 1 ? "row" : "rows"} · page {pageIndex + 1} of {pageCount}
         </span>
-        <button type="button" className="btn-quiet" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+        <button
+          type="button"
+          className="btn-quiet"
+          onClick={() => table.previousPage()}
+          disabled={!table.getCanPreviousPage()}
+        >
           Previous page
         </button>
         <button type="button" className="btn-quiet" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>

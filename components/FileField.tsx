@@ -1,7 +1,19 @@
 "use client";
 
 /** A file picker that hands over one file and clears itself, so picking the same file again works. */
-export function FileField({ label, accept, disabled, onFile, hint }: { label: string; accept: string; disabled?: boolean; onFile: (f: File) => void; hint?: string }) {
+export function FileField({
+  label,
+  accept,
+  disabled,
+  onFile,
+  hint,
+}: {
+  label: string;
+  accept: string;
+  disabled?: boolean;
+  onFile: (f: File) => void;
+  hint?: string;
+}) {
   return (
     <label className="block">
       <span className="label">{label}</span>

@@ -14,12 +14,23 @@ export function SignInForm({ next }: { next?: string }) {
   return (
     <form onSubmit={onSubmit} className="space-y-5" noValidate>
       <div>
-        <label htmlFor="email" className="label">E-mail address</label>
+        <label htmlFor="email" className="label">
+          E-mail address
+        </label>
         <input id="email" name="email" type="email" autoComplete="username" required className="field" />
       </div>
       <div>
-        <label htmlFor="password" className="label">Password</label>
-        <input id="password" name="password" type="password" autoComplete="current-password" required className="field" />
+        <label htmlFor="password" className="label">
+          Password
+        </label>
+        <input
+          id="password"
+          name="password"
+          type="password"
+          autoComplete="current-password"
+          required
+          className="field"
+        />
       </div>
       <FailureNotice failure={failure} />
       <button type="submit" className="btn-primary w-full" disabled={busy}>

@@ -13,10 +13,18 @@ export function SignOutButton() {
   }
   return (
     <>
-      <button type="button" onClick={signOut} className="btn min-h-tap border-paper bg-transparent text-paper hover:bg-ink-soft">
+      <button
+        type="button"
+        onClick={signOut}
+        className="btn min-h-tap border-paper bg-transparent text-paper hover:bg-ink-soft"
+      >
         Sign out
       </button>
-      {error && <span role="alert" className="text-sm">{error}</span>}
+      {error && (
+        <span role="alert" className="text-sm">
+          {error}
+        </span>
+      )}
     </>
   );
 }

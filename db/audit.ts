@@ -32,7 +32,13 @@ export type AuditEvent =
   | "pick.confirmed"
   | "pick.short";
 
-export type AuditEntry = { event: AuditEvent; actorUserId?: string | null; subject?: string | null; ip?: string | null; detail?: unknown };
+export type AuditEntry = {
+  event: AuditEvent;
+  actorUserId?: string | null;
+  subject?: string | null;
+  ip?: string | null;
+  detail?: unknown;
+};
 
 /** Writes one audit row; inside `trx` when given, so that it commits (or not) with the change it records. */
 export async function audit(entry: AuditEntry, trx?: Knex.Transaction): Promise<void> {
@@ -45,18 +51,34 @@ export async function audit(entry: AuditEntry, trx?: Knex.Transaction): Promise<
   });
 }
 
-export type AuditDTO = { id: number; at: string; event: string; actorUserId: string | null; subject: string | null; ip: string | null };
+export type AuditDTO = {
+  id: number;
+  at: string;
+  event: string;
+  actorUserId: string | null;
+  subject: string | null;
+  ip: string | null;
+};
 
 export async function latestAudit(limit: number, event?: AuditEvent): Promise<AuditDTO[]> {
   const q = db()("audit_log").orderBy("id", "desc").limit(limit);
   if (event) q.where({ event });
   const rows = await q;
-  return rows.map((r: { id: number; at: Date; event: string; actor_user_id: string | null; subject: string | null; ip: string | null }) => ({
-    id: Number(r.id),
-    at: r.at.toISOString(),
-    event: r.event,
-    actorUserId: r.actor_user_id,
-    subject: r.subject,
-    ip: r.ip,
-  }));
+  return rows.map(
+    (r: {
+      id: number;
+      at: Date;
+      event: string;
+      actor_user_id: string | null;
+      subject: string | null;
+      ip: string | null;
+    }) => ({
+      id: Number(r.id),
+      at: r.at.toISOString(),
+      event: r.event,
+      actorUserId: r.actor_user_id,
+      subject: r.subject,
+      ip: r.ip,
+    }),
+  );
 }

@@ -16,13 +16,19 @@ export async function recordPrinted(waveId: number, numbers: number[]): Promise<
   return db().transaction(async (trx) => {
     // The wave row's lock keeps a re-plan from renumbering the batches between the check and the count.
     await trx("waves").where({ id: waveId }).forUpdate().first("id");
-    const have = new Set<number>(await trx("batches").where({ wave_id: waveId }).whereIn("number", wanted).pluck("number"));
+    const have = new Set<number>(
+      await trx("batches").where({ wave_id: waveId }).whereIn("number", wanted).pluck("number"),
+    );
     const unknown = wanted.filter((n) => !have.has(n));
     if (unknown.length) {
       const count = await trx("batches").where({ wave_id: waveId }).first(trx.raw("count(*) as n"));
       return { unknown, batchCount: Number(count?.n ?? 0) };
     }
-    const rows = await trx("wave_batch_prints").where({ wave_id: waveId }).whereIn("number", wanted).forUpdate().select("number", "print_count");
+    const rows = await trx("wave_batch_prints")
+      .where({ wave_id: waveId })
+      .whereIn("number", wanted)
+      .forUpdate()
+      .select("number", "print_count");
     await trx("wave_batch_prints")
       .insert(wanted.map((number) => ({ wave_id: waveId, number, print_count: 1, last_printed_at: trx.fn.now(3) })))
       .onConflict(["wave_id", "number"])

@@ -37,12 +37,35 @@ export async function storePlan(
         method: b.method,
       });
       const batchId = Number(id);
-      if (b.stops.length) await insertInChunks(trx, "batch_stops", b.stops.map((s, seq) => ({ batch_id: batchId, seq: seq + 1, access_point: s.accessPoint, x: s.x, y: s.y })));
-      if (b.lines.length) await insertInChunks(trx, "batch_lines", b.lines.map((l) => ({ order_line_id: l.orderLineId, batch_id: batchId, stop_seq: l.stopSeq, tote: l.tote, bin_code: l.binCode })));
+      if (b.stops.length)
+        await insertInChunks(
+          trx,
+          "batch_stops",
+          b.stops.map((s, seq) => ({ batch_id: batchId, seq: seq + 1, access_point: s.accessPoint, x: s.x, y: s.y })),
+        );
+      if (b.lines.length)
+        await insertInChunks(
+          trx,
+          "batch_lines",
+          b.lines.map((l) => ({
+            order_line_id: l.orderLineId,
+            batch_id: batchId,
+            stop_seq: l.stopSeq,
+            tote: l.tote,
+            bin_code: l.binCode,
+          })),
+        );
     }
     await trx("waves")
       .where({ id: waveId })
-      .update({ status: "planned", version: expectedVersion + 1, distance_mm: totals.distanceMm, baseline_mm: totals.baselineMm, unbatchable: JSON.stringify(unbatchable), planned_at: trx.fn.now(3) });
+      .update({
+        status: "planned",
+        version: expectedVersion + 1,
+        distance_mm: totals.distanceMm,
+        baseline_mm: totals.baselineMm,
+        unbatchable: JSON.stringify(unbatchable),
+        planned_at: trx.fn.now(3),
+      });
     await beforeCommit?.(trx);
     return true;
   });
@@ -56,8 +79,12 @@ export async function listBatches(waveId: number, number?: number): Promise<Batc
     .select(
       "b.*",
       db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"),
-      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'picked') as picked_count"),
-      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_count"),
+      db().raw(
+        "(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'picked') as picked_count",
+      ),
+      db().raw(
+        "(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_count",
+      ),
     )
     .orderBy("b.number");
   return rows.map((r: Record<string, unknown>) => ({
@@ -88,7 +115,17 @@ export async function getBatch(waveId: number, number: number): Promise<BatchDet
       .join("orders as o", "o.id", "l.order_id")
       .join("items as i", "i.id", "l.item_id")
       .where("bl.batch_id", summary.id)
-      .select("bl.stop_seq", "bl.tote", "bl.bin_code", "o.order_number", "i.sku", "i.description", "i.uom", "i.unit_weight_g", "l.quantity")
+      .select(
+        "bl.stop_seq",
+        "bl.tote",
+        "bl.bin_code",
+        "o.order_number",
+        "i.sku",
+        "i.description",
+        "i.uom",
+        "i.unit_weight_g",
+        "l.quantity",
+      )
       .orderBy([{ column: "bl.stop_seq" }, { column: "bl.tote" }]),
   ]);
   return {
@@ -100,17 +137,27 @@ export async function getBatch(waveId: number, number: number): Promise<BatchDet
       accessPoint: s.access_point,
       lines: lines
         .filter((l: { stop_seq: number }) => l.stop_seq === s.seq)
-        .map((l: { order_number: string; tote: number; sku: string; description: string; quantity: number; uom: string; bin_code: string; unit_weight_g: number }) => ({
-          orderNumber: l.order_number,
-          tote: l.tote,
-          sku: l.sku,
-          description: l.description,
-          quantity: l.quantity,
-          uom: l.uom,
-          binCode: l.bin_code,
-          unitWeightG: l.unit_weight_g,
-        })),
+        .map(
+          (l: {
+            order_number: string;
+            tote: number;
+            sku: string;
+            description: string;
+            quantity: number;
+            uom: string;
+            bin_code: string;
+            unit_weight_g: number;
+          }) => ({
+            orderNumber: l.order_number,
+            tote: l.tote,
+            sku: l.sku,
+            description: l.description,
+            quantity: l.quantity,
+            uom: l.uom,
+            binCode: l.bin_code,
+            unitWeightG: l.unit_weight_g,
+          }),
+        ),
     })),
   };
 }
-

@@ -4,9 +4,21 @@ import { db } from "./knex";
 import { isDuplicateKey } from "./rows";
 import type { ImportKind } from "@/lib/imports/fields";
 
-export type ImportRecordDTO = { id: number; filename: string; rowCount: number; importedAt: string; importedBy: string | null };
+export type ImportRecordDTO = {
+  id: number;
+  filename: string;
+  rowCount: number;
+  importedAt: string;
+  importedBy: string | null;
+};
 
-const toDTO = (r: { id: number; filename: string; row_count: number; imported_at: Date; imported_by: string | null }): ImportRecordDTO => ({
+const toDTO = (r: {
+  id: number;
+  filename: string;
+  row_count: number;
+  imported_at: Date;
+  imported_by: string | null;
+}): ImportRecordDTO => ({
   id: r.id,
   filename: r.filename,
   rowCount: r.row_count,
@@ -15,7 +27,12 @@ const toDTO = (r: { id: number; filename: string; row_count: number; imported_at
 });
 
 /** The earlier import of the same bytes at this site, if any. */
-export async function findImport(siteId: number, kind: ImportKind, sha256: string, trx?: Knex): Promise<ImportRecordDTO | null> {
+export async function findImport(
+  siteId: number,
+  kind: ImportKind,
+  sha256: string,
+  trx?: Knex,
+): Promise<ImportRecordDTO | null> {
   const r = await (trx ?? db())("import_files").where({ site_id: siteId, kind, sha256 }).first();
   return r ? toDTO(r) : null;
 }
@@ -27,10 +44,23 @@ export class DuplicateImportError extends Error {}
  * import of the same file fail here, inside its transaction, so nothing of it is written. An item
  * master file may be applied again (it only updates the same SKUs): its record is refreshed.
  */
-export async function recordImport(trx: Knex.Transaction, r: { siteId: number; kind: ImportKind; sha256: string; filename: string; rowCount: number; userId: string | null }): Promise<number> {
-  const row = { site_id: r.siteId, kind: r.kind, sha256: r.sha256, filename: r.filename, row_count: r.rowCount, imported_by: r.userId };
+export async function recordImport(
+  trx: Knex.Transaction,
+  r: { siteId: number; kind: ImportKind; sha256: string; filename: string; rowCount: number; userId: string | null },
+): Promise<number> {
+  const row = {
+    site_id: r.siteId,
+    kind: r.kind,
+    sha256: r.sha256,
+    filename: r.filename,
+    row_count: r.rowCount,
+    imported_by: r.userId,
+  };
   if (r.kind === "items") {
-    await trx("import_files").insert(row).onConflict(["site_id", "kind", "sha256"]).merge({ filename: r.filename, row_count: r.rowCount, imported_by: r.userId, imported_at: trx.fn.now(3) });
+    await trx("import_files")
+      .insert(row)
+      .onConflict(["site_id", "kind", "sha256"])
+      .merge({ filename: r.filename, row_count: r.rowCount, imported_by: r.userId, imported_at: trx.fn.now(3) });
     const got = await trx("import_files").where({ site_id: r.siteId, kind: r.kind, sha256: r.sha256 }).first("id");
     return got.id as number;
   }

@@ -8,8 +8,15 @@ import type { ItemDTO } from "@/lib/contracts/items";
 const CHUNK = 500;
 
 export async function listItems(siteId: number): Promise<ItemDTO[]> {
-  const items = await db()("items").where({ site_id: siteId }).orderBy("sku").select("id", "sku", "description", "uom", "unit_weight_g");
-  const bins = await db()("item_bins as b").join("items as i", "i.id", "b.item_id").where("i.site_id", siteId).orderBy(["b.item_id", "b.rank"]).select("b.item_id", "b.bin_code");
+  const items = await db()("items")
+    .where({ site_id: siteId })
+    .orderBy("sku")
+    .select("id", "sku", "description", "uom", "unit_weight_g");
+  const bins = await db()("item_bins as b")
+    .join("items as i", "i.id", "b.item_id")
+    .where("i.site_id", siteId)
+    .orderBy(["b.item_id", "b.rank"])
+    .select("b.item_id", "b.bin_code");
   const byItem = new Map<number, string[]>();
   for (const b of bins as { item_id: number; bin_code: string }[]) {
     const list = byItem.get(b.item_id) ?? [];
@@ -39,19 +46,42 @@ async function existingIds(q: Knex, siteId: number, skus: readonly string[]): Pr
  * Inserts new SKUs and updates existing ones, replacing their bins, inside the caller's transaction.
  * Existing SKUs keep their id, so order lines that point at them stay valid.
  */
-export async function upsertItems(trx: Knex.Transaction, siteId: number, items: readonly ItemRecord[]): Promise<{ inserted: number; updated: number }> {
-  const before = await existingIds(trx, siteId, items.map((i) => i.sku));
+export async function upsertItems(
+  trx: Knex.Transaction,
+  siteId: number,
+  items: readonly ItemRecord[],
+): Promise<{ inserted: number; updated: number }> {
+  const before = await existingIds(
+    trx,
+    siteId,
+    items.map((i) => i.sku),
+  );
   const now = new Date();
   for (const part of chunks(items, CHUNK)) {
     await trx("items")
-      .insert(part.map((i) => ({ site_id: siteId, sku: i.sku, description: i.description, uom: i.uom, unit_weight_g: i.unitWeightG, updated_at: now })))
+      .insert(
+        part.map((i) => ({
+          site_id: siteId,
+          sku: i.sku,
+          description: i.description,
+          uom: i.uom,
+          unit_weight_g: i.unitWeightG,
+          updated_at: now,
+        })),
+      )
       .onConflict(["site_id", "sku"])
       .merge(["description", "uom", "unit_weight_g", "updated_at"]);
   }
-  const ids = await existingIds(trx, siteId, items.map((i) => i.sku));
+  const ids = await existingIds(
+    trx,
+    siteId,
+    items.map((i) => i.sku),
+  );
   const itemIds = [...ids.values()];
   for (const part of chunks(itemIds, CHUNK)) await trx("item_bins").whereIn("item_id", part).del();
-  const binRows = items.flatMap((i) => i.bins.map((code, k) => ({ item_id: ids.get(i.sku.toUpperCase())!, bin_code: code, rank: k + 1 })));
+  const binRows = items.flatMap((i) =>
+    i.bins.map((code, k) => ({ item_id: ids.get(i.sku.toUpperCase())!, bin_code: code, rank: k + 1 })),
+  );
   for (const part of chunks(binRows, CHUNK)) await trx("item_bins").insert(part);
   const updated = items.filter((i) => before.has(i.sku.toUpperCase())).length;
   return { inserted: items.length - updated, updated };
@@ -61,7 +91,11 @@ export async function upsertItems(trx: Knex.Transaction, siteId: number, items: 
  * The site's items among these SKUs, with how many of their bins exist in the layout version
  * (keys upper-cased: SKUs compare ignoring case).
  */
-export async function itemsWithBinsInVersion(siteId: number, layoutVersionId: number, skus: readonly string[]): Promise<Map<string, { itemId: number; binsInVersion: number }>> {
+export async function itemsWithBinsInVersion(
+  siteId: number,
+  layoutVersionId: number,
+  skus: readonly string[],
+): Promise<Map<string, { itemId: number; binsInVersion: number }>> {
   const out = new Map<string, { itemId: number; binsInVersion: number }>();
   for (const part of chunks(skus, CHUNK)) {
     const rows = await db()("items as i")
@@ -73,7 +107,8 @@ export async function itemsWithBinsInVersion(siteId: number, layoutVersionId: nu
       .whereIn("i.sku", part)
       .groupBy("i.id", "i.sku")
       .select("i.id", "i.sku", db().raw("count(l.code) as n"));
-    for (const r of rows as { id: number; sku: string; n: number | string }[]) out.set(r.sku.toUpperCase(), { itemId: r.id, binsInVersion: Number(r.n) });
+    for (const r of rows as { id: number; sku: string; n: number | string }[])
+      out.set(r.sku.toUpperCase(), { itemId: r.id, binsInVersion: Number(r.n) });
   }
   return out;
 }

@@ -4,7 +4,19 @@ import type { Knex } from "knex";
 import { db } from "./knex";
 import type { JobDTO, JobStatus } from "@/lib/contracts/jobs";
 
-type JobRow = { id: string; site_id: number; kind: string; status: JobStatus; progress: number; message: string; result: string | null; input: string | null; created_by: string | null; created_at: Date; updated_at: Date };
+type JobRow = {
+  id: string;
+  site_id: number;
+  kind: string;
+  status: JobStatus;
+  progress: number;
+  message: string;
+  result: string | null;
+  input: string | null;
+  created_by: string | null;
+  created_at: Date;
+  updated_at: Date;
+};
 
 const json = (v: unknown): unknown => (typeof v === "string" ? JSON.parse(v) : v);
 
@@ -25,7 +37,14 @@ const toDTO = (r: JobRow): JobDTO => ({
  */
 export type JobStart = { job: JobDTO; created: boolean; startedBy: { id: string; name: string } | null };
 
-export async function createOrJoinJob(siteId: number, kind: string, key: string, userId: string | null, message: string, input: unknown = null): Promise<JobStart> {
+export async function createOrJoinJob(
+  siteId: number,
+  kind: string,
+  key: string,
+  userId: string | null,
+  message: string,
+  input: unknown = null,
+): Promise<JobStart> {
   return db().transaction(async (trx) => {
     await trx("sites").where({ id: siteId }).forUpdate().first("id");
     const existing = (await trx("jobs as j")
@@ -33,13 +52,25 @@ export async function createOrJoinJob(siteId: number, kind: string, key: string,
       .where({ "j.job_key": key })
       .whereIn("j.status", ["queued", "running", "done"])
       .orderBy("j.created_at", "desc")
-      .first("j.*", "u.display_name as started_by_name")) as (JobRow & { created_by: string | null; started_by_name: string | null }) | undefined;
+      .first("j.*", "u.display_name as started_by_name")) as
+      (JobRow & { created_by: string | null; started_by_name: string | null }) | undefined;
     if (existing) {
-      const startedBy = existing.created_by ? { id: existing.created_by, name: existing.started_by_name ?? "someone" } : null;
+      const startedBy = existing.created_by
+        ? { id: existing.created_by, name: existing.started_by_name ?? "someone" }
+        : null;
       return { job: toDTO(existing), created: false, startedBy };
     }
     const id = randomBytes(16).toString("hex");
-    await trx("jobs").insert({ id, site_id: siteId, kind, job_key: key, status: "queued", message, created_by: userId, input: JSON.stringify(input) });
+    await trx("jobs").insert({
+      id,
+      site_id: siteId,
+      kind,
+      job_key: key,
+      status: "queued",
+      message,
+      created_by: userId,
+      input: JSON.stringify(input),
+    });
     const row = (await trx("jobs").where({ id }).first()) as JobRow;
     return { job: toDTO(row), created: true, startedBy: null };
   });
@@ -51,7 +82,11 @@ export async function createOrJoinJob(siteId: number, kind: string, key: string,
  * loses the race to the finish can undo how it ended. The job's own finish passes the transaction
  * that stores its result: result and "done" then commit together, or not at all if a cancel came first.
  */
-export async function updateJob(id: string, patch: { status?: JobStatus; progress?: number; message?: string; result?: unknown }, trx?: Knex.Transaction): Promise<boolean> {
+export async function updateJob(
+  id: string,
+  patch: { status?: JobStatus; progress?: number; message?: string; result?: unknown },
+  trx?: Knex.Transaction,
+): Promise<boolean> {
   const q = trx ?? db();
   const row: Record<string, unknown> = { updated_at: q.fn.now(3) };
   if (patch.status) row.status = patch.status;
@@ -73,7 +108,9 @@ export async function claimJob(id: string, startMessage: (kind: string) => strin
   const queued = (await db()("jobs").where({ id, status: "queued" }).first()) as JobRow | undefined;
   if (!queued) return null;
   const message = startMessage(queued.kind).slice(0, 500);
-  const changed = await db()("jobs").where({ id, status: "queued" }).update({ status: "running", progress: 0, message, updated_at: db().fn.now(3) });
+  const changed = await db()("jobs")
+    .where({ id, status: "queued" })
+    .update({ status: "running", progress: 0, message, updated_at: db().fn.now(3) });
   if (changed === 0) return null;
   const job = toDTO({ ...queued, status: "running", progress: 0, message });
   return { job, siteId: queued.site_id, userId: queued.created_by, input: json(queued.input) };
@@ -88,5 +125,9 @@ export async function getJob(siteId: number, id: string): Promise<JobDTO | null>
 export async function failOrphanedJobs(): Promise<number> {
   return db()("jobs")
     .whereIn("status", ["queued", "running"])
-    .update({ status: "failed", message: "The server restarted while this was running. Start it again.", updated_at: db().fn.now(3) });
+    .update({
+      status: "failed",
+      message: "The server restarted while this was running. Start it again.",
+      updated_at: db().fn.now(3),
+    });
 }

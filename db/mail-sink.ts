@@ -64,7 +64,9 @@ export async function listSinkMessages(limit: number): Promise<SinkMessage[]> {
 
 /** Messages whose envelope went to `address`, newest first (what a test polls for). */
 export async function sinkMessagesTo(address: string): Promise<SinkMessage[]> {
-  const rows = (await db()("mail_sink_messages").where("envelope_to", "like", `%${address.replace(/[%_\\]/g, "\\$&")}%`).orderBy("id", "desc")) as Row[];
+  const rows = (await db()("mail_sink_messages")
+    .where("envelope_to", "like", `%${address.replace(/[%_\\]/g, "\\$&")}%`)
+    .orderBy("id", "desc")) as Row[];
   return rows.filter((r) => r.envelope_to.split(",").includes(address)).map(toDTO);
 }
 

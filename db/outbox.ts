@@ -78,7 +78,12 @@ export async function enqueueMail(trx: Knex.Transaction, msg: OutgoingMail): Pro
 
 /** Ids of rows due at `now`, oldest first; `ids` narrows the search (tests drive one message). */
 export async function dueMailIds(now: Date, limit: number, ids?: number[]): Promise<number[]> {
-  const q = db()("outbox").select("id").where({ status: "pending" }).andWhere("next_attempt_at", "<=", now).orderBy("next_attempt_at").limit(limit);
+  const q = db()("outbox")
+    .select("id")
+    .where({ status: "pending" })
+    .andWhere("next_attempt_at", "<=", now)
+    .orderBy("next_attempt_at")
+    .limit(limit);
   if (ids) q.whereIn("id", ids);
   return (await q).map((r: { id: number }) => r.id);
 }
@@ -101,10 +106,22 @@ export async function claimMail(id: number, now: Date): Promise<OutboxRow | null
 export async function markSent(id: number, now: Date): Promise<void> {
   await db()("outbox")
     .where({ id, status: "sending" })
-    .update({ status: "sent", sent_at: now, attempts: db().raw("attempts + 1"), last_error: null, text_body: "", html_body: null });
+    .update({
+      status: "sent",
+      sent_at: now,
+      attempts: db().raw("attempts + 1"),
+      last_error: null,
+      text_body: "",
+      html_body: null,
+    });
 }
 
-export async function markAttemptFailed(id: number, attempts: number, error: string, next: { status: "pending"; nextAttemptAt: Date } | { status: "failed" }): Promise<void> {
+export async function markAttemptFailed(
+  id: number,
+  attempts: number,
+  error: string,
+  next: { status: "pending"; nextAttemptAt: Date } | { status: "failed" },
+): Promise<void> {
   await db()("outbox")
     .where({ id, status: "sending" })
     .update({
@@ -120,7 +137,10 @@ export async function markAttemptFailed(id: number, attempts: number, error: str
  * pending: the rare cost is a second copy of a message whose send was cut off, never a lost one.
  */
 export async function releaseStaleClaims(olderThan: Date): Promise<number> {
-  return db()("outbox").where({ status: "sending" }).andWhere("claimed_at", "<", olderThan).update({ status: "pending", claimed_at: null });
+  return db()("outbox")
+    .where({ status: "sending" })
+    .andWhere("claimed_at", "<", olderThan)
+    .update({ status: "pending", claimed_at: null });
 }
 
 export async function getOutboxMail(id: number): Promise<OutboxRow | null> {

@@ -21,7 +21,20 @@ export async function getPickBatch(siteId: number, batchId: number): Promise<Pic
     .join("waves as w", "w.id", "b.wave_id")
     .leftJoin("users as u", "u.id", "b.assigned_to")
     .where({ "b.id": batchId, "w.site_id": siteId })
-    .first("b.id", "b.wave_id", "w.name as wave_name", "b.number", "b.status", "b.version", "b.assigned_to", "u.display_name as assigned_name", "w.layout_version_id", "w.settings", "b.started_at", "b.finished_at");
+    .first(
+      "b.id",
+      "b.wave_id",
+      "w.name as wave_name",
+      "b.number",
+      "b.status",
+      "b.version",
+      "b.assigned_to",
+      "u.display_name as assigned_name",
+      "w.layout_version_id",
+      "w.settings",
+      "b.started_at",
+      "b.finished_at",
+    );
   if (!r) return null;
   const settings = json<{ depotId: string; dropoffId: string }>(r.settings);
   return {
@@ -48,7 +61,21 @@ export async function pickLines(batchId: number): Promise<PickLineState[]> {
     .join("orders as o", "o.id", "l.order_id")
     .join("items as i", "i.id", "l.item_id")
     .where("bl.batch_id", batchId)
-    .select("bl.order_line_id", "bl.stop_seq", "bl.tote", "bl.bin_code", "bl.pick_status", "bl.picked_qty", "bl.short_reason", "o.order_number", "i.sku", "i.description", "i.uom", "i.unit_weight_g", "l.quantity")
+    .select(
+      "bl.order_line_id",
+      "bl.stop_seq",
+      "bl.tote",
+      "bl.bin_code",
+      "bl.pick_status",
+      "bl.picked_qty",
+      "bl.short_reason",
+      "o.order_number",
+      "i.sku",
+      "i.description",
+      "i.uom",
+      "i.unit_weight_g",
+      "l.quantity",
+    )
     .orderBy([{ column: "bl.stop_seq" }, { column: "bl.tote" }, { column: "bl.order_line_id" }]);
   return rows.map((r: Record<string, unknown>) => ({
     orderLineId: Number(r.order_line_id),
@@ -81,7 +108,9 @@ function batchesWithCounts(siteId: number) {
       db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"),
       db().raw("(select count(*) from batch_lines l where l.batch_id = b.id) as line_count"),
       db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'open') as open_lines"),
-      db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_lines"),
+      db().raw(
+        "(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_lines",
+      ),
     );
 }
 
@@ -115,7 +144,11 @@ const OPEN_STATUSES = ["released", "picking"] as const;
  * (given back half-picked, or begun by an admin) comes first, so started carts are finished first.
  */
 export async function nextUnassignedBatch(siteId: number): Promise<MyBatchDTO | null> {
-  const r = await batchesWithCounts(siteId).whereNull("b.assigned_to").whereIn("b.status", OPEN_STATUSES).orderByRaw("b.status = 'picking' desc, w.released_at, b.wave_id, b.number").first();
+  const r = await batchesWithCounts(siteId)
+    .whereNull("b.assigned_to")
+    .whereIn("b.status", OPEN_STATUSES)
+    .orderByRaw("b.status = 'picking' desc, w.released_at, b.wave_id, b.number")
+    .first();
   return r ? toMyBatch(r) : null;
 }
 
@@ -126,10 +159,20 @@ export type TakeOutcome = "taken" | "lost" | "cap";
  * wins. The taker's user row is locked first, so parallel takes by one picker are counted one after
  * the other and never pass the site's cap together.
  */
-export async function takeBatch(siteId: number, batchId: number, version: number, userId: string, cap: number): Promise<TakeOutcome> {
+export async function takeBatch(
+  siteId: number,
+  batchId: number,
+  version: number,
+  userId: string,
+  cap: number,
+): Promise<TakeOutcome> {
   return db().transaction(async (trx) => {
     await trx("users").where({ id: userId }).forUpdate().first("id");
-    const held = await trx("batches").where({ assigned_to: userId }).whereIn("status", OPEN_STATUSES).count({ n: "*" }).first();
+    const held = await trx("batches")
+      .where({ assigned_to: userId })
+      .whereIn("status", OPEN_STATUSES)
+      .count({ n: "*" })
+      .first();
     if (Number(held?.n ?? 0) >= cap) return "cap" as const;
     const n = await trx("batches")
       .where({ id: batchId, version })
@@ -146,7 +189,13 @@ export async function takeBatch(siteId: number, batchId: number, version: number
  * only their own; `anyHolder` (an admin) may give back anyone's. The version moves on, so confirmations
  * still queued on the old holder's handheld are refused instead of landing on the next holder's batch.
  */
-export async function giveBackBatch(siteId: number, batchId: number, version: number, userId: string, anyHolder: boolean): Promise<boolean> {
+export async function giveBackBatch(
+  siteId: number,
+  batchId: number,
+  version: number,
+  userId: string,
+  anyHolder: boolean,
+): Promise<boolean> {
   const q = db()("batches")
     .where({ id: batchId, version })
     .whereIn("status", OPEN_STATUSES)
@@ -158,7 +207,12 @@ export async function giveBackBatch(siteId: number, batchId: number, version: nu
 
 /** Every unfinished batch a user holds goes back to the pool (when they are disabled or stop being a picker). */
 export async function releaseBatchesOf(userId: string): Promise<number> {
-  return Number(await db()("batches").where({ assigned_to: userId }).whereIn("status", OPEN_STATUSES).update({ assigned_to: null, version: db().raw("version + 1") }));
+  return Number(
+    await db()("batches")
+      .where({ assigned_to: userId })
+      .whereIn("status", OPEN_STATUSES)
+      .update({ assigned_to: null, version: db().raw("version + 1") }),
+  );
 }
 
 export type StoredAnswer = { status: number; body: Record<string, unknown> };
@@ -191,13 +245,19 @@ export type ConfirmOutcome =
  * on different batches queued behind each other). The line changes only while it is still open, and
  * the audit row of a pick commits with it.
  */
-export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRowForCheck | null, batch: { status: PickBatchStatus; version: number }) => Decision, audited: { ip: string | null }): Promise<ConfirmOutcome> {
+export async function confirmLine(
+  input: ConfirmInput,
+  decide: (line: PickLineRowForCheck | null, batch: { status: PickBatchStatus; version: number }) => Decision,
+  audited: { ip: string | null },
+): Promise<ConfirmOutcome> {
   try {
     return await db().transaction(async (trx) => {
       // Locks the batch row and the line's row only: the subqueries are plain reads (InnoDB locks
       // no rows for them), evaluated after the locks are held, so they see every earlier commit.
       const row = await trx("batches as b")
-        .leftJoin("batch_lines as bl", (j) => j.on("bl.batch_id", "b.id").andOn("bl.order_line_id", trx.raw("?", [input.orderLineId])))
+        .leftJoin("batch_lines as bl", (j) =>
+          j.on("bl.batch_id", "b.id").andOn("bl.order_line_id", trx.raw("?", [input.orderLineId])),
+        )
         .where("b.id", input.batchId)
         .forUpdate()
         .first(
@@ -206,47 +266,112 @@ export async function confirmLine(input: ConfirmInput, decide: (line: PickLineRo
           "bl.order_line_id",
           "bl.bin_code",
           "bl.pick_status",
-          trx.raw("(select i.sku from order_lines l join items i on i.id = l.item_id where l.id = bl.order_line_id) as sku"),
+          trx.raw(
+            "(select i.sku from order_lines l join items i on i.id = l.item_id where l.id = bl.order_line_id) as sku",
+          ),
           trx.raw("(select l.quantity from order_lines l where l.id = bl.order_line_id) as quantity"),
-          trx.raw("(select count(*) from batch_lines o where o.batch_id = b.id and o.pick_status = 'open') as open_lines"),
+          trx.raw(
+            "(select count(*) from batch_lines o where o.batch_id = b.id and o.pick_status = 'open') as open_lines",
+          ),
         );
       if (!row) throw new Error(`batch ${input.batchId} vanished while confirming`);
       const status = row.status as PickBatchStatus;
       const d = decide(
-        row.order_line_id === null ? null : { orderLineId: Number(row.order_line_id), binCode: String(row.bin_code), sku: String(row.sku), quantity: Number(row.quantity), pickStatus: row.pick_status },
+        row.order_line_id === null
+          ? null
+          : {
+              orderLineId: Number(row.order_line_id),
+              binCode: String(row.bin_code),
+              sku: String(row.sku),
+              quantity: Number(row.quantity),
+              pickStatus: row.pick_status,
+            },
         { status, version: Number(row.version) },
       );
       let answer: StoredAnswer = d.answer;
-      const event = d.apply ? (d.apply.status === "short" ? ("pick.short" as const) : ("pick.confirmed" as const)) : null;
+      const event = d.apply
+        ? d.apply.status === "short"
+          ? ("pick.short" as const)
+          : ("pick.confirmed" as const)
+        : null;
       if (d.apply) {
         const changed = await trx("batch_lines")
           .where({ batch_id: input.batchId, order_line_id: input.orderLineId, pick_status: "open" })
-          .update({ pick_status: d.apply.status, picked_qty: d.apply.pickedQty, short_reason: d.apply.shortReason, confirmed_at: trx.fn.now(3), confirmed_by: input.userId });
+          .update({
+            pick_status: d.apply.status,
+            picked_qty: d.apply.pickedQty,
+            short_reason: d.apply.shortReason,
+            confirmed_at: trx.fn.now(3),
+            confirmed_by: input.userId,
+          });
         // Never answer success for a change that did not happen.
-        if (Number(changed) !== 1) throw new Error(`line ${input.orderLineId} of batch ${input.batchId} was no longer open`);
+        if (Number(changed) !== 1)
+          throw new Error(`line ${input.orderLineId} of batch ${input.batchId} was no longer open`);
         const open = Number(row.open_lines) - 1;
         const done = open === 0;
         if (done) {
-          await trx("batches").where({ id: input.batchId }).update({ status: "done", finished_at: trx.fn.now(3), ...(status === "released" ? { started_at: trx.fn.now(3) } : {}) });
+          await trx("batches")
+            .where({ id: input.batchId })
+            .update({
+              status: "done",
+              finished_at: trx.fn.now(3),
+              ...(status === "released" ? { started_at: trx.fn.now(3) } : {}),
+            });
           await queueShortPickSummaryIfWaveDone(trx, input.batchId, input.mailOrigin);
         } else if (status === "released") {
-          await trx("batches").where({ id: input.batchId }).update({ status: "picking", started_at: trx.fn.now(3) });
+          await trx("batches")
+            .where({ id: input.batchId })
+            .update({ status: "picking", started_at: trx.fn.now(3) });
         }
-        answer = { status: 200, body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: open } } };
-        await audit({ event: event!, actorUserId: input.userId, subject: `batch:${input.batchId}`, ip: audited.ip, detail: { orderLineId: input.orderLineId, quantity: input.quantity, reason: input.short?.reason } }, trx);
+        answer = {
+          status: 200,
+          body: { ...answer.body, batch: { status: done ? "done" : "picking", openLines: open } },
+        };
+        await audit(
+          {
+            event: event!,
+            actorUserId: input.userId,
+            subject: `batch:${input.batchId}`,
+            ip: audited.ip,
+            detail: { orderLineId: input.orderLineId, quantity: input.quantity, reason: input.short?.reason },
+          },
+          trx,
+        );
       }
-      await trx("pick_confirmations").insert({ idempotency_key: input.key, batch_id: input.batchId, user_id: input.userId, request_sha256: input.requestSha256, response: JSON.stringify(answer) });
+      await trx("pick_confirmations").insert({
+        idempotency_key: input.key,
+        batch_id: input.batchId,
+        user_id: input.userId,
+        request_sha256: input.requestSha256,
+        response: JSON.stringify(answer),
+      });
       return { kind: "fresh" as const, answer, event };
     });
   } catch (e) {
     if (!isDuplicateKey(e)) throw e;
-    const stored = await db()("pick_confirmations").where({ idempotency_key: input.key }).first("user_id", "batch_id", "request_sha256", "response");
+    const stored = await db()("pick_confirmations")
+      .where({ idempotency_key: input.key })
+      .first("user_id", "batch_id", "request_sha256", "response");
     if (!stored) throw e;
-    if (stored.request_sha256 !== input.requestSha256 || stored.user_id !== input.userId || Number(stored.batch_id) !== input.batchId) return { kind: "mismatch" };
+    if (
+      stored.request_sha256 !== input.requestSha256 ||
+      stored.user_id !== input.userId ||
+      Number(stored.batch_id) !== input.batchId
+    )
+      return { kind: "mismatch" };
     return { kind: "replay", answer: json<StoredAnswer>(stored.response) };
   }
 }
 
-export type PickLineRowForCheck = { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: PickStatus };
+export type PickLineRowForCheck = {
+  orderLineId: number;
+  binCode: string;
+  sku: string;
+  quantity: number;
+  pickStatus: PickStatus;
+};
 
-export type Decision = { answer: StoredAnswer; apply?: { status: "picked" | "short"; pickedQty: number; shortReason: string | null } };
+export type Decision = {
+  answer: StoredAnswer;
+  apply?: { status: "picked" | "short"; pickedQty: number; shortReason: string | null };
+};

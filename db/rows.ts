@@ -9,7 +9,8 @@ export const json = <T>(v: unknown): T => (typeof v === "string" ? JSON.parse(v)
 export const iso = (d: Date | string | null): string | null => (d ? new Date(d).toISOString() : null);
 
 /** A unique index refused the row (MariaDB error 1062). */
-export const isDuplicateKey = (e: unknown): boolean => (e as { code?: string } | null)?.code === "ER_DUP_ENTRY" || (e as { errno?: number } | null)?.errno === 1062;
+export const isDuplicateKey = (e: unknown): boolean =>
+  (e as { code?: string } | null)?.code === "ER_DUP_ENTRY" || (e as { errno?: number } | null)?.errno === 1062;
 
 export const CHUNK_ROWS = 1000;
 
@@ -19,6 +20,10 @@ export function chunks<T>(a: readonly T[], size = CHUNK_ROWS): T[][] {
   return out;
 }
 
-export async function insertInChunks(trx: Knex.Transaction, table: string, rows: readonly Record<string, unknown>[]): Promise<void> {
+export async function insertInChunks(
+  trx: Knex.Transaction,
+  table: string,
+  rows: readonly Record<string, unknown>[],
+): Promise<void> {
   for (const part of chunks(rows)) await trx(table).insert(part);
 }

@@ -21,11 +21,13 @@ export const SNAPSHOT_EXCLUDED: Record<string, string> = {
 export type TableState = { rows: number; checksum: string };
 
 /** Row count and CHECKSUM TABLE of every table of the database (but the excluded), by name. */
-export async function databaseSnapshot(excluded: readonly string[] = Object.keys(SNAPSHOT_EXCLUDED)): Promise<Record<string, TableState>> {
+export async function databaseSnapshot(
+  excluded: readonly string[] = Object.keys(SNAPSHOT_EXCLUDED),
+): Promise<Record<string, TableState>> {
   const k = db();
-  const [tables] = (await k.raw("SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' ORDER BY table_name")) as [
-    { name: string }[],
-  ];
+  const [tables] = (await k.raw(
+    "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' ORDER BY table_name",
+  )) as [{ name: string }[]];
   const out: Record<string, TableState> = {};
   for (const { name } of tables) {
     if (excluded.includes(name)) continue;

@@ -19,11 +19,22 @@ export async function countAttempt(scope: string, subject: string, windowMs: num
         async (trx) => {
           // ON DUPLICATE KEY UPDATE takes the row's exclusive lock (INSERT IGNORE would take a shared one,
           // and two shared holders wanting to write deadlock).
-          await trx.raw("INSERT INTO throttle_counters (scope, subject, n, kept, window_start) VALUES (?, ?, 0, 0, ?) ON DUPLICATE KEY UPDATE n = n", [scope, subject, now]);
-          const row = (await trx("throttle_counters").where({ scope, subject }).first("n", "kept", "window_start")) as { n: number; kept: number; window_start: Date };
+          await trx.raw(
+            "INSERT INTO throttle_counters (scope, subject, n, kept, window_start) VALUES (?, ?, 0, 0, ?) ON DUPLICATE KEY UPDATE n = n",
+            [scope, subject, now],
+          );
+          const row = (await trx("throttle_counters").where({ scope, subject }).first("n", "kept", "window_start")) as {
+            n: number;
+            kept: number;
+            window_start: Date;
+          };
           const fresh = row.n === 0 || row.window_start.getTime() <= now.getTime() - windowMs;
-          const next: Count = fresh ? { n: 1, kept: 0, windowStart: now } : { n: row.n + 1, kept: row.kept, windowStart: row.window_start };
-          await trx("throttle_counters").where({ scope, subject }).update({ n: next.n, kept: next.kept, window_start: next.windowStart });
+          const next: Count = fresh
+            ? { n: 1, kept: 0, windowStart: now }
+            : { n: row.n + 1, kept: row.kept, windowStart: row.window_start };
+          await trx("throttle_counters")
+            .where({ scope, subject })
+            .update({ n: next.n, kept: next.kept, window_start: next.windowStart });
           return next;
         },
         { isolationLevel: "read committed" },
@@ -44,5 +55,8 @@ export async function keepAttempt(scope: string, subject: string, windowStart: D
 
 /** Takes the attempt back (a right password, or one refused by another cap). */
 export async function uncountAttempt(scope: string, subject: string, windowStart: Date): Promise<void> {
-  await db()("throttle_counters").where({ scope, subject, window_start: windowStart }).andWhere("n", ">", 0).decrement("n", 1);
+  await db()("throttle_counters")
+    .where({ scope, subject, window_start: windowStart })
+    .andWhere("n", ">", 0)
+    .decrement("n", 1);
 }

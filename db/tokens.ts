@@ -11,11 +11,22 @@ export type TokenPurpose = "invite" | "reset";
 /** Builds the mail for a freshly made link token (the raw token exists only in this call and the mail). */
 export type MailForToken = (token: string) => Omit<OutgoingMail, "dedupeKey">;
 
-async function insertToken(trx: Knex.Transaction, userId: string, purpose: TokenPurpose, now: Date): Promise<{ token: string; sha: string }> {
+async function insertToken(
+  trx: Knex.Transaction,
+  userId: string,
+  purpose: TokenPurpose,
+  now: Date,
+): Promise<{ token: string; sha: string }> {
   const token = newLinkToken();
   const sha = tokenSha256(token);
   const lifetime = purpose === "invite" ? INVITE_LIFETIME_MS : RESET_LIFETIME_MS;
-  await trx("password_tokens").insert({ user_id: userId, token_sha256: sha, purpose, expires_at: new Date(now.getTime() + lifetime), created_at: now });
+  await trx("password_tokens").insert({
+    user_id: userId,
+    token_sha256: sha,
+    purpose,
+    expires_at: new Date(now.getTime() + lifetime),
+    created_at: now,
+  });
   return { token, sha };
 }
 
@@ -42,7 +53,10 @@ export function createInvitedUser(
 export async function issueResetToken(userId: string, mail: MailForToken, now = new Date()): Promise<void> {
   await db().transaction(async (trx) => {
     await trx("users").where({ id: userId }).forUpdate().first("id");
-    await trx("password_tokens").where({ user_id: userId, purpose: "reset" }).whereNull("used_at").update({ used_at: now });
+    await trx("password_tokens")
+      .where({ user_id: userId, purpose: "reset" })
+      .whereNull("used_at")
+      .update({ used_at: now });
     const { token, sha } = await insertToken(trx, userId, "reset", now);
     await enqueueMail(trx, { ...mail(token), dedupeKey: `reset:${sha.slice(0, 40)}` });
   });
@@ -55,9 +69,14 @@ function usable(row: TokenRow | undefined, now: Date): row is TokenRow {
 }
 
 /** For the set-password page: is this link still good, and for whom. Reads only. */
-export async function peekToken(token: string, now = new Date()): Promise<{ purpose: TokenPurpose; email: string } | null> {
+export async function peekToken(
+  token: string,
+  now = new Date(),
+): Promise<{ purpose: TokenPurpose; email: string } | null> {
   if (!looksLikeToken(token)) return null;
-  const row = (await db()("password_tokens").where({ token_sha256: tokenSha256(token) }).first()) as TokenRow | undefined;
+  const row = (await db()("password_tokens")
+    .where({ token_sha256: tokenSha256(token) })
+    .first()) as TokenRow | undefined;
   if (!usable(row, now)) return null;
   const user = await db()("users").where({ id: row.user_id }).whereNull("disabled_at").first("email");
   return user ? { purpose: row.purpose, email: user.email as string } : null;
@@ -68,17 +87,29 @@ export async function peekToken(token: string, now = new Date()): Promise<{ purp
  * all their sessions, in one transaction. The row lock makes a double submit spend the link once.
  * Null for an unknown, used or expired link, or a disabled account (the caller says the same for all).
  */
-export async function setPasswordWithToken(token: string, passwordHash: string, now = new Date()): Promise<{ userId: string; purpose: TokenPurpose; email: string } | null> {
+export async function setPasswordWithToken(
+  token: string,
+  passwordHash: string,
+  now = new Date(),
+): Promise<{ userId: string; purpose: TokenPurpose; email: string } | null> {
   if (!looksLikeToken(token)) return null;
   return db().transaction(async (trx) => {
-    const row = (await trx("password_tokens").where({ token_sha256: tokenSha256(token) }).forUpdate().first()) as TokenRow | undefined;
+    const row = (await trx("password_tokens")
+      .where({ token_sha256: tokenSha256(token) })
+      .forUpdate()
+      .first()) as TokenRow | undefined;
     if (!usable(row, now)) return null;
-    const user = await trx("users").where({ id: row.user_id }).whereNull("disabled_at").forUpdate().first("id", "email");
+    const user = await trx("users")
+      .where({ id: row.user_id })
+      .whereNull("disabled_at")
+      .forUpdate()
+      .first("id", "email");
     if (!user) return null;
-    await trx("users").where({ id: row.user_id }).update({ password_hash: passwordHash, updated_at: trx.fn.now(3) });
+    await trx("users")
+      .where({ id: row.user_id })
+      .update({ password_hash: passwordHash, updated_at: trx.fn.now(3) });
     await trx("password_tokens").where({ user_id: row.user_id }).whereNull("used_at").update({ used_at: now });
     await trx("sessions").where({ user_id: row.user_id }).delete();
     return { userId: row.user_id, purpose: row.purpose, email: user.email as string };
   });
 }
-

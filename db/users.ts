@@ -37,7 +37,9 @@ export function normaliseEmail(email: string): string {
 }
 
 export async function findUserForSignIn(email: string): Promise<(UserDTO & { passwordHash: string | null }) | null> {
-  const row = await db()<UserRow>("users").where({ email: normaliseEmail(email) }).first();
+  const row = await db()<UserRow>("users")
+    .where({ email: normaliseEmail(email) })
+    .first();
   return row ? { ...toDTO(row), passwordHash: row.password_hash } : null;
 }
 
@@ -47,7 +49,9 @@ export async function getUser(id: string): Promise<UserDTO | null> {
 }
 
 export async function listUsers(siteId: number): Promise<UserDTO[]> {
-  const rows = await db()<UserRow>("users").where({ site_id: siteId }).orderBy([{ column: "role" }, { column: "email" }]);
+  const rows = await db()<UserRow>("users")
+    .where({ site_id: siteId })
+    .orderBy([{ column: "role" }, { column: "email" }]);
   return rows.map(toDTO);
 }
 
@@ -87,7 +91,8 @@ export type UserChange = { role?: Role; disabled?: boolean; displayName?: string
 /** The change would leave the user's site without an active admin. */
 export class LastAdminError extends Error {}
 
-const takesAdminAway = (change: UserChange) => (change.role !== undefined && change.role !== "admin") || change.disabled === true;
+const takesAdminAway = (change: UserChange) =>
+  (change.role !== undefined && change.role !== "admin") || change.disabled === true;
 
 /**
  * Optimistic update: returns null when `version` is stale (someone else changed the user first).
@@ -104,7 +109,12 @@ export async function updateUser(id: string, version: number, change: UserChange
       // makes the second wait and then count what the first left.
       const site = await trx<UserRow>("users").where({ id }).first("site_id");
       if (site) {
-        const rows = await trx<UserRow>("users").where({ site_id: site.site_id, role: "admin" }).whereNull("disabled_at").orderBy("id").forUpdate().select("id");
+        const rows = await trx<UserRow>("users")
+          .where({ site_id: site.site_id, role: "admin" })
+          .whereNull("disabled_at")
+          .orderBy("id")
+          .forUpdate()
+          .select("id");
         activeAdminIds = rows.map((r) => r.id);
       }
     }
@@ -129,5 +139,7 @@ export async function recordSignIn(id: string, at: Date): Promise<void> {
 }
 
 export async function setPasswordHash(id: string, passwordHash: string): Promise<void> {
-  await db()("users").where({ id }).update({ password_hash: passwordHash, updated_at: db().fn.now(3) });
+  await db()("users")
+    .where({ id })
+    .update({ password_hash: passwordHash, updated_at: db().fn.now(3) });
 }

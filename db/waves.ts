@@ -3,7 +3,14 @@ import type { Knex } from "knex";
 import { db } from "./knex";
 import { queueWaveReleasedMail } from "./wave-mail";
 import type { WaveOrder } from "@/lib/batching/types";
-import type { UnbatchableOrder, WaveDTO, WaveFilter, WavePreviewDTO, WaveSettings, WaveStatus } from "@/lib/contracts/waves";
+import type {
+  UnbatchableOrder,
+  WaveDTO,
+  WaveFilter,
+  WavePreviewDTO,
+  WaveSettings,
+  WaveStatus,
+} from "@/lib/contracts/waves";
 import { chunks, iso, json } from "./rows";
 
 function wavesOfSite(siteId: number) {
@@ -82,15 +89,31 @@ export class OrdersTakenError extends Error {
 }
 
 /** A draft wave claiming open orders; an order already in another wave makes the whole call fail. */
-export async function createWave(siteId: number, input: { name: string; layoutVersionId: number; settings: WaveSettings; orderIds: number[] }, userId: string): Promise<number> {
+export async function createWave(
+  siteId: number,
+  input: { name: string; layoutVersionId: number; settings: WaveSettings; orderIds: number[] },
+  userId: string,
+): Promise<number> {
   return db().transaction(async (trx) => {
-    const orders = await trx("orders").where({ site_id: siteId }).whereIn("id", input.orderIds).forUpdate().select("id", "order_number", "status");
+    const orders = await trx("orders")
+      .where({ site_id: siteId })
+      .whereIn("id", input.orderIds)
+      .forUpdate()
+      .select("id", "order_number", "status");
     const taken = await trx("wave_orders").whereIn("order_id", input.orderIds).select("order_id");
     const takenIds = new Set(taken.map((t: { order_id: number }) => t.order_id));
-    const bad = orders.filter((o: { id: number; status: string }) => o.status !== "open" || takenIds.has(o.id)).map((o: { order_number: string }) => o.order_number);
+    const bad = orders
+      .filter((o: { id: number; status: string }) => o.status !== "open" || takenIds.has(o.id))
+      .map((o: { order_number: string }) => o.order_number);
     if (bad.length) throw new OrdersTakenError(bad);
     if (orders.length !== new Set(input.orderIds).size) throw new OrdersTakenError(["(some orders no longer exist)"]);
-    const [id] = await trx("waves").insert({ site_id: siteId, name: input.name.trim(), layout_version_id: input.layoutVersionId, settings: JSON.stringify(input.settings), created_by: userId });
+    const [id] = await trx("waves").insert({
+      site_id: siteId,
+      name: input.name.trim(),
+      layout_version_id: input.layoutVersionId,
+      settings: JSON.stringify(input.settings),
+      created_by: userId,
+    });
     const waveId = Number(id);
     for (const chunk of chunks(input.orderIds)) {
       await trx("wave_orders").insert(chunk.map((order_id) => ({ order_id, wave_id: waveId })));
@@ -121,14 +144,22 @@ export async function ordersOfWave(waveId: number): Promise<WaveOrder[]> {
       db().raw(
         "(select ib.bin_code from item_bins ib join layout_bins lb on lb.code = ib.bin_code and lb.layout_version_id = w.layout_version_id where ib.item_id = i.id order by ib.`rank`, ib.bin_code limit 1) as bin_code",
       ),
-      db().raw("(select group_concat(ib.bin_code order by ib.`rank`, ib.bin_code separator '\\t') from item_bins ib where ib.item_id = i.id) as item_bins"),
+      db().raw(
+        "(select group_concat(ib.bin_code order by ib.`rank`, ib.bin_code separator '\\t') from item_bins ib where ib.item_id = i.id) as item_bins",
+      ),
     )
     .orderBy([{ column: "o.id" }, { column: "l.line_no" }]);
   const byOrder = new Map<number, WaveOrder>();
   for (const r of rows) {
     let o = byOrder.get(r.order_id);
     if (!o) {
-      o = { orderId: r.order_id, orderNumber: r.order_number, cutoffAt: r.cutoff_at ? new Date(r.cutoff_at).toISOString() : null, priority: r.priority, lines: [] };
+      o = {
+        orderId: r.order_id,
+        orderNumber: r.order_number,
+        cutoffAt: r.cutoff_at ? new Date(r.cutoff_at).toISOString() : null,
+        priority: r.priority,
+        lines: [],
+      };
       byOrder.set(r.order_id, o);
     }
     o.lines.push({
@@ -163,24 +194,46 @@ function ordersInNoBatch(trx: Knex.Transaction, waveId: number) {
  * batch holds leave the wave and are open again, each with its reason as a note, so a new wave can
  * take them once the planner has fixed what stopped them. The release mail links to `mailOrigin`.
  */
-export async function releaseWave(siteId: number, waveId: number, expectedVersion: number, userId: string | null, mailOrigin: string): Promise<"released" | "stale" | "not-planned"> {
+export async function releaseWave(
+  siteId: number,
+  waveId: number,
+  expectedVersion: number,
+  userId: string | null,
+  mailOrigin: string,
+): Promise<"released" | "stale" | "not-planned"> {
   return db().transaction(async (trx) => {
-    const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status", "name", "unbatchable");
+    const w = await trx("waves")
+      .where({ id: waveId, site_id: siteId })
+      .forUpdate()
+      .first("version", "status", "name", "unbatchable");
     if (!w) return "stale";
     if (w.status !== "planned") return w.status === "released" ? "stale" : "not-planned";
     if (w.version !== expectedVersion) return "stale";
     const leaving = await ordersInNoBatch(trx, waveId);
-    const reasons = new Map((w.unbatchable ? json<UnbatchableOrder[]>(w.unbatchable) : []).map((u) => [u.orderId, u.reason]));
+    const reasons = new Map(
+      (w.unbatchable ? json<UnbatchableOrder[]>(w.unbatchable) : []).map((u) => [u.orderId, u.reason]),
+    );
     for (const orderId of leaving) {
       const reason = reasons.get(orderId) ?? "No batch of the plan held it.";
-      await trx("orders").where({ id: orderId }).update({ status: "open", unbatched_note: `Not batched in wave “${w.name}”, which was released without it: ${reason}`.slice(0, 1000) });
+      await trx("orders")
+        .where({ id: orderId })
+        .update({
+          status: "open",
+          unbatched_note: `Not batched in wave “${w.name}”, which was released without it: ${reason}`.slice(0, 1000),
+        });
     }
-    for (const part of chunks(leaving)) await trx("wave_orders").where({ wave_id: waveId }).whereIn("order_id", part).delete();
-    await trx("waves").where({ id: waveId }).update({ status: "released", version: expectedVersion + 1, released_at: trx.fn.now(3), released_by: userId });
+    for (const part of chunks(leaving))
+      await trx("wave_orders").where({ wave_id: waveId }).whereIn("order_id", part).delete();
+    await trx("waves")
+      .where({ id: waveId })
+      .update({ status: "released", version: expectedVersion + 1, released_at: trx.fn.now(3), released_by: userId });
     await trx("batches").where({ wave_id: waveId }).update({ status: "released" });
-    await trx("orders").whereIn("id", trx("wave_orders").where({ wave_id: waveId }).select("order_id")).update({ status: "released" });
+    await trx("orders")
+      .whereIn("id", trx("wave_orders").where({ wave_id: waveId }).select("order_id"))
+      .update({ status: "released" });
     // A wave none of whose orders could be batched only hands its orders back: no batches to announce.
-    if (await trx("batches").where({ wave_id: waveId }).first("id")) await queueWaveReleasedMail(trx, waveId, mailOrigin);
+    if (await trx("batches").where({ wave_id: waveId }).first("id"))
+      await queueWaveReleasedMail(trx, waveId, mailOrigin);
     return "released";
   });
 }
@@ -189,7 +242,11 @@ export async function releaseWave(siteId: number, waveId: number, expectedVersio
  * Drops a wave that was never released and hands all its orders back to open: the way out for a wave
  * that cannot be planned as it stands (too big for the time limit, say) or is no longer wanted.
  */
-export async function discardWave(siteId: number, waveId: number, expectedVersion: number): Promise<{ outcome: "discarded"; orders: number } | { outcome: "missing" | "released" | "stale" }> {
+export async function discardWave(
+  siteId: number,
+  waveId: number,
+  expectedVersion: number,
+): Promise<{ outcome: "discarded"; orders: number } | { outcome: "missing" | "released" | "stale" }> {
   return db().transaction(async (trx) => {
     const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status");
     if (!w) return { outcome: "missing" as const };
@@ -217,14 +274,20 @@ function unclaimedOpenOrders(siteId: number, filter: WaveFilter) {
 
 /** Open orders that no wave has claimed yet, matching the planner's filter, most urgent first. */
 export async function unclaimedOpenOrderIds(siteId: number, filter: WaveFilter): Promise<number[]> {
-  const rows = await unclaimedOpenOrders(siteId, filter).orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number").select("o.id");
+  const rows = await unclaimedOpenOrders(siteId, filter)
+    .orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number")
+    .select("o.id");
   return rows.map((r: { id: number }) => r.id);
 }
 
 const PREVIEW_EXAMPLES = 5;
 
 /** What a new wave with this filter would take, and which of its lines no bin of the layout version holds. */
-export async function previewWave(siteId: number, layoutVersionId: number, filter: WaveFilter): Promise<WavePreviewDTO> {
+export async function previewWave(
+  siteId: number,
+  layoutVersionId: number,
+  filter: WaveFilter,
+): Promise<WavePreviewDTO> {
   const ids = () => unclaimedOpenOrders(siteId, filter).select("o.id");
   const noBinOnLayout = (q: Knex.QueryBuilder) =>
     q.whereNotExists(
@@ -237,15 +300,29 @@ export async function previewWave(siteId: number, layoutVersionId: number, filte
   const [orders, lines, off, examples] = await Promise.all([
     db().from(ids().as("x")).first(db().raw("count(*) as n")),
     db()("order_lines as l").whereIn("l.order_id", ids()).first(db().raw("count(*) as n")),
-    noBinOnLayout(db()("order_lines as l").whereIn("l.order_id", ids())).first(db().raw("count(*) as n"), db().raw("count(distinct l.order_id) as orders")),
-    noBinOnLayout(db()("order_lines as l").join("orders as o", "o.id", "l.order_id").join("items as i", "i.id", "l.item_id").whereIn("l.order_id", ids()))
+    noBinOnLayout(db()("order_lines as l").whereIn("l.order_id", ids())).first(
+      db().raw("count(*) as n"),
+      db().raw("count(distinct l.order_id) as orders"),
+    ),
+    noBinOnLayout(
+      db()("order_lines as l")
+        .join("orders as o", "o.id", "l.order_id")
+        .join("items as i", "i.id", "l.item_id")
+        .whereIn("l.order_id", ids()),
+    )
       .orderByRaw("o.cutoff_at is null, o.cutoff_at, o.priority, o.order_number, l.line_no")
       .limit(PREVIEW_EXAMPLES)
       .select("o.order_number", "i.sku", "l.item_id"),
   ]);
   const without = await unclaimedOpenOrders(siteId, filter).whereNull("o.cutoff_at").first(db().raw("count(*) as n"));
   const bins = examples.length
-    ? ((await db()("item_bins").whereIn("item_id", examples.map((e: { item_id: number }) => e.item_id)).orderBy(["item_id", "rank", "bin_code"]).select("item_id", "bin_code")) as { item_id: number; bin_code: string }[])
+    ? ((await db()("item_bins")
+        .whereIn(
+          "item_id",
+          examples.map((e: { item_id: number }) => e.item_id),
+        )
+        .orderBy(["item_id", "rank", "bin_code"])
+        .select("item_id", "bin_code")) as { item_id: number; bin_code: string }[])
     : [];
   return {
     orders: Number(orders?.n ?? 0),
@@ -254,8 +331,11 @@ export async function previewWave(siteId: number, layoutVersionId: number, filte
     offLayout: {
       orders: Number(off?.orders ?? 0),
       lines: Number(off?.n ?? 0),
-      examples: examples.map((e: { order_number: string; sku: string; item_id: number }) => ({ orderNumber: e.order_number, sku: e.sku, binCodes: bins.filter((b) => b.item_id === e.item_id).map((b) => b.bin_code) })),
+      examples: examples.map((e: { order_number: string; sku: string; item_id: number }) => ({
+        orderNumber: e.order_number,
+        sku: e.sku,
+        binCodes: bins.filter((b) => b.item_id === e.item_id).map((b) => b.bin_code),
+      })),
     },
   };
 }
-

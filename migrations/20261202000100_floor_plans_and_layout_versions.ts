@@ -125,7 +125,17 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const table of ["uploads", "jobs", "layout_bins", "layout_access_points", "layout_edges", "layout_nodes", "layout_versions", "floor_plan_drafts", "floor_plans"]) {
+  for (const table of [
+    "uploads",
+    "jobs",
+    "layout_bins",
+    "layout_access_points",
+    "layout_edges",
+    "layout_nodes",
+    "layout_versions",
+    "floor_plan_drafts",
+    "floor_plans",
+  ]) {
     await knex.schema.dropTableIfExists(table);
   }
 }

@@ -143,7 +143,18 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const table of ["batch_lines", "batch_stops", "batches", "wave_orders", "waves", "order_lines", "orders", "item_bins", "items", "import_files"]) {
+  for (const table of [
+    "batch_lines",
+    "batch_stops",
+    "batches",
+    "wave_orders",
+    "waves",
+    "order_lines",
+    "orders",
+    "item_bins",
+    "items",
+    "import_files",
+  ]) {
     await knex.schema.dropTableIfExists(table);
   }
   await knex.schema.alterTable("sites", (t) => {

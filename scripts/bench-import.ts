@@ -17,21 +17,35 @@ async function main() {
   const rows = ["Order number,Line,SKU,Quantity,Cut-off,Priority,Customer reference"];
   for (let i = 0; i < LINES; i++) {
     const order = Math.floor(i / 4);
-    rows.push(`BENCH-${String(order).padStart(6, "0")},${(i % 4) + 1},${skus[(i * 7919) % skus.length]},${1 + (i % 5)},2026-12-07 ${["10:00", "12:00", "14:30", "16:30"][order % 4]},${1 + (order % 3)},Bench customer ${order % 50}`);
+    rows.push(
+      `BENCH-${String(order).padStart(6, "0")},${(i % 4) + 1},${skus[(i * 7919) % skus.length]},${1 + (i % 5)},2026-12-07 ${["10:00", "12:00", "14:30", "16:30"][order % 4]},${1 + (order % 3)},Bench customer ${order % 50}`,
+    );
   }
   const bytes = new TextEncoder().encode(rows.join("\n") + "\n");
-  const request = { kind: "orders" as const, bytes, sha256: createHash("sha256").update(bytes).digest("hex"), filename: "bench.csv", layoutVersionId: version.id, mapping: undefined };
+  const request = {
+    kind: "orders" as const,
+    bytes,
+    sha256: createHash("sha256").update(bytes).digest("hex"),
+    filename: "bench.csv",
+    layoutVersionId: version.id,
+    mapping: undefined,
+  };
   const t0 = performance.now();
   const analysis = await analyseImport(site.id, request);
   const t1 = performance.now();
-  if (analysis.problems.length) throw new Error(`bench sheet has problems: ${JSON.stringify(analysis.problems.slice(0, 3))}`);
+  if (analysis.problems.length)
+    throw new Error(`bench sheet has problems: ${JSON.stringify(analysis.problems.slice(0, 3))}`);
   const result = await commitImport(site.id, user.id, request, analysis);
   const t2 = performance.now();
   const ms = (a: number, b: number) => `${(b - a).toFixed(0)} ms`;
   console.log("| order sheet import | time | notes |");
   console.log("|---|---|---|");
-  console.log(`| read + check ${LINES.toLocaleString("en")} lines (${(bytes.length / 1024).toFixed(0)} KiB CSV) | ${ms(t0, t1)} | sandboxed sheet worker, every row against item master and layout version |`);
-  console.log(`| write in one transaction | ${ms(t1, t2)} | ${JSON.stringify("counts" in result ? result.counts : result)} |`);
+  console.log(
+    `| read + check ${LINES.toLocaleString("en")} lines (${(bytes.length / 1024).toFixed(0)} KiB CSV) | ${ms(t0, t1)} | sandboxed sheet worker, every row against item master and layout version |`,
+  );
+  console.log(
+    `| write in one transaction | ${ms(t1, t2)} | ${JSON.stringify("counts" in result ? result.counts : result)} |`,
+  );
   console.log(`| total | ${ms(t0, t2)} | |`);
 }
 

@@ -20,8 +20,16 @@ async function main(): Promise<void> {
   const fiveLines = (o: ReturnType<typeof demoOrders>[number], k: number) => ({
     ...o,
     lines: Array.from({ length: 5 }, (_, i) => {
-      const it = items[(k * 5 + i) * 7 % items.length]!;
-      return o.lines[i] ?? { lineId: 1_000_000 + o.orderId * 10 + i, sku: it.sku, binCode: it.binCode, quantity: 1 + (i % 3), unitWeightG: it.unitWeightG };
+      const it = items[((k * 5 + i) * 7) % items.length]!;
+      return (
+        o.lines[i] ?? {
+          lineId: 1_000_000 + o.orderId * 10 + i,
+          sku: it.sku,
+          binCode: it.binCode,
+          quantity: 1 + (i % 3),
+          unitWeightG: it.unitWeightG,
+        }
+      );
     }),
   });
   const cases = [
@@ -47,7 +55,8 @@ async function main(): Promise<void> {
       const baseline = r.batches.reduce((s, b) => s + b.route.baselineMm, 0);
       const exact = r.batches.filter((b) => b.route.optimal).length;
       if (method === "first-come") firstComeMm = walk;
-      const less = method === "first-come" ? "–" : `${m(firstComeMm - walk)} m (${pct(firstComeMm - walk, firstComeMm)})`;
+      const less =
+        method === "first-come" ? "–" : `${m(firstComeMm - walk)} m (${pct(firstComeMm - walk, firstComeMm)})`;
       rows.push(
         `| ${count} | ${orders.reduce((n, o) => n + o.lines.length, 0)} | ${label} | ${seconds.toFixed(1)} s | ${r.batches.length} (${exact} exact) | ${m(walk)} m | ${m(baseline)} m | ${pct(baseline - walk, baseline)} | ${less} |`,
       );
@@ -62,7 +71,9 @@ async function main(): Promise<void> {
       `which is most of it. ${os.cpus().length} × ${cpu}, Node ${process.version}.`,
   );
   console.log("");
-  console.log("| orders | lines | method | time | batches | planned walk | baseline walk | saved vs baseline | less than first-come |");
+  console.log(
+    "| orders | lines | method | time | batches | planned walk | baseline walk | saved vs baseline | less than first-come |",
+  );
   console.log("|---:|---:|---|---:|---:|---:|---:|---:|---:|");
   for (const r of rows) console.log(r);
 }

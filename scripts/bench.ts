@@ -36,7 +36,8 @@ const peakRss = () => mb(process.resourceUsage().maxRSS * 1024);
 function randomMatrix(n: number, seed: number): CostMatrix {
   const rand = mulberry32(seed);
   const cost = new Int32Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) cost[i * n + j] = i === j ? 0 : 1 + Math.floor(rand() * 99_999);
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < n; j++) cost[i * n + j] = i === j ? 0 : 1 + Math.floor(rand() * 99_999);
   return { n, cost };
 }
 const stopsOf = (m: number) => Array.from({ length: m }, (_, i) => i + 2);
@@ -47,10 +48,29 @@ function mtzLp(cm: CostMatrix, stops: number[]): string {
   for (const i of [0, ...stops]) for (const j of [...stops, 1]) if (i !== j && !(i === 0 && j === 1)) arcs.push([i, j]);
   const x = (i: number, j: number) => `x_${i}_${j}`;
   const out = ["Minimize", " obj:", ...arcs.map(([i, j]) => ` + ${cm.cost[i * cm.n + j]} ${x(i, j)}`), "Subject To"];
-  for (const i of [0, ...stops]) out.push(` o${i}: ${arcs.filter(([a]) => a === i).map(([a, b]) => x(a, b)).join(" + ")} = 1`);
-  for (const j of [...stops, 1]) out.push(` i${j}: ${arcs.filter(([, b]) => b === j).map(([a, b]) => x(a, b)).join(" + ")} = 1`);
-  for (const i of stops) for (const j of stops) if (i !== j) out.push(` m${i}_${j}: u${i} - u${j} + ${m} ${x(i, j)} <= ${m - 1}`);
-  out.push("Bounds", ...stops.map((i) => ` 1 <= u${i} <= ${m}`), "Binaries", ...arcs.map(([i, j]) => ` ${x(i, j)}`), "End");
+  for (const i of [0, ...stops])
+    out.push(
+      ` o${i}: ${arcs
+        .filter(([a]) => a === i)
+        .map(([a, b]) => x(a, b))
+        .join(" + ")} = 1`,
+    );
+  for (const j of [...stops, 1])
+    out.push(
+      ` i${j}: ${arcs
+        .filter(([, b]) => b === j)
+        .map(([a, b]) => x(a, b))
+        .join(" + ")} = 1`,
+    );
+  for (const i of stops)
+    for (const j of stops) if (i !== j) out.push(` m${i}_${j}: u${i} - u${j} + ${m} ${x(i, j)} <= ${m - 1}`);
+  out.push(
+    "Bounds",
+    ...stops.map((i) => ` 1 <= u${i} <= ${m}`),
+    "Binaries",
+    ...arcs.map(([i, j]) => ` ${x(i, j)}`),
+    "End",
+  );
   return out.join("\n");
 }
 
@@ -78,7 +98,11 @@ async function main() {
     const cm = randomMatrix(m + 2, m);
     const t0 = performance.now();
     heldKarp(cm, 0, 1, stopsOf(m));
-    row(`Held–Karp, ${m} stops`, `${fmt(ms(t0))} ms`, `DP table ${mb(heldKarpBytes(m))}; process peak RSS so far ${peakRss()}`);
+    row(
+      `Held–Karp, ${m} stops`,
+      `${fmt(ms(t0))} ms`,
+      `DP table ${mb(heldKarpBytes(m))}; process peak RSS so far ${peakRss()}`,
+    );
   }
 
   // HiGHS and brute force against the DP on the same instances.
@@ -90,7 +114,11 @@ async function main() {
   t0 = performance.now();
   const sol = highs.solve(mtzLp(cm10, stopsOf(10)), { output_flag: false, mip_rel_gap: 0 });
   const highsMs = ms(t0);
-  row("HiGHS MILP (MTZ), 10 stops", `${fmt(highsMs)} ms`, `Held–Karp ${fmt(hkMs)} ms on the same instance, ratio ${fmt(highsMs / hkMs)}×; optima ${Math.round(sol.ObjectiveValue)} vs ${hk10.length}`);
+  row(
+    "HiGHS MILP (MTZ), 10 stops",
+    `${fmt(highsMs)} ms`,
+    `Held–Karp ${fmt(hkMs)} ms on the same instance, ratio ${fmt(highsMs / hkMs)}×; optima ${Math.round(sol.ObjectiveValue)} vs ${hk10.length}`,
+  );
   const cm9 = randomMatrix(11, 909);
   t0 = performance.now();
   const hk9 = heldKarp(cm9, 0, 1, stopsOf(9));
@@ -98,7 +126,11 @@ async function main() {
   t0 = performance.now();
   const bf9 = bruteForce(cm9, stopsOf(9));
   const bfMs = ms(t0);
-  row("Brute force, 9 stops (9! orders)", `${fmt(bfMs)} ms`, `Held–Karp ${fmt(hk9Ms)} ms, ratio ${fmt(bfMs / hk9Ms)}×; optima ${bf9} vs ${hk9.length}`);
+  row(
+    "Brute force, 9 stops (9! orders)",
+    `${fmt(bfMs)} ms`,
+    `Held–Karp ${fmt(hk9Ms)} ms, ratio ${fmt(bfMs / hk9Ms)}×; optima ${bf9} vs ${hk9.length}`,
+  );
 
   // Heuristic against the exact optimum on warehouse batches (8 aisles, 2 cross aisles).
   const small = buildGraph(generateWarehouse({ aisles: 8, positions: 20, levels: 4, crossAisles: 2 }));
@@ -109,7 +141,10 @@ async function main() {
     const drop = nodeAccessPoint(small, small.dropoffs[0]?.node as number);
     return accessCostMatrix(small, smallDm, [depot, drop, ...aps.map((a) => small.accessPoints[a]!)]);
   };
-  for (const [m, batches] of [[15, 100], [20, 20]] as const) {
+  for (const [m, batches] of [
+    [15, 100],
+    [20, 20],
+  ] as const) {
     let gap = 0;
     let worst = 0;
     let hMs = 0;
@@ -126,7 +161,11 @@ async function main() {
       gap += g;
       worst = Math.max(worst, g);
     }
-    row(`Heuristic, ${m} stops (${batches} warehouse batches)`, `${fmt(hMs / batches)} ms mean`, `mean gap ${(100 * gap / batches).toFixed(2)}%, worst ${(100 * worst).toFixed(2)}%; Held–Karp ${fmt(eMs / batches)} ms mean`);
+    row(
+      `Heuristic, ${m} stops (${batches} warehouse batches)`,
+      `${fmt(hMs / batches)} ms mean`,
+      `mean gap ${((100 * gap) / batches).toFixed(2)}%, worst ${(100 * worst).toFixed(2)}%; Held–Karp ${fmt(eMs / batches)} ms mean`,
+    );
   }
   {
     // Uniform random directed costs have no aisle structure, so they are harder for local search.
@@ -140,29 +179,50 @@ async function main() {
       hMs += ms(t0);
       gap += h.length / exact.length - 1;
     }
-    row("Heuristic, 15 stops (100 random asymmetric instances)", `${fmt(hMs / 100)} ms mean`, `mean gap ${((100 * gap) / 100).toFixed(2)}%`);
+    row(
+      "Heuristic, 15 stops (100 random asymmetric instances)",
+      `${fmt(hMs / 100)} ms mean`,
+      `mean gap ${((100 * gap) / 100).toFixed(2)}%`,
+    );
   }
   const big = buildGraph(generateWarehouse({ aisles: 20, positions: 50, levels: 5, crossAisles: 3 }));
   const bigDm = floydWarshall(big);
   for (const m of [60, 150]) {
     let total = 0;
     for (let s = 1; s <= 5; s++) {
-      const plan = () => planPick(big, bigDm, { from: "D1", to: "P1", binCodes: randomBatch(big, m, 8000 + s) }, { heuristic: { seed: s } });
+      const plan = () =>
+        planPick(
+          big,
+          bigDm,
+          { from: "D1", to: "P1", binCodes: randomBatch(big, m, 8000 + s) },
+          { heuristic: { seed: s } },
+        );
       t0 = performance.now();
       plan();
       total += ms(t0);
     }
-    row(`Heuristic, ${m} stops (10,000-bin layout, 5 batches)`, `${fmt(total / 5)} ms mean`, "whole planPick: stop matrix, local search, baseline");
+    row(
+      `Heuristic, ${m} stops (10,000-bin layout, 5 batches)`,
+      `${fmt(total / 5)} ms mean`,
+      "whole planPick: stop matrix, local search, baseline",
+    );
   }
 
   // Baseline (serpentine by location code) against the optimum.
-  for (const [m, batches] of [[10, 100], [20, 20]] as const) {
+  for (const [m, batches] of [
+    [10, 100],
+    [20, 20],
+  ] as const) {
     let saving = 0;
     for (let s = 1; s <= batches; s++) {
       const p = planPick(small, smallDm, { from: "D1", to: "P1", binCodes: randomBatch(small, m, 9000 + s) });
       saving += p.savingMm / p.baselineMm;
     }
-    row(`Baseline vs optimal, ${m} stops (${batches} batches, 8 aisles, 2 cross aisles)`, `${(100 * saving / batches).toFixed(1)}% shorter`, "mean saving of the optimal walk over the serpentine walk");
+    row(
+      `Baseline vs optimal, ${m} stops (${batches} batches, 8 aisles, 2 cross aisles)`,
+      `${((100 * saving) / batches).toFixed(1)}% shorter`,
+      "mean saving of the optimal walk over the serpentine walk",
+    );
   }
 
   // Publish cost: grid → graph and Floyd–Warshall.
@@ -177,19 +237,36 @@ async function main() {
     const buildMs = ms(t0);
     t0 = performance.now();
     floydWarshall(g);
-    row(`Floyd–Warshall, ${d.bins.length} bins (${d.width}×${d.height} cells)`, `${fmt(ms(t0))} ms`, `${g.nodes.length} nodes, ${g.edges.length} edges, ${g.accessPoints.length} access points; grid → graph ${fmt(buildMs)} ms`);
+    row(
+      `Floyd–Warshall, ${d.bins.length} bins (${d.width}×${d.height} cells)`,
+      `${fmt(ms(t0))} ms`,
+      `${g.nodes.length} nodes, ${g.edges.length} edges, ${g.accessPoints.length} access points; grid → graph ${fmt(buildMs)} ms`,
+    );
   }
 
   // gr24 needs 23 exact stops: beyond the default limit, so it is checked here rather than in tests.
   const gr24 = parseTsplib(readFileSync(path.join(__dirname, "../tests/fixtures/tsplib/gr24.tsp"), "utf8"));
   t0 = performance.now();
-  const tour = heldKarp(gr24, 0, 0, Array.from({ length: 23 }, (_, i) => i + 1));
-  row("gr24 closed tour, Held–Karp, 23 stops", `${fmt(ms(t0))} ms`, `length ${tour.length} (published optimum 1272, TSPLIB, Reinelt 1991); DP table ${mb(heldKarpBytes(23))}; peak RSS ${peakRss()}`);
+  const tour = heldKarp(
+    gr24,
+    0,
+    0,
+    Array.from({ length: 23 }, (_, i) => i + 1),
+  );
+  row(
+    "gr24 closed tour, Held–Karp, 23 stops",
+    `${fmt(ms(t0))} ms`,
+    `length ${tour.length} (published optimum 1272, TSPLIB, Reinelt 1991); DP table ${mb(heldKarpBytes(23))}; peak RSS ${peakRss()}`,
+  );
 
-  const cpu = /model name\s*:\s*(.*)/.exec(readFileSync("/proc/cpuinfo", "utf8"))?.[1] ?? os.cpus()[0]?.model ?? "unknown";
+  const cpu =
+    /model name\s*:\s*(.*)/.exec(readFileSync("/proc/cpuinfo", "utf8"))?.[1] ?? os.cpus()[0]?.model ?? "unknown";
   const nproc = execSync("nproc").toString().trim();
   const table = ["| case | time | notes |", "|---|---|---|", ...rows.map((r) => `| ${r.join(" | ")} |`)].join("\n");
-  const header = `Machine: ${nproc} cores (nproc), ${cpu}, Node ${process.version}, load average at end ${os.loadavg().map((l) => l.toFixed(2)).join(" ")}.`;
+  const header = `Machine: ${nproc} cores (nproc), ${cpu}, Node ${process.version}, load average at end ${os
+    .loadavg()
+    .map((l) => l.toFixed(2))
+    .join(" ")}.`;
   console.log(`${header}\n\n${table}`);
   if (process.argv.includes("--write")) {
     const doc = `# Routing benchmarks

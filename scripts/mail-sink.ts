@@ -17,7 +17,13 @@ const PORT = Number(process.env.MAIL_SINK_PORT || 2525);
 const HOST = "127.0.0.1";
 const MAX_BYTES = 5 * 1024 * 1024;
 
-const addressText = (a: AddressObject | AddressObject[] | undefined) => (a === undefined ? null : [a].flat().map((x) => x.text).join(", "));
+const addressText = (a: AddressObject | AddressObject[] | undefined) =>
+  a === undefined
+    ? null
+    : [a]
+        .flat()
+        .map((x) => x.text)
+        .join(", ");
 
 const server = new SMTPServer({
   secure: false,
@@ -32,7 +38,8 @@ const server = new SMTPServer({
     stream.on("data", (c: Buffer) => chunks.push(c));
     stream.on("error", (e) => callback(e));
     stream.on("end", () => {
-      if (stream.sizeExceeded) return callback(Object.assign(new Error("Message too large for the sink"), { responseCode: 552 }));
+      if (stream.sizeExceeded)
+        return callback(Object.assign(new Error("Message too large for the sink"), { responseCode: 552 }));
       const raw = Buffer.concat(chunks);
       simpleParser(raw)
         .then((parsed) =>

@@ -11,6 +11,20 @@ const orders = demoOrders(items, { days: 1, perDay: 40, seed: 28, startDate: "20
 const local = (iso: string | null) => (iso ? iso.slice(0, 16).replace("T", " ") : "");
 const quote = (s: string) => (/[",]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
 const rows = [["Order number", "Line", "SKU", "Quantity", "Cut-off", "Priority", "Customer reference"]];
-for (const o of orders) o.lines.forEach((l, i) => rows.push([o.orderNumber, String(i + 1), l.sku, String(l.quantity), local(o.cutoffAt), String(o.priority), `${o.customer} / ${o.customerRef}`]));
-writeFileSync("public/demo/bramblegate-orders-2026-11-28.csv", rows.map((r) => r.map(quote).join(",")).join("\r\n") + "\r\n");
+for (const o of orders)
+  o.lines.forEach((l, i) =>
+    rows.push([
+      o.orderNumber,
+      String(i + 1),
+      l.sku,
+      String(l.quantity),
+      local(o.cutoffAt),
+      String(o.priority),
+      `${o.customer} / ${o.customerRef}`,
+    ]),
+  );
+writeFileSync(
+  "public/demo/bramblegate-orders-2026-11-28.csv",
+  rows.map((r) => r.map(quote).join(",")).join("\r\n") + "\r\n",
+);
 console.log(`${orders.length} orders, ${rows.length - 1} lines`);

@@ -19,7 +19,10 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       title="Sign in"
       footer={
         <>
-          <Link href="/forgot-password" className="underline">Forgot your password?</Link> Locked out? Ask your site&apos;s layout admin.
+          <Link href="/forgot-password" className="underline">
+            Forgot your password?
+          </Link>{" "}
+          Locked out? Ask your site&apos;s layout admin.
         </>
       }
     >

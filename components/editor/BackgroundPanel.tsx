@@ -24,7 +24,11 @@ export function BackgroundPanel({ planId, doc, dispatch }: Props) {
     const r = await uploadBackground(planId, file);
     setBusy(false);
     if (!r.ok) setError(r.message);
-    else dispatch({ type: "do", command: { type: "set-background", background: { fileId: r.data.fileId, opacity: bg?.opacity ?? 0.35 } } });
+    else
+      dispatch({
+        type: "do",
+        command: { type: "set-background", background: { fileId: r.data.fileId, opacity: bg?.opacity ?? 0.35 } },
+      });
   }
 
   return (
@@ -53,10 +57,19 @@ export function BackgroundPanel({ planId, doc, dispatch }: Props) {
               max={100}
               step={5}
               value={Math.round(bg.opacity * 100)}
-              onChange={(e) => dispatch({ type: "do", command: { type: "set-background-opacity", opacity: Number(e.target.value) / 100 } })}
+              onChange={(e) =>
+                dispatch({
+                  type: "do",
+                  command: { type: "set-background-opacity", opacity: Number(e.target.value) / 100 },
+                })
+              }
             />
           </label>
-          <button type="button" className="btn-quiet" onClick={() => dispatch({ type: "do", command: { type: "set-background", background: null } })}>
+          <button
+            type="button"
+            className="btn-quiet"
+            onClick={() => dispatch({ type: "do", command: { type: "set-background", background: null } })}
+          >
             Remove picture
           </button>
         </>

@@ -19,8 +19,18 @@ export function BinListPanel({ document }: { document: EditorDocument }) {
   return (
     <section aria-labelledby="bins-title" className="card space-y-3">
       <h2 id="bins-title">Bins</h2>
-      <p className="text-sm text-ink-soft">Level 1 is the floor level; bins from level 3 up usually need a step or ladder. Follow site rules for working at height.</p>
-      <DataTable data={bins} columns={columns} searchLabel="location code or rack run" rowId={(b) => `${b.runId}|${b.bay}|${b.level}|${b.code}`} empty="No bins yet: draw a rack run to add bays and levels." pageSize={15} />
+      <p className="text-sm text-ink-soft">
+        Level 1 is the floor level; bins from level 3 up usually need a step or ladder. Follow site rules for working at
+        height.
+      </p>
+      <DataTable
+        data={bins}
+        columns={columns}
+        searchLabel="location code or rack run"
+        rowId={(b) => `${b.runId}|${b.bay}|${b.level}|${b.code}`}
+        empty="No bins yet: draw a rack run to add bays and levels."
+        pageSize={15}
+      />
     </section>
   );
 }

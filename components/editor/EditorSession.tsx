@@ -45,12 +45,20 @@ export function EditorSession({ planId, canEdit, version, document, onReload }: 
   const checkedDoc = useDeferredValue(doc);
   const problems = useMemo(() => checkDocument(checkedDoc), [checkedDoc]);
   const shownProblems = sync.serverProblems.length > 0 && checkedDoc === doc && !dirty ? sync.serverProblems : problems;
-  const problemCells = useMemo(() => [...new Set(problems.filter((p) => p.severity === "error").flatMap((p) => p.cells))].slice(0, 5000), [problems]);
+  const problemCells = useMemo(
+    () => [...new Set(problems.filter((p) => p.severity === "error").flatMap((p) => p.cells))].slice(0, 5000),
+    [problems],
+  );
 
   const fit = useCallback(() => {
     const box = scrollRef.current;
     if (!box) return;
-    const px = Math.floor(Math.min((box.clientWidth - RULER_PX - 4) / doc.width, (Math.max(box.clientHeight, 320) - RULER_PX - 4) / doc.height));
+    const px = Math.floor(
+      Math.min(
+        (box.clientWidth - RULER_PX - 4) / doc.width,
+        (Math.max(box.clientHeight, 320) - RULER_PX - 4) / doc.height,
+      ),
+    );
     dispatch({ type: "set-zoom", cellPx: px });
   }, [doc.width, doc.height, dispatch]);
   // Fit once on opening; later size changes are the person's own zoom.
@@ -108,7 +116,13 @@ export function EditorSession({ planId, canEdit, version, document, onReload }: 
   }
 
   const errors = hasErrors(problems);
-  const publishBlocked = !canEdit ? "Publishing is for layout admins." : errors ? "Publishing waits until the checks show no errors: fix the ones listed under Checks." : checkedDoc !== doc ? "Checking the latest edit…" : null;
+  const publishBlocked = !canEdit
+    ? "Publishing is for layout admins."
+    : errors
+      ? "Publishing waits until the checks show no errors: fix the ones listed under Checks."
+      : checkedDoc !== doc
+        ? "Checking the latest edit…"
+        : null;
   const bgUrl = doc.background ? backgroundUrl(planId, doc.background.fileId) : null;
 
   return (
@@ -133,13 +147,32 @@ export function EditorSession({ planId, canEdit, version, document, onReload }: 
         <div className="min-w-0 space-y-2">
           <EditorToolbar state={state} dispatch={dispatch} onFit={fit} />
           <p className="text-sm">
-            Scale: 1 cell = {(doc.cellMm / 1000).toLocaleString()} m · plan {((doc.width * doc.cellMm) / 1000).toLocaleString()} × {((doc.height * doc.cellMm) / 1000).toLocaleString()} m ({doc.width} × {doc.height} cells) · zoom {state.cellPx} px per cell
+            Scale: 1 cell = {(doc.cellMm / 1000).toLocaleString()} m · plan{" "}
+            {((doc.width * doc.cellMm) / 1000).toLocaleString()} × {((doc.height * doc.cellMm) / 1000).toLocaleString()}{" "}
+            m ({doc.width} × {doc.height} cells) · zoom {state.cellPx} px per cell
           </p>
-          <EditorCanvas state={state} dispatch={dispatch} problemCells={problemCells} focus={focus} backgroundUrl={bgUrl} pendingRun={pendingRun} onRackDrawn={onRackDrawn} scrollRef={scrollRef} />
+          <EditorCanvas
+            state={state}
+            dispatch={dispatch}
+            problemCells={problemCells}
+            focus={focus}
+            backgroundUrl={bgUrl}
+            pendingRun={pendingRun}
+            onRackDrawn={onRackDrawn}
+            scrollRef={scrollRef}
+          />
           <Legend />
         </div>
         <aside className="min-w-0 space-y-4">
-          <SelectionPanel planId={planId} state={state} dispatch={dispatch} pendingRun={pendingRun} onAddRun={addRun} onCancelRun={() => setPendingRun(null)} ensureSaved={sync.save} />
+          <SelectionPanel
+            planId={planId}
+            state={state}
+            dispatch={dispatch}
+            pendingRun={pendingRun}
+            onAddRun={addRun}
+            onCancelRun={() => setPendingRun(null)}
+            ensureSaved={sync.save}
+          />
           <ChecksPanel problems={shownProblems} onLocate={locate} stale={checkedDoc !== doc} />
           {canEdit && (
             <details className="card">
@@ -163,14 +196,38 @@ export function EditorSession({ planId, canEdit, version, document, onReload }: 
 function Legend() {
   return (
     <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Legend">
-      <li><span className="mr-1 inline-block h-3 w-3 border border-rack bg-paper-raised align-middle" />walkable floor</li>
-      <li><span className="mr-1 inline-block h-3 w-3 bg-ink-soft align-middle" />blocked (hatched)</li>
-      <li><span className="mr-1 inline-block h-3 w-3 bg-paper-sunk align-middle" />outside</li>
-      <li><span className="mr-1 inline-block h-3 w-3 border border-rack bg-rack-light align-middle" />rack run, thick edge = picking side</li>
-      <li><span className="mr-1 font-bold text-signal">↑</span>one-way</li>
-      <li><span className="mr-1 inline-block bg-trail px-1 text-xs font-bold text-white">D</span>depot (square)</li>
-      <li><span className="mr-1 inline-block rotate-45 bg-trail px-1 text-xs font-bold text-white"><span className="inline-block -rotate-45">P</span></span>drop-off (diamond)</li>
-      <li><span className="mr-1 inline-block h-3 w-3 border-2 border-dashed border-alarm align-middle" />cell with a problem</li>
+      <li>
+        <span className="mr-1 inline-block h-3 w-3 border border-rack bg-paper-raised align-middle" />
+        walkable floor
+      </li>
+      <li>
+        <span className="mr-1 inline-block h-3 w-3 bg-ink-soft align-middle" />
+        blocked (hatched)
+      </li>
+      <li>
+        <span className="mr-1 inline-block h-3 w-3 bg-paper-sunk align-middle" />
+        outside
+      </li>
+      <li>
+        <span className="mr-1 inline-block h-3 w-3 border border-rack bg-rack-light align-middle" />
+        rack run, thick edge = picking side
+      </li>
+      <li>
+        <span className="mr-1 font-bold text-signal">↑</span>one-way
+      </li>
+      <li>
+        <span className="mr-1 inline-block bg-trail px-1 text-xs font-bold text-white">D</span>depot (square)
+      </li>
+      <li>
+        <span className="mr-1 inline-block rotate-45 bg-trail px-1 text-xs font-bold text-white">
+          <span className="inline-block -rotate-45">P</span>
+        </span>
+        drop-off (diamond)
+      </li>
+      <li>
+        <span className="mr-1 inline-block h-3 w-3 border-2 border-dashed border-alarm align-middle" />
+        cell with a problem
+      </li>
     </ul>
   );
 }

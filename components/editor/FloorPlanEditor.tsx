@@ -37,7 +37,8 @@ export function FloorPlanEditor({ floorPlanId, canEdit }: Props) {
   return (
     <div className="space-y-3">
       <p className="text-sm text-ink-soft">
-        Draft version {draft.version}, last saved {new Date(draft.updatedAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}
+        Draft version {draft.version}, last saved{" "}
+        {new Date(draft.updatedAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}
         {draft.updatedByName ? ` by ${draft.updatedByName}` : ""}.{" "}
         {latestVersion ? (
           <>
@@ -45,7 +46,9 @@ export function FloorPlanEditor({ floorPlanId, canEdit }: Props) {
             <Link className="underline" href={`/floor-plans/${floorPlanId}/versions/${latestVersion.number}`}>
               layout version {latestVersion.number}
             </Link>
-            , published {new Date(latestVersion.publishedAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}.
+            , published{" "}
+            {new Date(latestVersion.publishedAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}
+            .
           </>
         ) : (
           "Nothing is published yet, so no routes can be planned on this floor."

@@ -27,23 +27,54 @@ export function GridSettings({ doc, dispatch }: { doc: EditorDocument; dispatch:
       <div className="grid grid-cols-3 gap-2">
         <label>
           <span className="label">Width</span>
-          <input className="field" type="number" min={4} max={MAX_SIDE_CELLS} value={width} onChange={(e) => setWidth(Math.trunc(Number(e.target.value)))} />
+          <input
+            className="field"
+            type="number"
+            min={4}
+            max={MAX_SIDE_CELLS}
+            value={width}
+            onChange={(e) => setWidth(Math.trunc(Number(e.target.value)))}
+          />
         </label>
         <label>
           <span className="label">Height</span>
-          <input className="field" type="number" min={4} max={MAX_SIDE_CELLS} value={height} onChange={(e) => setHeight(Math.trunc(Number(e.target.value)))} />
+          <input
+            className="field"
+            type="number"
+            min={4}
+            max={MAX_SIDE_CELLS}
+            value={height}
+            onChange={(e) => setHeight(Math.trunc(Number(e.target.value)))}
+          />
         </label>
         <label>
           <span className="label">Cell (mm)</span>
-          <input className="field" type="number" min={CELL_MM_MIN} max={CELL_MM_MAX} step={50} value={cellMm} onChange={(e) => setCellMm(Math.trunc(Number(e.target.value)))} />
+          <input
+            className="field"
+            type="number"
+            min={CELL_MM_MIN}
+            max={CELL_MM_MAX}
+            step={50}
+            value={cellMm}
+            onChange={(e) => setCellMm(Math.trunc(Number(e.target.value)))}
+          />
         </label>
       </div>
       <p className="text-sm text-ink-soft">
-        {width} × {height} cells = {((width * cellMm) / 1000).toLocaleString()} × {((height * cellMm) / 1000).toLocaleString()} m. Growing or cropping happens at the right and bottom edges.
+        {width} × {height} cells = {((width * cellMm) / 1000).toLocaleString()} ×{" "}
+        {((height * cellMm) / 1000).toLocaleString()} m. Growing or cropping happens at the right and bottom edges.
       </p>
       {problem && <p className="notice-error text-sm">{problem}</p>}
-      {!cellOk && <p className="notice-error text-sm">A cell is {CELL_MM_MIN} to {CELL_MM_MAX} mm.</p>}
-      <button type="submit" className="btn-quiet" disabled={!!problem || !cellOk || (width === doc.width && height === doc.height && cellMm === doc.cellMm)}>
+      {!cellOk && (
+        <p className="notice-error text-sm">
+          A cell is {CELL_MM_MIN} to {CELL_MM_MAX} mm.
+        </p>
+      )}
+      <button
+        type="submit"
+        className="btn-quiet"
+        disabled={!!problem || !cellOk || (width === doc.width && height === doc.height && cellMm === doc.cellMm)}
+      >
         Apply grid size
       </button>
     </form>

@@ -4,7 +4,13 @@ import { useState } from "react";
 import type { EditorPoint } from "@/lib/floor-plan/document";
 import type { PointKind } from "@/lib/floor-plan/commands";
 
-type Props = { point: EditorPoint; kind: PointKind; canEdit: boolean; onRename: (name: string) => void; onDelete: () => void };
+type Props = {
+  point: EditorPoint;
+  kind: PointKind;
+  canEdit: boolean;
+  onRename: (name: string) => void;
+  onDelete: () => void;
+};
 
 /** The selected depot or drop-off: its name (what batches and pick lists show) and removal. */
 export function PointPanel({ point, kind, canEdit, onRename, onDelete }: Props) {
@@ -23,7 +29,13 @@ export function PointPanel({ point, kind, canEdit, onRename, onDelete }: Props) 
       </p>
       <label className="block">
         <span className="label">Name</span>
-        <input className="field" value={name} maxLength={60} onChange={(e) => setName(e.target.value)} disabled={!canEdit} />
+        <input
+          className="field"
+          value={name}
+          maxLength={60}
+          onChange={(e) => setName(e.target.value)}
+          disabled={!canEdit}
+        />
       </label>
       {canEdit && (
         <div className="flex flex-wrap gap-2">

@@ -4,7 +4,15 @@ import Link from "next/link";
 import { JobProgress } from "@/components/JobProgress";
 
 /** Follows a publish job until it is done, failed or cancelled. */
-export function PublishProgress({ planId, jobId, onFinished }: { planId: number; jobId: string; onFinished?: () => void }) {
+export function PublishProgress({
+  planId,
+  jobId,
+  onFinished,
+}: {
+  planId: number;
+  jobId: string;
+  onFinished?: () => void;
+}) {
   return (
     <JobProgress
       jobId={jobId}

@@ -34,7 +34,11 @@ export function RunBinsSpreadsheet({ planId, run, ensureSaved, onCodes }: Props)
     if (r.ok) {
       onCodes(r.data.customCodes);
       const n = r.data.customCodes.length;
-      setDone(n === 0 ? "Every code matches the pattern; nothing to change." : `${n} ${n === 1 ? "code differs" : "codes differ"} from the pattern. Undo takes the import back.`);
+      setDone(
+        n === 0
+          ? "Every code matches the pattern; nothing to change."
+          : `${n} ${n === 1 ? "code differs" : "codes differ"} from the pattern. Undo takes the import back.`,
+      );
     } else {
       const rows = (r.body as { rows?: BadRow[] } | null | undefined)?.rows;
       setError({ message: r.message, rows: Array.isArray(rows) ? rows : [] });
@@ -59,8 +63,16 @@ export function RunBinsSpreadsheet({ planId, run, ensureSaved, onCodes }: Props)
         disabled={busy}
         onFile={(f) => void onFile(f)}
       />
-      {busy && <p className="text-sm" role="status">Reading the sheet…</p>}
-      {done && <p className="notice-info text-sm" role="status">{done}</p>}
+      {busy && (
+        <p className="text-sm" role="status">
+          Reading the sheet…
+        </p>
+      )}
+      {done && (
+        <p className="notice-info text-sm" role="status">
+          {done}
+        </p>
+      )}
       {error && (
         <div className="notice-error text-sm" role="alert">
           <p>{error.message}</p>

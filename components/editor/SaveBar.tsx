@@ -23,7 +23,9 @@ type Props = {
 
 function when(iso: string): string {
   const d = new Date(iso);
-  return Number.isNaN(d.getTime()) ? "just now" : d.toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
+  return Number.isNaN(d.getTime())
+    ? "just now"
+    : d.toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
 }
 
 /** Save and publish, the draft's state, and what the server said. */
@@ -37,7 +39,13 @@ export function SaveBar(p: Props) {
         <button type="button" className="btn-quiet" onClick={p.onSave} disabled={!p.dirty || p.saving}>
           Save draft
         </button>
-        <button type="button" className="btn-primary" onClick={p.onPublish} disabled={!!p.publishBlocked || p.saving || p.publishing} aria-describedby="publish-why">
+        <button
+          type="button"
+          className="btn-primary"
+          onClick={p.onPublish}
+          disabled={!!p.publishBlocked || p.saving || p.publishing}
+          aria-describedby="publish-why"
+        >
           {p.dirty ? "Save and publish" : "Publish"}
         </button>
       </div>
@@ -49,7 +57,8 @@ export function SaveBar(p: Props) {
       {p.conflict && (
         <div className="notice-error space-y-2" role="alert">
           <p>
-            Someone else saved this draft{p.conflict.updatedByName ? ` (${p.conflict.updatedByName})` : ""} at {when(p.conflict.updatedAt)}. Your changes were not saved, and theirs were not overwritten.
+            Someone else saved this draft{p.conflict.updatedByName ? ` (${p.conflict.updatedByName})` : ""} at{" "}
+            {when(p.conflict.updatedAt)}. Your changes were not saved, and theirs were not overwritten.
           </p>
           <div className="flex flex-wrap gap-2">
             <button type="button" className="btn-danger" onClick={p.onReload}>
@@ -62,7 +71,10 @@ export function SaveBar(p: Props) {
         </div>
       )}
       {p.notice && (
-        <div className={p.notice.tone === "error" ? "notice-error" : "notice-info"} role={p.notice.tone === "error" ? "alert" : "status"}>
+        <div
+          className={p.notice.tone === "error" ? "notice-error" : "notice-info"}
+          role={p.notice.tone === "error" ? "alert" : "status"}
+        >
           <p>{p.notice.text}</p>
           <FieldErrors issues={p.notice.issues} />
         </div>

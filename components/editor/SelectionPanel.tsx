@@ -21,11 +21,29 @@ export function SelectionPanel({ planId, state, dispatch, pendingRun, onAddRun, 
   const doc = state.history.present;
   const sel = state.selection;
   const run = sel?.kind === "run" ? doc.rackRuns.find((r) => r.id === sel.id) : undefined;
-  const point = sel && sel.kind !== "run" ? (sel.kind === "depot" ? doc.depots : doc.dropoffs).find((p) => p.id === sel.id) : undefined;
+  const point =
+    sel && sel.kind !== "run"
+      ? (sel.kind === "depot" ? doc.depots : doc.dropoffs).find((p) => p.id === sel.id)
+      : undefined;
 
-  let body: React.ReactNode = <p className="text-sm text-ink-soft">Nothing selected. {state.canEdit ? "Draw a rack run with R, or select one with V." : "Click a rack run to see its numbering."}</p>;
+  let body: React.ReactNode = (
+    <p className="text-sm text-ink-soft">
+      Nothing selected.{" "}
+      {state.canEdit ? "Draw a rack run with R, or select one with V." : "Click a rack run to see its numbering."}
+    </p>
+  );
   if (pendingRun) {
-    body = <RackRunForm key={`new-${pendingRun.x}-${pendingRun.y}-${pendingRun.orientation}-${pendingRun.length}`} doc={doc} run={pendingRun} mode="new" canEdit={state.canEdit} onSubmit={onAddRun} onCancel={onCancelRun} />;
+    body = (
+      <RackRunForm
+        key={`new-${pendingRun.x}-${pendingRun.y}-${pendingRun.orientation}-${pendingRun.length}`}
+        doc={doc}
+        run={pendingRun}
+        mode="new"
+        canEdit={state.canEdit}
+        onSubmit={onAddRun}
+        onCancel={onCancelRun}
+      />
+    );
   } else if (run) {
     const { id, ...rest } = run;
     body = (
@@ -42,7 +60,13 @@ export function SelectionPanel({ planId, state, dispatch, pendingRun, onAddRun, 
           }}
           onDelete={() => dispatch({ type: "delete-selection" })}
         />
-        <RunBinsSpreadsheet key={id} planId={planId} run={{ id, ...rest }} ensureSaved={ensureSaved} onCodes={(customCodes) => dispatch({ type: "do", command: { type: "set-custom-codes", id, customCodes } })} />
+        <RunBinsSpreadsheet
+          key={id}
+          planId={planId}
+          run={{ id, ...rest }}
+          ensureSaved={ensureSaved}
+          onCodes={(customCodes) => dispatch({ type: "do", command: { type: "set-custom-codes", id, customCodes } })}
+        />
       </div>
     );
   } else if (point && sel && sel.kind !== "run") {
@@ -52,14 +76,29 @@ export function SelectionPanel({ planId, state, dispatch, pendingRun, onAddRun, 
         point={point}
         kind={sel.kind}
         canEdit={state.canEdit}
-        onRename={(name) => dispatch({ type: "do", command: { type: "rename-point", kind: sel.kind as "depot" | "dropoff", id: point.id, name } })}
+        onRename={(name) =>
+          dispatch({
+            type: "do",
+            command: { type: "rename-point", kind: sel.kind as "depot" | "dropoff", id: point.id, name },
+          })
+        }
         onDelete={() => dispatch({ type: "delete-selection" })}
       />
     );
   }
   return (
     <section aria-labelledby="selection-title" className="card space-y-3">
-      <h2 id="selection-title">{pendingRun ? "New rack run" : run ? "Rack run" : point ? (sel?.kind === "depot" ? "Depot" : "Drop-off") : "Selection"}</h2>
+      <h2 id="selection-title">
+        {pendingRun
+          ? "New rack run"
+          : run
+            ? "Rack run"
+            : point
+              ? sel?.kind === "depot"
+                ? "Depot"
+                : "Drop-off"
+              : "Selection"}
+      </h2>
       {body}
     </section>
   );

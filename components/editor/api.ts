@@ -8,13 +8,20 @@ export type BadRow = RowProblem;
 
 export const draftUrl = (planId: number) => `/api/floor-plans/${planId}/draft`;
 export const backgroundUrl = (planId: number, fileId: string) => `/api/floor-plans/${planId}/background/${fileId}`;
-export const runBinsUrl = (planId: number, runId: string, format: "xlsx" | "csv") => `/api/floor-plans/${planId}/rack-runs/${encodeURIComponent(runId)}/bins?format=${format}`;
+export const runBinsUrl = (planId: number, runId: string, format: "xlsx" | "csv") =>
+  `/api/floor-plans/${planId}/rack-runs/${encodeURIComponent(runId)}/bins?format=${format}`;
 
-export const saveDraft = (planId: number, version: number, document: EditorDocument) => requestJson<{ version: number }>("PUT", draftUrl(planId), { version, document });
-export const startPublish = (planId: number, version: number) => postJson<{ jobId: string | number }>(`/api/floor-plans/${planId}/publish`, { version });
-export const uploadBackground = (planId: number, file: File) => uploadFile<{ fileId: string }>(`/api/floor-plans/${planId}/background`, file);
+export const saveDraft = (planId: number, version: number, document: EditorDocument) =>
+  requestJson<{ version: number }>("PUT", draftUrl(planId), { version, document });
+export const startPublish = (planId: number, version: number) =>
+  postJson<{ jobId: string | number }>(`/api/floor-plans/${planId}/publish`, { version });
+export const uploadBackground = (planId: number, file: File) =>
+  uploadFile<{ fileId: string }>(`/api/floor-plans/${planId}/background`, file);
 export const importRunBins = (planId: number, runId: string, file: File) =>
-  uploadFile<{ customCodes: RackRun["customCodes"] }>(`/api/floor-plans/${planId}/rack-runs/${encodeURIComponent(runId)}/bins`, file);
+  uploadFile<{ customCodes: RackRun["customCodes"] }>(
+    `/api/floor-plans/${planId}/rack-runs/${encodeURIComponent(runId)}/bins`,
+    file,
+  );
 
 /** Problems the server found when refusing to publish (422). */
 export function publishProblems(r: ApiResult<unknown>): Problem[] {

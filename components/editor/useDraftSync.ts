@@ -13,7 +13,12 @@ export type SyncNotice = { tone: "error" | "info"; text: string; issues?: FieldI
  * Saving and publishing the draft under optimistic locking: every save names the version it was
  * based on, and a 409 is shown to the person, never overwritten.
  */
-export function useDraftSync(planId: number, initialVersion: number, state: EditorState, dispatch: (i: Intent) => void) {
+export function useDraftSync(
+  planId: number,
+  initialVersion: number,
+  state: EditorState,
+  dispatch: (i: Intent) => void,
+) {
   const version = useRef(initialVersion);
   const [saving, setSaving] = useState(false);
   const [publishing, setPublishing] = useState(false);
@@ -65,9 +70,20 @@ export function useDraftSync(planId: number, initialVersion: number, state: Edit
       return;
     }
     if (r.status === 422) setServerProblems(publishProblems(r));
-    if (r.status === 409) setNotice({ tone: "error", text: `${r.message} Reload the draft to see the saved version, then publish again.` });
+    if (r.status === 409)
+      setNotice({ tone: "error", text: `${r.message} Reload the draft to see the saved version, then publish again.` });
     else setNotice({ tone: "error", text: r.message });
   }, [planId, save]);
 
-  return { save, publish, saving, publishing, conflict, dismissConflict: () => setConflict(null), notice, serverProblems, jobId };
+  return {
+    save,
+    publish,
+    saving,
+    publishing,
+    conflict,
+    dismissConflict: () => setConflict(null),
+    notice,
+    serverProblems,
+    jobId,
+  };
 }

@@ -20,14 +20,30 @@ export function FloorDefs({ id }: { id: string }) {
       <pattern id={`${id}-grid`} width="1" height="1" patternUnits="userSpaceOnUse">
         <path d="M 1 0 L 0 0 0 1" fill="none" stroke={C.grid} strokeWidth="0.04" />
       </pattern>
-      <marker id={`${id}-arrow`} viewBox="0 0 10 10" refX="5" refY="5" markerWidth="4" markerHeight="4" orient="auto-start-reverse">
+      <marker
+        id={`${id}-arrow`}
+        viewBox="0 0 10 10"
+        refX="5"
+        refY="5"
+        markerWidth="4"
+        markerHeight="4"
+        orient="auto-start-reverse"
+      >
         <path d="M 0 0 L 10 5 L 0 10 z" fill={C.route} />
       </marker>
     </defs>
   );
 }
 
-export const GroundLayer = memo(function GroundLayer({ doc, id, showGrid }: { doc: EditorDocument; id: string; showGrid: boolean }) {
+export const GroundLayer = memo(function GroundLayer({
+  doc,
+  id,
+  showGrid,
+}: {
+  doc: EditorDocument;
+  id: string;
+  showGrid: boolean;
+}) {
   const rects: React.ReactElement[] = [];
   for (let y = 0; y < doc.height; y++) {
     let x = 0;
@@ -59,11 +75,21 @@ export function RackShape({ run, selected, ghost }: { run: RackRun; selected?: b
   const w = run.orientation === "h" ? run.length : 1;
   const h = run.orientation === "v" ? run.length : 1;
   const dividers: string[] = [];
-  for (let i = 1; i < run.length; i++) dividers.push(run.orientation === "h" ? `M ${i} 0.15 V ${h - 0.15}` : `M 0.15 ${i} H ${w - 0.15}`);
+  for (let i = 1; i < run.length; i++)
+    dividers.push(run.orientation === "h" ? `M ${i} 0.15 V ${h - 0.15}` : `M 0.15 ${i} H ${w - 0.15}`);
   const [x1, y1, x2, y2] = FACE_EDGE[run.facing](w, h);
   return (
     <g transform={`translate(${run.x} ${run.y})`} opacity={ghost ? 0.55 : 1}>
-      <rect x={0.04} y={0.04} width={w - 0.08} height={h - 0.08} fill={C.rack} stroke={selected ? C.selected : C.rackEdge} strokeWidth={selected ? 0.16 : 0.06} strokeDasharray={ghost ? "0.3 0.2" : undefined} />
+      <rect
+        x={0.04}
+        y={0.04}
+        width={w - 0.08}
+        height={h - 0.08}
+        fill={C.rack}
+        stroke={selected ? C.selected : C.rackEdge}
+        strokeWidth={selected ? 0.16 : 0.06}
+        strokeDasharray={ghost ? "0.3 0.2" : undefined}
+      />
       <path d={dividers.join(" ")} stroke={C.rackEdge} strokeWidth={0.04} />
       {/* The thick edge is the side bins are picked from. */}
       <line x1={x1} y1={y1} x2={x2} y2={y2} stroke={C.face} strokeWidth={0.14} />
@@ -71,10 +97,20 @@ export function RackShape({ run, selected, ghost }: { run: RackRun; selected?: b
   );
 }
 
-export const RackLayer = memo(function RackLayer({ runs, selectedId, hiddenId }: { runs: RackRun[]; selectedId?: string | null; hiddenId?: string | null }) {
+export const RackLayer = memo(function RackLayer({
+  runs,
+  selectedId,
+  hiddenId,
+}: {
+  runs: RackRun[];
+  selectedId?: string | null;
+  hiddenId?: string | null;
+}) {
   return (
     <g>
-      {runs.map((run) => (run.id === hiddenId ? null : <RackShape key={run.id} run={run} selected={run.id === selectedId} />))}
+      {runs.map((run) =>
+        run.id === hiddenId ? null : <RackShape key={run.id} run={run} selected={run.id === selectedId} />,
+      )}
     </g>
   );
 });
@@ -87,23 +123,52 @@ export const OneWayLayer = memo(function OneWayLayer({ doc }: { doc: EditorDocum
       {doc.oneWay.map((m) => {
         const x = m.cell % doc.width;
         const y = (m.cell - x) / doc.width;
-        return <path key={m.cell} d="M 0 -0.36 L 0.3 0.04 L 0.1 0.04 L 0.1 0.34 L -0.1 0.34 L -0.1 0.04 L -0.3 0.04 Z" fill={C.oneWay} transform={`translate(${x + 0.5} ${y + 0.5}) rotate(${ARROW_ROTATION[m.dir]})`} />;
+        return (
+          <path
+            key={m.cell}
+            d="M 0 -0.36 L 0.3 0.04 L 0.1 0.04 L 0.1 0.34 L -0.1 0.34 L -0.1 0.04 L -0.3 0.04 Z"
+            fill={C.oneWay}
+            transform={`translate(${x + 0.5} ${y + 0.5}) rotate(${ARROW_ROTATION[m.dir]})`}
+          />
+        );
       })}
     </g>
   );
 });
 
 /** Depots are squares marked D, drop-offs diamonds marked P: told apart by shape and letter, not colour. */
-export function PointMark({ point, kind, selected }: { point: EditorPoint; kind: "depot" | "dropoff"; selected?: boolean }) {
+export function PointMark({
+  point,
+  kind,
+  selected,
+}: {
+  point: EditorPoint;
+  kind: "depot" | "dropoff";
+  selected?: boolean;
+}) {
   const cx = point.x + 0.5;
   const cy = point.y + 0.5;
   return (
     <g>
       <title>{`${kind === "depot" ? "Depot" : "Drop-off"} ${point.name}`}</title>
       {kind === "depot" ? (
-        <rect x={point.x + 0.08} y={point.y + 0.08} width={0.84} height={0.84} rx={0.08} fill={C.point} stroke={selected ? C.face : "none"} strokeWidth={0.12} />
+        <rect
+          x={point.x + 0.08}
+          y={point.y + 0.08}
+          width={0.84}
+          height={0.84}
+          rx={0.08}
+          fill={C.point}
+          stroke={selected ? C.face : "none"}
+          strokeWidth={0.12}
+        />
       ) : (
-        <path d={`M ${cx} ${cy - 0.5} L ${cx + 0.5} ${cy} L ${cx} ${cy + 0.5} L ${cx - 0.5} ${cy} Z`} fill={C.point} stroke={selected ? C.face : "none"} strokeWidth={0.12} />
+        <path
+          d={`M ${cx} ${cy - 0.5} L ${cx + 0.5} ${cy} L ${cx} ${cy + 0.5} L ${cx - 0.5} ${cy} Z`}
+          fill={C.point}
+          stroke={selected ? C.face : "none"}
+          strokeWidth={0.12}
+        />
       )}
       <text x={cx} y={cy + 0.22} textAnchor="middle" fontSize={0.62} fontWeight={700} fill={C.pointText}>
         {kind === "depot" ? "D" : "P"}
@@ -112,25 +177,61 @@ export function PointMark({ point, kind, selected }: { point: EditorPoint; kind:
   );
 }
 
-export function PointsLayer({ doc, selected }: { doc: EditorDocument; selected?: { kind: string; id: string } | null }) {
+export function PointsLayer({
+  doc,
+  selected,
+}: {
+  doc: EditorDocument;
+  selected?: { kind: string; id: string } | null;
+}) {
   return (
     <g>
       {doc.depots.map((p) => (
-        <PointMark key={`d-${p.id}`} point={p} kind="depot" selected={selected?.kind === "depot" && selected.id === p.id} />
+        <PointMark
+          key={`d-${p.id}`}
+          point={p}
+          kind="depot"
+          selected={selected?.kind === "depot" && selected.id === p.id}
+        />
       ))}
       {doc.dropoffs.map((p) => (
-        <PointMark key={`p-${p.id}`} point={p} kind="dropoff" selected={selected?.kind === "dropoff" && selected.id === p.id} />
+        <PointMark
+          key={`p-${p.id}`}
+          point={p}
+          kind="dropoff"
+          selected={selected?.kind === "dropoff" && selected.id === p.id}
+        />
       ))}
     </g>
   );
 }
 
-export function HighlightLayer({ cells, width, strong }: { cells: readonly number[]; width: number; strong?: boolean }) {
+export function HighlightLayer({
+  cells,
+  width,
+  strong,
+}: {
+  cells: readonly number[];
+  width: number;
+  strong?: boolean;
+}) {
   return (
     <g pointerEvents="none">
       {cells.map((c) => {
         const x = c % width;
-        return <rect key={c} x={x + 0.05} y={(c - x) / width + 0.05} width={0.9} height={0.9} fill={C.highlightFill} stroke={C.highlight} strokeWidth={strong ? 0.14 : 0.07} strokeDasharray={strong ? undefined : "0.25 0.15"} />;
+        return (
+          <rect
+            key={c}
+            x={x + 0.05}
+            y={(c - x) / width + 0.05}
+            width={0.9}
+            height={0.9}
+            fill={C.highlightFill}
+            stroke={C.highlight}
+            strokeWidth={strong ? 0.14 : 0.07}
+            strokeDasharray={strong ? undefined : "0.25 0.15"}
+          />
+        );
       })}
     </g>
   );
@@ -151,12 +252,34 @@ export function RouteLayer({ route, width, id }: { route: RouteOverlay; width: n
   const arrows = pts.filter((_p, i) => i > 0 && i % 4 === 0);
   return (
     <g pointerEvents="none">
-      <polyline points={pts.join(" ")} fill="none" stroke={C.route} strokeWidth={0.22} strokeLinejoin="round" strokeLinecap="round" opacity={0.85} markerEnd={`url(#${id}-arrow)`} />
-      <polyline points={arrows.length > 1 ? arrows.join(" ") : ""} fill="none" stroke="none" strokeWidth={0.22} markerMid={`url(#${id}-arrow)`} />
+      <polyline
+        points={pts.join(" ")}
+        fill="none"
+        stroke={C.route}
+        strokeWidth={0.22}
+        strokeLinejoin="round"
+        strokeLinecap="round"
+        opacity={0.85}
+        markerEnd={`url(#${id}-arrow)`}
+      />
+      <polyline
+        points={arrows.length > 1 ? arrows.join(" ") : ""}
+        fill="none"
+        stroke="none"
+        strokeWidth={0.22}
+        markerMid={`url(#${id}-arrow)`}
+      />
       {route.stops.map((s, i) => (
         <g key={`${s.label}-${i}`}>
           <circle cx={s.x + 0.5} cy={s.y + 0.5} r={0.48} fill={C.floor} stroke={C.route} strokeWidth={0.12} />
-          <text x={s.x + 0.5} y={s.y + 0.68} textAnchor="middle" fontSize={s.label.length > 2 ? 0.36 : 0.5} fontWeight={700} fill={C.face}>
+          <text
+            x={s.x + 0.5}
+            y={s.y + 0.68}
+            textAnchor="middle"
+            fontSize={s.label.length > 2 ? 0.36 : 0.5}
+            fontWeight={700}
+            fill={C.face}
+          >
             {s.label}
           </text>
         </g>

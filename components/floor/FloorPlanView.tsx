@@ -2,7 +2,16 @@
 
 import { useId } from "react";
 import type { EditorDocument } from "@/lib/floor-plan/document";
-import { FloorDefs, GroundLayer, HighlightLayer, OneWayLayer, PointsLayer, RackLayer, RouteLayer, type RouteOverlay } from "./FloorLayers";
+import {
+  FloorDefs,
+  GroundLayer,
+  HighlightLayer,
+  OneWayLayer,
+  PointsLayer,
+  RackLayer,
+  RouteLayer,
+  type RouteOverlay,
+} from "./FloorLayers";
 
 type Props = {
   document: EditorDocument;
@@ -17,7 +26,15 @@ type Props = {
 };
 
 /** A read-only drawing of a floor plan that scales to its container's width. */
-export function FloorPlanView({ document: doc, backgroundUrl, highlightCells, route, onCellHover, label = "Floor plan", className }: Props) {
+export function FloorPlanView({
+  document: doc,
+  backgroundUrl,
+  highlightCells,
+  route,
+  onCellHover,
+  label = "Floor plan",
+  className,
+}: Props) {
   const id = useId().replace(/:/g, "");
   const onMove = onCellHover
     ? (e: React.PointerEvent<SVGSVGElement>) => {
@@ -38,11 +55,23 @@ export function FloorPlanView({ document: doc, backgroundUrl, highlightCells, ro
     >
       <FloorDefs id={id} />
       <GroundLayer doc={doc} id={id} showGrid={doc.width <= 120} />
-      {backgroundUrl && <image href={backgroundUrl} x={0} y={0} width={doc.width} height={doc.height} preserveAspectRatio="none" opacity={doc.background?.opacity ?? 0.3} />}
+      {backgroundUrl && (
+        <image
+          href={backgroundUrl}
+          x={0}
+          y={0}
+          width={doc.width}
+          height={doc.height}
+          preserveAspectRatio="none"
+          opacity={doc.background?.opacity ?? 0.3}
+        />
+      )}
       <RackLayer runs={doc.rackRuns} />
       <OneWayLayer doc={doc} />
       <PointsLayer doc={doc} />
-      {highlightCells && highlightCells.length > 0 && <HighlightLayer cells={highlightCells} width={doc.width} strong />}
+      {highlightCells && highlightCells.length > 0 && (
+        <HighlightLayer cells={highlightCells} width={doc.width} strong />
+      )}
       {route && <RouteLayer route={route} width={doc.width} id={id} />}
     </svg>
   );

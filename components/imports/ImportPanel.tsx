@@ -106,7 +106,10 @@ export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
         </a>
       </div>
       {versions.length === 0 ? (
-        <p className="notice-info">No layout version is published yet. Bins are checked against a published layout version: ask a layout admin to publish the floor plan.</p>
+        <p className="notice-info">
+          No layout version is published yet. Bins are checked against a published layout version: ask a layout admin to
+          publish the floor plan.
+        </p>
       ) : (
         <>
           <label className="block max-w-md">
@@ -128,7 +131,13 @@ export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
               ))}
             </select>
           </label>
-          <FileField label="Spreadsheet (.xlsx or .csv)" accept={ACCEPT} disabled={busy !== null} onFile={chooseFile} hint={file ? `Chosen: ${file.name}` : "Nothing is written until you press Import."} />
+          <FileField
+            label="Spreadsheet (.xlsx or .csv)"
+            accept={ACCEPT}
+            disabled={busy !== null}
+            onFile={chooseFile}
+            hint={file ? `Chosen: ${file.name}` : "Nothing is written until you press Import."}
+          />
         </>
       )}
       {busy && (
@@ -146,8 +155,11 @@ export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
         <>
           {answer.duplicate && (
             <p className="notice-info">
-              This exact file was imported on {new Date(answer.duplicate.importedAt).toLocaleString("en-GB")} as “{answer.duplicate.filename}”.
-              {kind === "orders" ? " Importing it again adds nothing." : " Importing it again sets the same SKUs again."}
+              This exact file was imported on {new Date(answer.duplicate.importedAt).toLocaleString("en-GB")} as “
+              {answer.duplicate.filename}”.
+              {kind === "orders"
+                ? " Importing it again adds nothing."
+                : " Importing it again sets the same SKUs again."}
             </p>
           )}
           {headersDiffer || mapping ? (
@@ -164,7 +176,12 @@ export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
       )}
       <ProblemList problems={problems} />
       {answer && (
-        <button type="button" className="btn-primary w-full sm:w-auto" disabled={busy !== null || problems.length > 0 || rows === 0} onClick={() => void runImport()}>
+        <button
+          type="button"
+          className="btn-primary w-full sm:w-auto"
+          disabled={busy !== null || problems.length > 0 || rows === 0}
+          onClick={() => void runImport()}
+        >
           Import {rows} {rows === 1 ? "row" : "rows"}
         </button>
       )}

@@ -2,7 +2,15 @@ import { columnLetter } from "./import-text";
 import type { PreviewAnswer } from "@/lib/contracts/imports";
 
 /** One select per field: which column of the person's sheet holds it. */
-export function MappingFields({ answer, disabled, onChange }: { answer: PreviewAnswer; disabled: boolean; onChange: (key: string, column: number | null) => void }) {
+export function MappingFields({
+  answer,
+  disabled,
+  onChange,
+}: {
+  answer: PreviewAnswer;
+  disabled: boolean;
+  onChange: (key: string, column: number | null) => void;
+}) {
   return (
     <fieldset className="grid gap-3 sm:grid-cols-2">
       <legend className="label">Which column holds each field</legend>

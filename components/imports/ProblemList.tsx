@@ -9,7 +9,8 @@ export function ProblemList({ problems }: { problems: RowProblem[] }) {
   return (
     <div role="alert" className="notice-error">
       <p className="font-semibold">
-        {rows} {rows === 1 ? "row needs" : "rows need"} fixing before anything can be imported. Fix the sheet and choose it again.
+        {rows} {rows === 1 ? "row needs" : "rows need"} fixing before anything can be imported. Fix the sheet and choose
+        it again.
       </p>
       <ul className="mt-2 max-h-72 space-y-1 overflow-y-auto pl-1">
         {problems.slice(0, SHOWN).map((p, i) => (
@@ -18,7 +19,9 @@ export function ProblemList({ problems }: { problems: RowProblem[] }) {
           </li>
         ))}
       </ul>
-      {problems.length > SHOWN && <p className="mt-2">…and {problems.length - SHOWN} more. The first ones usually show the pattern.</p>}
+      {problems.length > SHOWN && (
+        <p className="mt-2">…and {problems.length - SHOWN} more. The first ones usually show the pattern.</p>
+      )}
     </div>
   );
 }

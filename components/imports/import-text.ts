@@ -6,7 +6,8 @@ export function importedSentence(kind: ImportKind, a: ImportAnswer): string {
   if (a.alreadyImported) {
     return `This file was already imported on ${new Date(a.importedAt).toLocaleString("en-GB")} (as “${a.filename}”, ${c.orders ?? 0} orders, ${c.lines ?? 0} lines). Nothing was added again.`;
   }
-  if (kind === "items") return `Imported ${c.items ?? 0} SKUs: ${c.inserted ?? 0} new, ${c.updated ?? 0} updated (their bins replaced).`;
+  if (kind === "items")
+    return `Imported ${c.items ?? 0} SKUs: ${c.inserted ?? 0} new, ${c.updated ?? 0} updated (their bins replaced).`;
   return `Imported ${c.orders ?? 0} orders with ${c.lines ?? 0} order lines.`;
 }
 

@@ -14,8 +14,17 @@ const columns: DataColumn<Item>[] = [
   { accessorKey: "sku", header: "SKU" },
   { accessorKey: "description", header: "Description" },
   { accessorKey: "uom", header: "Unit" },
-  { accessorKey: "unitWeightG", header: "Unit weight (g)", cell: ({ row }) => row.original.unitWeightG.toLocaleString("en-GB") },
-  { id: "bins", accessorFn: (i) => i.bins.join(" "), header: "Pick bins", cell: ({ row }) => row.original.bins.join(", ") || "—" },
+  {
+    accessorKey: "unitWeightG",
+    header: "Unit weight (g)",
+    cell: ({ row }) => row.original.unitWeightG.toLocaleString("en-GB"),
+  },
+  {
+    id: "bins",
+    accessorFn: (i) => i.bins.join(" "),
+    header: "Pick bins",
+    cell: ({ row }) => row.original.bins.join(", ") || "—",
+  },
 ];
 
 /** The item master: its SKUs with their pick bins, export, and (for planners) the import. */
@@ -27,7 +36,9 @@ export function ItemsScreen({ canPlan, versions }: { canPlan: boolean; versions:
     <div className="space-y-6">
       <div className="flex flex-wrap items-center gap-3">
         <p className="grow">
-          {isLoading ? "Loading the item master…" : `${items.length.toLocaleString("en-GB")} SKUs${unbinned ? `, ${unbinned} without a pick bin` : ""}.`}
+          {isLoading
+            ? "Loading the item master…"
+            : `${items.length.toLocaleString("en-GB")} SKUs${unbinned ? `, ${unbinned} without a pick bin` : ""}.`}
         </p>
         <a className="btn-quiet" href="/api/items/export" download>
           Export to .xlsx
@@ -38,8 +49,16 @@ export function ItemsScreen({ canPlan, versions }: { canPlan: boolean; versions:
           {error.message}
         </p>
       )}
-      <DataTable data={items} columns={columns} searchLabel="SKU, description or bin" rowId={(i) => i.sku} empty="No items yet. Download the template, fill it in and import it below." />
-      {canPlan && <ImportPanel kind="items" title="Import the item master" versions={versions} refreshPrefix="/api/items" />}
+      <DataTable
+        data={items}
+        columns={columns}
+        searchLabel="SKU, description or bin"
+        rowId={(i) => i.sku}
+        empty="No items yet. Download the template, fill it in and import it below."
+      />
+      {canPlan && (
+        <ImportPanel kind="items" title="Import the item master" versions={versions} refreshPrefix="/api/items" />
+      )}
     </div>
   );
 }

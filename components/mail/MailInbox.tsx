@@ -29,10 +29,19 @@ function MessageText({ text }: { text: string }) {
 }
 
 export function MailInbox() {
-  const { data, error, isLoading } = useSWR<{ messages: SinkMessage[]; outbox: OutboxState[] }>("/api/mail", swrFetcher, { refreshInterval: 3000 });
+  const { data, error, isLoading } = useSWR<{ messages: SinkMessage[]; outbox: OutboxState[] }>(
+    "/api/mail",
+    swrFetcher,
+    { refreshInterval: 3000 },
+  );
   const [openId, setOpenId] = useState<number | null>(null);
 
-  if (error) return <p role="alert" className="notice-error">{(error as Error).message}</p>;
+  if (error)
+    return (
+      <p role="alert" className="notice-error">
+        {(error as Error).message}
+      </p>
+    );
   if (isLoading || !data) return <p>Loading mail…</p>;
 
   const open = data.messages.find((m) => m.id === openId) ?? null;
@@ -42,11 +51,14 @@ export function MailInbox() {
     <div className="space-y-6">
       {waiting.length > 0 && (
         <section className="card" aria-labelledby="outbox-title">
-          <h2 id="outbox-title" className="mb-2">Not sent yet</h2>
+          <h2 id="outbox-title" className="mb-2">
+            Not sent yet
+          </h2>
           <ul className="space-y-1 text-sm">
             {waiting.map((o) => (
               <li key={o.id}>
-                <strong>{o.status === "failed" ? "Gave up" : "Waiting"}</strong>: “{o.subject}” to {o.to}, {o.attempts} attempt(s)
+                <strong>{o.status === "failed" ? "Gave up" : "Waiting"}</strong>: “{o.subject}” to {o.to}, {o.attempts}{" "}
+                attempt(s)
                 {o.status === "pending" && o.attempts > 0 ? `, next try ${when(o.nextAttemptAt)}` : ""}
                 {o.lastError ? ` (last error: ${o.lastError})` : ""}
               </li>
@@ -57,9 +69,13 @@ export function MailInbox() {
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
         <section aria-labelledby="received-title">
-          <h2 id="received-title" className="mb-2">Received ({data.messages.length})</h2>
+          <h2 id="received-title" className="mb-2">
+            Received ({data.messages.length})
+          </h2>
           {data.messages.length === 0 ? (
-            <p className="text-ink-soft">No mail yet. Invite a user or ask for a password reset, and it shows here within seconds.</p>
+            <p className="text-ink-soft">
+              No mail yet. Invite a user or ask for a password reset, and it shows here within seconds.
+            </p>
           ) : (
             <ul className="divide-y divide-paper-sunk rounded-md border border-paper-sunk">
               {data.messages.map((m) => (

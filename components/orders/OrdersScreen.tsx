@@ -25,16 +25,32 @@ const columns = (timeZone: string): DataColumn<Order>[] => [
     id: "cutoffAt",
     accessorFn: (o) => o.cutoffAt ?? "",
     header: "Cut-off",
-    cell: ({ row }) => (row.original.cutoffAt ? new Date(row.original.cutoffAt).toLocaleString("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" }) : "—"),
+    cell: ({ row }) =>
+      row.original.cutoffAt
+        ? new Date(row.original.cutoffAt).toLocaleString("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" })
+        : "—",
   },
   { accessorKey: "lineCount", header: "Lines" },
   { accessorKey: "status", header: "Status" },
   // Set when a released wave handed the order back because no batch could hold it.
-  { id: "note", accessorFn: (o) => o.note ?? "", header: "Why it is open again", cell: ({ row }) => (row.original.note ? <span className="block min-w-72 text-sm">⚠ {row.original.note}</span> : "") },
+  {
+    id: "note",
+    accessorFn: (o) => o.note ?? "",
+    header: "Why it is open again",
+    cell: ({ row }) => (row.original.note ? <span className="block min-w-72 text-sm">⚠ {row.original.note}</span> : ""),
+  },
 ];
 
 /** Orders by status, and (for planners) the order lines import. Cut-offs show in the site's time. */
-export function OrdersScreen({ canPlan, versions, timeZone }: { canPlan: boolean; versions: VersionOption[]; timeZone: string }) {
+export function OrdersScreen({
+  canPlan,
+  versions,
+  timeZone,
+}: {
+  canPlan: boolean;
+  versions: VersionOption[];
+  timeZone: string;
+}) {
   const [status, setStatus] = useState<(typeof STATUSES)[number]["value"]>("open");
   const { data, error, isLoading } = useSWR<{ orders: Order[] }>(`/api/orders?status=${status}`, swrFetcher);
   const orders = useMemo(() => data?.orders ?? [], [data]);
@@ -53,15 +69,27 @@ export function OrdersScreen({ canPlan, versions, timeZone }: { canPlan: boolean
             ))}
           </select>
         </label>
-        <p className="pb-3">{isLoading ? "Loading orders…" : `${orders.length.toLocaleString("en-GB")} orders, ${lines.toLocaleString("en-GB")} order lines. Cut-offs in ${timeZone} time.`}</p>
+        <p className="pb-3">
+          {isLoading
+            ? "Loading orders…"
+            : `${orders.length.toLocaleString("en-GB")} orders, ${lines.toLocaleString("en-GB")} order lines. Cut-offs in ${timeZone} time.`}
+        </p>
       </div>
       {error && (
         <p role="alert" className="notice-error">
           {error.message}
         </p>
       )}
-      <DataTable data={orders} columns={cols} searchLabel="order or customer reference" rowId={(o) => String(o.id)} empty="No orders with this status. Import order lines below." />
-      {canPlan && <ImportPanel kind="orders" title="Import order lines" versions={versions} refreshPrefix="/api/orders" />}
+      <DataTable
+        data={orders}
+        columns={cols}
+        searchLabel="order or customer reference"
+        rowId={(o) => String(o.id)}
+        empty="No orders with this status. Import order lines below."
+      />
+      {canPlan && (
+        <ImportPanel kind="orders" title="Import order lines" versions={versions} refreshPrefix="/api/orders" />
+      )}
     </div>
   );
 }

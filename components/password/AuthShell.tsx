@@ -1,7 +1,15 @@
 import { Logo } from "@/components/Logo";
 
 /** The frame of the pages people see before they are signed in (like the sign-in page). */
-export function AuthShell({ title, children, footer }: { title: string; children: React.ReactNode; footer?: React.ReactNode }) {
+export function AuthShell({
+  title,
+  children,
+  footer,
+}: {
+  title: string;
+  children: React.ReactNode;
+  footer?: React.ReactNode;
+}) {
   return (
     <main className="mx-auto flex min-h-screen max-w-md flex-col justify-center px-5 py-10">
       <div className="mb-8 flex items-center gap-3">

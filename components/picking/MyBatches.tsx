@@ -11,7 +11,10 @@ type Answer = { batches: MyBatchDTO[]; next: MyBatchDTO | null };
 
 /** The picker's batches with their progress, and the button that takes the next one off the wave. */
 export function MyBatches({ initial }: { initial: Answer }) {
-  const { data, mutate } = useSWR<Answer>("/api/my-batches", swrFetcher, { fallbackData: initial, refreshInterval: 30_000 });
+  const { data, mutate } = useSWR<Answer>("/api/my-batches", swrFetcher, {
+    fallbackData: initial,
+    refreshInterval: 30_000,
+  });
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<{ kind: "error" | "info"; text: string } | null>(null);
   const { batches, next } = data ?? initial;
@@ -20,7 +23,9 @@ export function MyBatches({ initial }: { initial: Answer }) {
     if (!next) return;
     setBusy(true);
     setMessage(null);
-    const r = await postJson<{ batch: { number: number; waveName: string } }>(`/api/batches/${next.id}/take`, { version: next.version });
+    const r = await postJson<{ batch: { number: number; waveName: string } }>(`/api/batches/${next.id}/take`, {
+      version: next.version,
+    });
     setBusy(false);
     if (r.ok) setMessage({ kind: "info", text: `Batch ${r.data.batch.number} of ${r.data.batch.waveName} is yours.` });
     else setMessage({ kind: "error", text: r.message });
@@ -32,7 +37,11 @@ export function MyBatches({ initial }: { initial: Answer }) {
     setMessage(null);
     const r = await postJson<unknown>(`/api/batches/${b.id}/give-back`, { version: b.version });
     setBusy(false);
-    if (r.ok) setMessage({ kind: "info", text: `Batch ${b.number} is back in the pool for the next picker.${b.lineCount > b.openLines ? " Leave the cart at the depot with its totes as they are: the lines you picked stay picked." : ""}` });
+    if (r.ok)
+      setMessage({
+        kind: "info",
+        text: `Batch ${b.number} is back in the pool for the next picker.${b.lineCount > b.openLines ? " Leave the cart at the depot with its totes as they are: the lines you picked stay picked." : ""}`,
+      });
     else setMessage({ kind: "error", text: r.message });
     await mutate();
   }
@@ -40,7 +49,10 @@ export function MyBatches({ initial }: { initial: Answer }) {
   return (
     <div className="space-y-4">
       {message && (
-        <p role={message.kind === "error" ? "alert" : "status"} className={message.kind === "error" ? "notice-error" : "notice-info"}>
+        <p
+          role={message.kind === "error" ? "alert" : "status"}
+          className={message.kind === "error" ? "notice-error" : "notice-info"}
+        >
           {message.text}
         </p>
       )}
@@ -61,13 +73,19 @@ export function MyBatches({ initial }: { initial: Answer }) {
                 </p>
                 <p className="text-sm text-ink-soft">{b.waveName}</p>
                 <p className="mt-1">
-                  {b.stopCount} stops, {b.lineCount} lines: {done} of {b.lineCount} done{b.shortLines ? `, ${b.shortLines} short` : ""}
+                  {b.stopCount} stops, {b.lineCount} lines: {done} of {b.lineCount} done
+                  {b.shortLines ? `, ${b.shortLines} short` : ""}
                 </p>
                 <ProgressBar className="mt-2" label={`Batch ${b.number} progress`} value={done} max={b.lineCount} />
                 <Link className="btn-primary mt-3 w-full" href={`/pick/${b.id}`}>
                   {b.status === "picking" ? "Continue picking" : "Start picking"} batch {b.number}
                 </Link>
-                <button type="button" className="btn-quiet mt-2 w-full" onClick={() => void giveBack(b)} disabled={busy}>
+                <button
+                  type="button"
+                  className="btn-quiet mt-2 w-full"
+                  onClick={() => void giveBack(b)}
+                  disabled={busy}
+                >
                   Give back batch {b.number}
                 </button>
               </li>

@@ -9,7 +9,14 @@ import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { EditorDocument } from "@/lib/floor-plan/document";
 import type { PickLineState } from "@/lib/contracts/picking";
 import type { PickViewDTO } from "@/lib/contracts/picking";
-import { CAUTION_TEXT, lineForScan, SHORT_REASONS, tapHoldMs, walkingOrder, type ShortReason } from "@/lib/picking/rules";
+import {
+  CAUTION_TEXT,
+  lineForScan,
+  SHORT_REASONS,
+  tapHoldMs,
+  walkingOrder,
+  type ShortReason,
+} from "@/lib/picking/rules";
 import type { PickAction } from "@/lib/picking/queue";
 import { usePickQueue } from "@/components/picking/usePickQueue";
 
@@ -32,7 +39,12 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   const [armed, setArmed] = useState<number | null>(null);
   const armedRef = useRef<number | null>(null);
   const lastBin = useRef<string | null>(null);
-  const { waiting, statusOf, record: queueRecord, flush } = usePickQueue({
+  const {
+    waiting,
+    statusOf,
+    record: queueRecord,
+    flush,
+  } = usePickQueue({
     batchId,
     batchVersion: view.batch.version,
     revalidate: mutate,
@@ -40,8 +52,17 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   });
 
   const stateOf = useCallback((l: PickLineState) => statusOf(l.orderLineId, l.pickStatus), [statusOf]);
-  const order = useMemo(() => walkingOrder(view.stops.map((s) => s.seq), skipped), [view.stops, skipped]);
-  const openStops = order.map((seq) => view.stops.find((s) => s.seq === seq)!).filter((s) => s.lines.some((l) => stateOf(l) === "open"));
+  const order = useMemo(
+    () =>
+      walkingOrder(
+        view.stops.map((s) => s.seq),
+        skipped,
+      ),
+    [view.stops, skipped],
+  );
+  const openStops = order
+    .map((seq) => view.stops.find((s) => s.seq === seq)!)
+    .filter((s) => s.lines.some((l) => stateOf(l) === "open"));
   const stop = openStops[0] ?? null;
   const nextStop = openStops[1] ?? null;
   const line = stop?.lines.find((l) => stateOf(l) === "open") ?? null;
@@ -56,10 +77,13 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
     armedRef.current = null;
     setArmed(null);
     if (shownId === null || shownBin === null) return;
-    const timer = setTimeout(() => {
-      armedRef.current = shownId;
-      setArmed(shownId);
-    }, tapHoldMs(lastBin.current, shownBin));
+    const timer = setTimeout(
+      () => {
+        armedRef.current = shownId;
+        setArmed(shownId);
+      },
+      tapHoldMs(lastBin.current, shownBin),
+    );
     return () => clearTimeout(timer);
   }, [shownId, shownBin]);
 
@@ -91,7 +115,10 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
       focusScan();
       return;
     }
-    setFeedback({ kind: "ok", text: `${target.quantity} ${target.uom} ${target.sku} from bin ${target.binCode} into tote ${target.tote}: picked.` });
+    setFeedback({
+      kind: "ok",
+      text: `${target.quantity} ${target.uom} ${target.sku} from bin ${target.binCode} into tote ${target.tote}: picked.`,
+    });
     record(target, { orderLineId: target.orderLineId, scan: value, quantity: target.quantity });
   }
 
@@ -107,7 +134,10 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
     if (!line) return;
     const qty = Math.max(0, Math.min(line.quantity - 1, Math.floor(shortQty)));
     setShortOpen(false);
-    setFeedback({ kind: "ok", text: `Short pick recorded: ${qty} of ${line.quantity} ${line.uom} ${line.sku} (${shortReason}).` });
+    setFeedback({
+      kind: "ok",
+      text: `Short pick recorded: ${qty} of ${line.quantity} ${line.uom} ${line.sku} (${shortReason}).`,
+    });
     record(line, { orderLineId: line.orderLineId, quantity: qty, short: { reason: shortReason } });
   }
 
@@ -120,9 +150,14 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   }
 
   const waitingNote = waiting > 0 && (
-    <p className="notice-info flex flex-wrap items-center justify-between gap-2" role="status" data-testid="queue-waiting">
+    <p
+      className="notice-info flex flex-wrap items-center justify-between gap-2"
+      role="status"
+      data-testid="queue-waiting"
+    >
       <span>
-        {waiting} confirmation{waiting === 1 ? "" : "s"} waiting to send; {waiting === 1 ? "it goes" : "they go"} out by {waiting === 1 ? "itself" : "themselves"} when the server answers again
+        {waiting} confirmation{waiting === 1 ? "" : "s"} waiting to send; {waiting === 1 ? "it goes" : "they go"} out by{" "}
+        {waiting === 1 ? "itself" : "themselves"} when the server answers again
       </span>
       <button type="button" className="btn-quiet" onClick={() => void flush()}>
         Send now
@@ -133,7 +168,11 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
   const progress = (
     <div>
       <p className="flex justify-between text-sm font-semibold">
-        <span data-testid="stop-progress">{stop ? `Stop ${doneStops + 1} of ${view.stops.length}` : `${view.stops.length} of ${view.stops.length} stops`}</span>
+        <span data-testid="stop-progress">
+          {stop
+            ? `Stop ${doneStops + 1} of ${view.stops.length}`
+            : `${view.stops.length} of ${view.stops.length} stops`}
+        </span>
         <span className="text-ink-soft">
           Batch {view.batch.number} · {view.batch.waveName}
         </span>
@@ -155,7 +194,13 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
           </p>
         )}
         {waitingNote}
-        {doc && <FloorPlanView document={doc} route={{ cells: view.finalLeg.cells, stops: [] }} label={`Path to ${view.dropoff}`} />}
+        {doc && (
+          <FloorPlanView
+            document={doc}
+            route={{ cells: view.finalLeg.cells, stops: [] }}
+            label={`Path to ${view.dropoff}`}
+          />
+        )}
         <Link className="btn-primary w-full" href="/my-batches">
           Back to my batches
         </Link>
@@ -191,7 +236,11 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
           {stop.lines.map((l) => {
             const st = stateOf(l);
             return (
-              <li key={l.orderLineId} className={`rounded-md border-2 p-3 ${l === line ? "border-trail" : "border-rack-light"}`} data-testid="stop-line">
+              <li
+                key={l.orderLineId}
+                className={`rounded-md border-2 p-3 ${l === line ? "border-trail" : "border-rack-light"}`}
+                data-testid="stop-line"
+              >
                 <p className="font-mono text-lg font-semibold" data-testid="line-bin">
                   Bin {l.binCode}
                 </p>
@@ -200,7 +249,8 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
                 </p>
                 <p>{l.description}</p>
                 <p className="text-lg">
-                  Into tote <span className="font-bold">{l.tote}</span> <span className="text-sm text-ink-soft">({l.orderNumber})</span>
+                  Into tote <span className="font-bold">{l.tote}</span>{" "}
+                  <span className="text-sm text-ink-soft">({l.orderNumber})</span>
                 </p>
                 {st !== "open" && <p className="font-semibold">✓ {st === "short" ? "short" : "picked"}</p>}
               </li>
@@ -215,7 +265,11 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
       </section>
 
       {feedback && (
-        <p role={feedback.kind === "ok" ? "status" : "alert"} data-testid={feedback.kind === "wrong" ? "wrong-scan" : "feedback"} className={feedback.kind === "ok" ? "notice-info" : "notice-error font-semibold"}>
+        <p
+          role={feedback.kind === "ok" ? "status" : "alert"}
+          data-testid={feedback.kind === "wrong" ? "wrong-scan" : "feedback"}
+          className={feedback.kind === "ok" ? "notice-info" : "notice-error font-semibold"}
+        >
           {feedback.kind === "ok" ? "✓ " : "✕ "}
           {feedback.text}
         </p>
@@ -225,9 +279,26 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
         <label className="label" htmlFor="scan">
           Scan the bin or the SKU
         </label>
-        <input id="scan" ref={scanRef} className="field font-mono text-xl" autoFocus autoComplete="off" autoCapitalize="characters" spellCheck={false} enterKeyHint="done" value={scan} onChange={(e) => setScan(e.target.value)} />
+        <input
+          id="scan"
+          ref={scanRef}
+          className="field font-mono text-xl"
+          autoFocus
+          autoComplete="off"
+          autoCapitalize="characters"
+          spellCheck={false}
+          enterKeyHint="done"
+          value={scan}
+          onChange={(e) => setScan(e.target.value)}
+        />
       </form>
-      <button type="button" className="btn-primary min-h-16 w-full text-xl" onClick={onTap} disabled={armed !== line.orderLineId} data-line-id={line.orderLineId}>
+      <button
+        type="button"
+        className="btn-primary min-h-16 w-full text-xl"
+        onClick={onTap}
+        disabled={armed !== line.orderLineId}
+        data-line-id={line.orderLineId}
+      >
         Picked {line.quantity} {line.uom} from {line.binCode}
       </button>
       <div className="grid grid-cols-2 gap-2">
@@ -252,13 +323,27 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
             <label className="label" htmlFor="short-qty">
               Quantity found (0 to {line.quantity - 1})
             </label>
-            <input id="short-qty" className="field" type="number" inputMode="numeric" min={0} max={line.quantity - 1} value={shortQty} onChange={(e) => setShortQty(Number(e.target.value))} />
+            <input
+              id="short-qty"
+              className="field"
+              type="number"
+              inputMode="numeric"
+              min={0}
+              max={line.quantity - 1}
+              value={shortQty}
+              onChange={(e) => setShortQty(Number(e.target.value))}
+            />
           </div>
           <div>
             <label className="label" htmlFor="short-reason">
               Reason
             </label>
-            <select id="short-reason" className="field" value={shortReason} onChange={(e) => setShortReason(e.target.value as ShortReason)}>
+            <select
+              id="short-reason"
+              className="field"
+              value={shortReason}
+              onChange={(e) => setShortReason(e.target.value as ShortReason)}
+            >
               {SHORT_REASONS.map((r) => (
                 <option key={r} value={r}>
                   {r}
@@ -274,13 +359,18 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
 
       {doc && (
         <section aria-label="Map" className="card p-2">
-          <FloorPlanView document={doc} route={{ cells: stop.pathCells, stops: [{ x: stop.x, y: stop.y, label: String(stop.seq) }] }} label={`Path from ${from} to this stop`} />
+          <FloorPlanView
+            document={doc}
+            route={{ cells: stop.pathCells, stops: [{ x: stop.x, y: stop.y, label: String(stop.seq) }] }}
+            label={`Path from ${from} to this stop`}
+          />
           <p className="mt-1 px-2 text-sm text-ink-soft">Path from {from} to this stop.</p>
         </section>
       )}
       {nextStop ? (
         <p className="text-ink-soft" data-testid="next-stop">
-          Next: <span className="font-mono font-semibold">{nextStop.binCodes.join(", ")}</span> — {nextStop.lines.map((l) => `${l.quantity} ${l.uom} ${l.sku}`).join(", ")}
+          Next: <span className="font-mono font-semibold">{nextStop.binCodes.join(", ")}</span> —{" "}
+          {nextStop.lines.map((l) => `${l.quantity} ${l.uom} ${l.sku}`).join(", ")}
         </p>
       ) : (
         <p className="text-ink-soft">Last stop: then to {view.dropoff}.</p>

@@ -3,7 +3,21 @@
 import { useCallback, useEffect, useRef, useState } from "react";
 import { postJson } from "@/lib/client/fetch-json";
 import { newIdempotencyKey } from "@/lib/picking/key";
-import { confirmationFor, enqueue, flushQueue, lineStatus, marksAfterAnswer, mergeQueued, outcomeOf, readQueue, refusalText, RETRY_MS, withMark, type LocalMarks, type PickAction } from "@/lib/picking/queue";
+import {
+  confirmationFor,
+  enqueue,
+  flushQueue,
+  lineStatus,
+  marksAfterAnswer,
+  mergeQueued,
+  outcomeOf,
+  readQueue,
+  refusalText,
+  RETRY_MS,
+  withMark,
+  type LocalMarks,
+  type PickAction,
+} from "@/lib/picking/queue";
 
 const store = () => (typeof window === "undefined" ? null : window.localStorage);
 
@@ -95,7 +109,10 @@ export function usePickQueue({ batchId, batchVersion, revalidate, onRefused }: O
     void flush();
   }
 
-  const statusOf = useCallback(<S extends string>(orderLineId: number, serverStatus: S) => lineStatus(marks, orderLineId, serverStatus), [marks]);
+  const statusOf = useCallback(
+    <S extends string>(orderLineId: number, serverStatus: S) => lineStatus(marks, orderLineId, serverStatus),
+    [marks],
+  );
 
   return { waiting, statusOf, record, flush };
 }

@@ -7,20 +7,39 @@ export type PickListProps = PickListData;
 const HEAVY_LINE_G = 15_000;
 
 /** One batch on paper: barcode, totes, stops in walking order with tick boxes, map, cautions. */
-export function PickList({ label, barcodeSvg, waveName, batch, printedBefore, seconds, document, routeCells, dropoff, highLevels }: PickListProps) {
+export function PickList({
+  label,
+  barcodeSvg,
+  waveName,
+  batch,
+  printedBefore,
+  seconds,
+  document,
+  routeCells,
+  dropoff,
+  highLevels,
+}: PickListProps) {
   const lines = batch.stops.flatMap((s) => s.lines.map((l) => ({ ...l, seq: s.seq })));
   const totes = [...new Map(lines.map((l) => [l.tote, l.orderNumber])).entries()].sort((a, b) => a[0] - b[0]);
   const heavy = lines.some((l) => l.unitWeightG * l.quantity >= HEAVY_LINE_G);
   const high = lines.some((l) => highLevels.has(l.binCode));
   return (
-    <article className="pick-list mb-10 break-after-page bg-paper-raised p-6 text-ink print:mb-0 print:p-0" aria-label={`Pick list ${label}`}>
+    <article
+      className="pick-list mb-10 break-after-page bg-paper-raised p-6 text-ink print:mb-0 print:p-0"
+      aria-label={`Pick list ${label}`}
+    >
       <header className="flex flex-wrap items-start justify-between gap-4 border-b-2 border-ink pb-3">
         <div>
           <p className="text-sm">{waveName}</p>
           <h2 className="text-3xl font-bold">Batch {batch.number}</h2>
-          {printedBefore > 0 && <p className="mt-1 inline-block border-2 border-ink px-2 font-bold uppercase">Reprint ({printedBefore + 1}. print)</p>}
+          {printedBefore > 0 && (
+            <p className="mt-1 inline-block border-2 border-ink px-2 font-bold uppercase">
+              Reprint ({printedBefore + 1}. print)
+            </p>
+          )}
           <p className="mt-2 text-sm">
-            {batch.stops.length} stops · {batch.lineCount} lines · {batch.toteCount} totes · {kilograms(batch.weightG)} · walk {metres(batch.distanceMm)} · about {minutes(seconds)}
+            {batch.stops.length} stops · {batch.lineCount} lines · {batch.toteCount} totes · {kilograms(batch.weightG)}{" "}
+            · walk {metres(batch.distanceMm)} · about {minutes(seconds)}
           </p>
         </div>
         <div className="w-64 max-w-full" data-testid="batch-barcode" dangerouslySetInnerHTML={{ __html: barcodeSvg }} />
@@ -42,28 +61,46 @@ export function PickList({ label, barcodeSvg, waveName, batch, printedBefore, se
         <thead>
           <tr className="border-b-2 border-ink">
             {["Stop", "Location", "SKU", "Description", "Qty", "Unit", "Tote", "✓"].map((h) => (
-              <th key={h} scope="col" className="py-1 pr-2">{h}</th>
+              <th key={h} scope="col" className="py-1 pr-2">
+                {h}
+              </th>
             ))}
           </tr>
         </thead>
         <tbody>
           {lines.map((l, i) => (
-            <tr key={`${l.seq}-${l.orderNumber}-${l.sku}-${i}`} className="border-b border-rack break-inside-avoid" data-testid="pick-line">
+            <tr
+              key={`${l.seq}-${l.orderNumber}-${l.sku}-${i}`}
+              className="border-b border-rack break-inside-avoid"
+              data-testid="pick-line"
+            >
               <td className="py-1 pr-2 font-bold">{l.seq}</td>
-              <td className="py-1 pr-2 font-mono font-bold">{l.binCode}{highLevels.has(l.binCode) ? " ▲" : ""}</td>
+              <td className="py-1 pr-2 font-mono font-bold">
+                {l.binCode}
+                {highLevels.has(l.binCode) ? " ▲" : ""}
+              </td>
               <td className="py-1 pr-2 font-mono">{l.sku}</td>
-              <td className="py-1 pr-2">{l.description}{l.unitWeightG * l.quantity >= HEAVY_LINE_G ? " (heavy)" : ""}</td>
+              <td className="py-1 pr-2">
+                {l.description}
+                {l.unitWeightG * l.quantity >= HEAVY_LINE_G ? " (heavy)" : ""}
+              </td>
               <td className="py-1 pr-2 text-right font-bold">{l.quantity}</td>
               <td className="py-1 pr-2">{l.uom}</td>
               <td className="py-1 pr-2 text-center font-bold">{l.tote}</td>
-              <td className="py-1"><span className="inline-block h-5 w-5 border-2 border-ink" aria-label="tick when picked" /></td>
+              <td className="py-1">
+                <span className="inline-block h-5 w-5 border-2 border-ink" aria-label="tick when picked" />
+              </td>
             </tr>
           ))}
         </tbody>
       </table>
       <p className="mt-2 text-sm font-semibold">Then take the cart to {dropoff}.</p>
       <div className="mt-3 grid grid-cols-[2fr_3fr] gap-4 break-inside-avoid">
-        <FloorPlanView document={document} route={{ cells: routeCells, stops: batch.stops.map((s) => ({ x: s.x, y: s.y, label: String(s.seq) })) }} label={`Route of batch ${batch.number}`} />
+        <FloorPlanView
+          document={document}
+          route={{ cells: routeCells, stops: batch.stops.map((s) => ({ x: s.x, y: s.y, label: String(s.seq) })) }}
+          label={`Route of batch ${batch.number}`}
+        />
         <ul className="list-disc space-y-1 pl-5 text-sm">
           {high && <li>▲ High level: use a step or ladder as your site rules say; never climb the racking.</li>}
           {heavy && <li>Heavy lines: lift at waist height or with two people.</li>}

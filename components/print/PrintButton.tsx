@@ -15,9 +15,15 @@ export function PrintButton({ waveId, numbers, canRecord }: { waveId: number; nu
   }
   return (
     <div className="mb-6 flex flex-wrap items-center gap-3 print:hidden">
-      <button type="button" className="btn-primary" onClick={print}>Print {numbers.length === 1 ? "this pick list" : `${numbers.length} pick lists`}</button>
+      <button type="button" className="btn-primary" onClick={print}>
+        Print {numbers.length === 1 ? "this pick list" : `${numbers.length} pick lists`}
+      </button>
       <span className="text-sm text-ink-soft">Fits A4 and Letter; each batch starts on a new page.</span>
-      {error && <p role="alert" className="notice-error">{error}</p>}
+      {error && (
+        <p role="alert" className="notice-error">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

@@ -43,12 +43,22 @@ export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<
     <form onSubmit={submit} className="card max-w-3xl space-y-4" noValidate aria-labelledby="new-user-title">
       <h2 id="new-user-title">Add a user</h2>
       <div className="grid gap-4 sm:grid-cols-2">
-        <label><span className="label">Name</span><input name="displayName" className="field" required maxLength={120} /></label>
-        <label><span className="label">E-mail address</span><input name="email" type="email" className="field" required /></label>
+        <label>
+          <span className="label">Name</span>
+          <input name="displayName" className="field" required maxLength={120} />
+        </label>
+        <label>
+          <span className="label">E-mail address</span>
+          <input name="email" type="email" className="field" required />
+        </label>
         <label>
           <span className="label">Role</span>
           <select name="role" className="field" defaultValue="picker">
-            {ROLES.map((r) => <option key={r} value={r}>{ROLE_LABEL[r]}</option>)}
+            {ROLES.map((r) => (
+              <option key={r} value={r}>
+                {ROLE_LABEL[r]}
+              </option>
+            ))}
           </select>
         </label>
         <fieldset>
@@ -58,24 +68,38 @@ export function NewUserForm({ onCreated }: { onCreated: (u: UserDTO) => Promise<
             Send an invitation mail; they choose it
           </label>
           <label className="flex min-h-tap items-center gap-2">
-            <input type="radio" name="how" checked={!invite} onChange={() => setInvite(false)} />
-            I give a first password
+            <input type="radio" name="how" checked={!invite} onChange={() => setInvite(false)} />I give a first password
           </label>
         </fieldset>
         {!invite && (
           <label>
-            <span className="label">First password (at least 12 characters, not a common one, nor their name or address)</span>
-            <input name="password" type="password" autoComplete="new-password" className="field" required minLength={12} />
+            <span className="label">
+              First password (at least 12 characters, not a common one, nor their name or address)
+            </span>
+            <input
+              name="password"
+              type="password"
+              autoComplete="new-password"
+              className="field"
+              required
+              minLength={12}
+            />
           </label>
         )}
       </div>
       <FailureNotice failure={failure} />
       {done && (
         <p role="status" className="notice-info">
-          {done} Sent mail is listed under <Link href="/admin/mail" className="underline">Mail</Link>.
+          {done} Sent mail is listed under{" "}
+          <Link href="/admin/mail" className="underline">
+            Mail
+          </Link>
+          .
         </p>
       )}
-      <button type="submit" className="btn-primary" disabled={busy}>{busy ? "Adding…" : invite ? "Add and invite" : "Add user"}</button>
+      <button type="submit" className="btn-primary" disabled={busy}>
+        {busy ? "Adding…" : invite ? "Add and invite" : "Add user"}
+      </button>
     </form>
   );
 }

@@ -35,10 +35,18 @@ export function UsersAdmin({ myId }: { myId: string }) {
               value={u.role}
               disabled={u.id === myId}
               title={u.id === myId ? "You cannot change your own role" : undefined}
-              onChange={(e) => change(u, { role: e.target.value as Role }, `${u.displayName} is now ${ROLE_LABEL[e.target.value as Role].toLowerCase()}; their sessions were ended.`)}
+              onChange={(e) =>
+                change(
+                  u,
+                  { role: e.target.value as Role },
+                  `${u.displayName} is now ${ROLE_LABEL[e.target.value as Role].toLowerCase()}; their sessions were ended.`,
+                )
+              }
             >
               {ROLES.map((r) => (
-                <option key={r} value={r}>{ROLE_LABEL[r]}</option>
+                <option key={r} value={r}>
+                  {ROLE_LABEL[r]}
+                </option>
               ))}
             </select>
           );
@@ -50,10 +58,19 @@ export function UsersAdmin({ myId }: { myId: string }) {
         header: "Status",
         cell: ({ getValue }) => {
           const v = String(getValue());
-          return <span className={v === "Disabled" ? "font-semibold text-alarm" : "font-semibold text-trail-dark"}>{v === "Disabled" ? "✕ Disabled" : "✓ Active"}</span>;
+          return (
+            <span className={v === "Disabled" ? "font-semibold text-alarm" : "font-semibold text-trail-dark"}>
+              {v === "Disabled" ? "✕ Disabled" : "✓ Active"}
+            </span>
+          );
         },
       },
-      { id: "lastSignIn", accessorFn: (u) => u.lastSignInAt ?? "", header: "Last sign-in", cell: ({ row }) => when(row.original.lastSignInAt) },
+      {
+        id: "lastSignIn",
+        accessorFn: (u) => u.lastSignInAt ?? "",
+        header: "Last sign-in",
+        cell: ({ row }) => when(row.original.lastSignInAt),
+      },
       {
         id: "actions",
         header: "Actions",
@@ -62,9 +79,21 @@ export function UsersAdmin({ myId }: { myId: string }) {
           const u = row.original;
           if (u.id === myId) return <span className="text-sm text-ink-soft">This is you</span>;
           return u.disabled ? (
-            <button type="button" className="btn-quiet" onClick={() => change(u, { disabled: false }, `${u.displayName} can sign in again.`)}>Enable</button>
+            <button
+              type="button"
+              className="btn-quiet"
+              onClick={() => change(u, { disabled: false }, `${u.displayName} can sign in again.`)}
+            >
+              Enable
+            </button>
           ) : (
-            <button type="button" className="btn-danger" onClick={() => change(u, { disabled: true }, `${u.displayName} is disabled and signed out.`)}>Disable</button>
+            <button
+              type="button"
+              className="btn-danger"
+              onClick={() => change(u, { disabled: true }, `${u.displayName} is disabled and signed out.`)}
+            >
+              Disable
+            </button>
           );
         },
       },
@@ -74,18 +103,34 @@ export function UsersAdmin({ myId }: { myId: string }) {
   return (
     <div className="space-y-6">
       {message && (
-        <div role={message.kind === "error" ? "alert" : "status"} className={message.kind === "error" ? "notice-error" : "notice-info"}>
+        <div
+          role={message.kind === "error" ? "alert" : "status"}
+          className={message.kind === "error" ? "notice-error" : "notice-info"}
+        >
           {message.text}
         </div>
       )}
       {error ? (
-        <div role="alert" className="notice-error">Could not load the users: {(error as Error).message}</div>
+        <div role="alert" className="notice-error">
+          Could not load the users: {(error as Error).message}
+        </div>
       ) : isLoading || !data ? (
         <p className="text-ink-soft">Loading users…</p>
       ) : (
-        <DataTable data={data.users} columns={columns} rowId={(u) => u.id} searchLabel="name, e-mail or role" empty="No users yet." />
+        <DataTable
+          data={data.users}
+          columns={columns}
+          rowId={(u) => u.id}
+          searchLabel="name, e-mail or role"
+          empty="No users yet."
+        />
       )}
-      <NewUserForm onCreated={async (u) => { setMessage({ kind: "info", text: `Added ${u.displayName} (${u.email}).` }); await mutate(); }} />
+      <NewUserForm
+        onCreated={async (u) => {
+          setMessage({ kind: "info", text: `Added ${u.displayName} (${u.email}).` });
+          await mutate();
+        }}
+      />
     </div>
   );
 }

@@ -22,16 +22,32 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
   const layout = layouts.find((l) => l.id === layoutId);
   const cutoffIso = isoOf(cutoff);
   // The same filter the wave is created with, so the count shown is the count taken.
-  const previewQuery = priorities.length === 0 ? null : new URLSearchParams({ layoutVersionId: String(layoutId), priorities: priorities.join(","), ...(cutoffIso ? { cutoffBefore: cutoffIso } : {}) }).toString();
+  const previewQuery =
+    priorities.length === 0
+      ? null
+      : new URLSearchParams({
+          layoutVersionId: String(layoutId),
+          priorities: priorities.join(","),
+          ...(cutoffIso ? { cutoffBefore: cutoffIso } : {}),
+        }).toString();
 
   if (layouts.length === 0) {
-    return <p className="notice-info mt-8">Waves are planned on a published floor plan. Ask a layout admin to publish one first.</p>;
+    return (
+      <p className="notice-info mt-8">
+        Waves are planned on a published floor plan. Ask a layout admin to publish one first.
+      </p>
+    );
   }
 
   async function submit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     if (busy) return;
-    if (priorities.length === 0) return setFailure({ ok: false, status: 0, message: "Tick at least one priority: a wave takes orders of the priorities ticked." });
+    if (priorities.length === 0)
+      return setFailure({
+        ok: false,
+        status: 0,
+        message: "Tick at least one priority: a wave takes orders of the priorities ticked.",
+      });
     const f = new FormData(e.currentTarget);
     setBusy(true);
     const r = await postJson<{ id: number }>("/api/waves", {
@@ -57,17 +73,33 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
     <form onSubmit={submit} className="card mt-8 max-w-4xl space-y-5" noValidate aria-labelledby="new-wave">
       <h2 id="new-wave">Start a wave</h2>
       <div className="grid gap-4 sm:grid-cols-2">
-        <label><span className="label">Name</span><input name="name" className="field" required maxLength={120} placeholder="e.g. Tuesday morning" /></label>
+        <label>
+          <span className="label">Name</span>
+          <input name="name" className="field" required maxLength={120} placeholder="e.g. Tuesday morning" />
+        </label>
         <label>
           <span className="label">Layout version</span>
           <select className="field" value={layoutId} onChange={(e) => setLayoutId(Number(e.target.value))}>
-            {layouts.map((l) => <option key={l.id} value={l.id}>{l.label}</option>)}
+            {layouts.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.label}
+              </option>
+            ))}
           </select>
         </label>
       </div>
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="label">Which open orders</legend>
-        <label><span className="label text-sm">Cut-off up to (optional)</span><input name="cutoffBefore" type="datetime-local" className="field" value={cutoff} onChange={(e) => setCutoff(e.target.value)} /></label>
+        <label>
+          <span className="label text-sm">Cut-off up to (optional)</span>
+          <input
+            name="cutoffBefore"
+            type="datetime-local"
+            className="field"
+            value={cutoff}
+            onChange={(e) => setCutoff(e.target.value)}
+          />
+        </label>
         <div className="sm:col-span-2">
           <span className="label text-sm">Priorities</span>
           <div className="flex flex-wrap gap-3">
@@ -78,9 +110,12 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
                   name="priority"
                   value={p}
                   checked={priorities.includes(p)}
-                  onChange={(e) => setPriorities((ps) => (e.target.checked ? [...ps, p].sort() : ps.filter((x) => x !== p)))}
+                  onChange={(e) =>
+                    setPriorities((ps) => (e.target.checked ? [...ps, p].sort() : ps.filter((x) => x !== p)))
+                  }
                   className="h-5 w-5"
-                /> {p === 1 ? "1 (urgent)" : p === 2 ? "2 (normal)" : "3 (low)"}
+                />{" "}
+                {p === 1 ? "1 (urgent)" : p === 2 ? "2 (normal)" : "3 (low)"}
               </label>
             ))}
           </div>
@@ -89,16 +124,37 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
       <WavePreview query={previewQuery} layoutLabel={layout?.label ?? "this layout version"} noCutoff={!cutoffIso} />
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="label">Cart</legend>
-        <label><span className="label text-sm">Totes per cart (one order per tote)</span><input name="totesPerCart" type="number" min={1} max={40} defaultValue={6} className="field" /></label>
-        <label><span className="label text-sm">Most lines per batch</span><input name="maxLines" type="number" min={1} max={500} defaultValue={30} className="field" /></label>
-        <label><span className="label text-sm">Most weight per cart (kg)</span><input name="maxWeightKg" type="number" min={1} step="0.5" defaultValue={120} className="field" /></label>
+        <label>
+          <span className="label text-sm">Totes per cart (one order per tote)</span>
+          <input name="totesPerCart" type="number" min={1} max={40} defaultValue={6} className="field" />
+        </label>
+        <label>
+          <span className="label text-sm">Most lines per batch</span>
+          <input name="maxLines" type="number" min={1} max={500} defaultValue={30} className="field" />
+        </label>
+        <label>
+          <span className="label text-sm">Most weight per cart (kg)</span>
+          <input name="maxWeightKg" type="number" min={1} step="0.5" defaultValue={120} className="field" />
+        </label>
         <label>
           <span className="label text-sm">Carts start at</span>
-          <select name="depotId" className="field">{layout?.depots.map((d) => <option key={d.id} value={d.id}>{d.name} ({d.id})</option>)}</select>
+          <select name="depotId" className="field">
+            {layout?.depots.map((d) => (
+              <option key={d.id} value={d.id}>
+                {d.name} ({d.id})
+              </option>
+            ))}
+          </select>
         </label>
         <label>
           <span className="label text-sm">Carts end at</span>
-          <select name="dropoffId" className="field">{layout?.dropoffs.map((d) => <option key={d.id} value={d.id}>{d.name} ({d.id})</option>)}</select>
+          <select name="dropoffId" className="field">
+            {layout?.dropoffs.map((d) => (
+              <option key={d.id} value={d.id}>
+                {d.name} ({d.id})
+              </option>
+            ))}
+          </select>
         </label>
         <label>
           <span className="label text-sm">Batching</span>
@@ -108,9 +164,14 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
           </select>
         </label>
       </fieldset>
-      <p className="text-sm text-ink-soft">Check the cart weight limit against your site&apos;s rules for pushing carts and lifting; Trailbin does not know them.</p>
+      <p className="text-sm text-ink-soft">
+        Check the cart weight limit against your site&apos;s rules for pushing carts and lifting; Trailbin does not know
+        them.
+      </p>
       <FailureNotice failure={failure} />
-      <button className="btn-primary" disabled={busy}>{busy ? "Creating…" : "Create the wave"}</button>
+      <button className="btn-primary" disabled={busy}>
+        {busy ? "Creating…" : "Create the wave"}
+      </button>
     </form>
   );
 }

@@ -11,11 +11,19 @@ export function SavingsChart({ batches }: { batches: BatchSummaryDTO[] }) {
   return (
     <figure className="card overflow-x-auto">
       <figcaption className="mb-2 font-semibold">
-        Walk per batch: <span className="inline-block h-3 w-3 bg-rack-light align-middle" aria-hidden="true" /> usual order, <span className="inline-block h-3 w-3 bg-trail align-middle" aria-hidden="true" /> planned route
+        Walk per batch: <span className="inline-block h-3 w-3 bg-rack-light align-middle" aria-hidden="true" /> usual
+        order, <span className="inline-block h-3 w-3 bg-trail align-middle" aria-hidden="true" /> planned route
         {batches.length > shown.length ? ` (first ${shown.length} of ${batches.length})` : ""}
       </figcaption>
-      <svg width={shown.length * w + 40} height={h + 24} role="img" aria-label={`Bar chart of ${shown.length} batches: usual walk against planned walk`}>
-        <text x={0} y={10} className="fill-ink-soft text-[10px]">{metres(max)}</text>
+      <svg
+        width={shown.length * w + 40}
+        height={h + 24}
+        role="img"
+        aria-label={`Bar chart of ${shown.length} batches: usual walk against planned walk`}
+      >
+        <text x={0} y={10} className="fill-ink-soft text-[10px]">
+          {metres(max)}
+        </text>
         {shown.map((b, i) => {
           const x = 36 + i * w;
           const base = (b.baselineMm / max) * h;
@@ -24,7 +32,13 @@ export function SavingsChart({ batches }: { batches: BatchSummaryDTO[] }) {
             <g key={b.id}>
               <title>{`Batch ${b.number}: planned ${metres(b.distanceMm)}, usual ${metres(b.baselineMm)}`}</title>
               <rect x={x} y={h - base + 12} width={w - 3} height={base} fill="#dfe4ea" />
-              <rect x={x + Math.floor(w / 5)} y={h - plan + 12} width={Math.max(2, w - 3 - 2 * Math.floor(w / 5))} height={plan} fill="#0e6b58" />
+              <rect
+                x={x + Math.floor(w / 5)}
+                y={h - plan + 12}
+                width={Math.max(2, w - 3 - 2 * Math.floor(w / 5))}
+                height={plan}
+                fill="#0e6b58"
+              />
             </g>
           );
         })}

@@ -24,8 +24,12 @@ export function UnbatchedOrders({ wave }: { wave: WaveDTO }) {
           <caption className="sr-only">Orders no batch holds, and why</caption>
           <thead className="sticky top-0 bg-paper-sunk">
             <tr>
-              <th scope="col" className="px-3 py-2">Order</th>
-              <th scope="col" className="px-3 py-2">Why it could not be batched</th>
+              <th scope="col" className="px-3 py-2">
+                Order
+              </th>
+              <th scope="col" className="px-3 py-2">
+                Why it could not be batched
+              </th>
             </tr>
           </thead>
           <tbody>

@@ -4,7 +4,15 @@ import { useState } from "react";
 import { postJson } from "@/lib/client/fetch-json";
 import { JobProgress } from "@/components/JobProgress";
 
-type Props = { waveId: number; status: "draft" | "planned" | "released"; version: number; canPlan: boolean; batchCount: number; unbatchedCount: number; orderCount: number };
+type Props = {
+  waveId: number;
+  status: "draft" | "planned" | "released";
+  version: number;
+  canPlan: boolean;
+  batchCount: number;
+  unbatchedCount: number;
+  orderCount: number;
+};
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
@@ -12,7 +20,10 @@ const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one :
 function releaseWords(batchCount: number, unbatchedCount: number): { button: string; question: string | null } {
   const orders = plural(unbatchedCount, "order", "orders");
   if (batchCount === 0) {
-    return { button: `Hand all ${orders} back to open`, question: `No order of this wave could be batched, so there is nothing for the pickers. Close the wave and hand its ${orders} back to open orders, with the reasons kept on the orders page?` };
+    return {
+      button: `Hand all ${orders} back to open`,
+      question: `No order of this wave could be batched, so there is nothing for the pickers. Close the wave and hand its ${orders} back to open orders, with the reasons kept on the orders page?`,
+    };
   }
   const batches = plural(batchCount, "batch", "batches");
   if (unbatchedCount === 0) return { button: "Release to pickers", question: null };
@@ -64,14 +75,25 @@ export function WaveActions({ waveId, status, version, canPlan, batchCount, unba
     <div className="card mt-4 space-y-3">
       <p className="font-semibold">
         {status === "draft" && "◌ Draft: not planned yet."}
-        {status === "planned" && "◐ Planned: check the batches, re-plan with other settings, or release them to the pickers."}
-        {status === "released" && (batchCount > 0 ? "● Released: the batches are locked and on the pickers' handhelds." : "● Closed: nothing was batched; its orders went back to open.")}
+        {status === "planned" &&
+          "◐ Planned: check the batches, re-plan with other settings, or release them to the pickers."}
+        {status === "released" &&
+          (batchCount > 0
+            ? "● Released: the batches are locked and on the pickers' handhelds."
+            : "● Closed: nothing was batched; its orders went back to open.")}
       </p>
       {canPlan && status !== "released" && !jobId && (
         <div className="flex flex-wrap gap-2">
-          <button type="button" className="btn-primary" onClick={plan} disabled={busy}>{status === "draft" ? "Plan the wave" : "Re-plan"}</button>
+          <button type="button" className="btn-primary" onClick={plan} disabled={busy}>
+            {status === "draft" ? "Plan the wave" : "Re-plan"}
+          </button>
           {status === "planned" && (
-            <button type="button" className="btn-quiet" onClick={words.question ? () => setAsking(true) : release} disabled={busy || asking}>
+            <button
+              type="button"
+              className="btn-quiet"
+              onClick={words.question ? () => setAsking(true) : release}
+              disabled={busy || asking}
+            >
               {words.button}
             </button>
           )}
@@ -83,11 +105,17 @@ export function WaveActions({ waveId, status, version, canPlan, batchCount, unba
       {discarding && (
         <div className="notice-info space-y-3" role="alertdialog" aria-labelledby="discard-question">
           <p id="discard-question">
-            Discard this wave? Its {orderCount === 1 ? "order goes" : `${orderCount} orders go`} back to open orders, ready for another wave{status === "planned" ? "; its batches and any pick lists printed for them no longer count" : ""}.
+            Discard this wave? Its {orderCount === 1 ? "order goes" : `${orderCount} orders go`} back to open orders,
+            ready for another wave
+            {status === "planned" ? "; its batches and any pick lists printed for them no longer count" : ""}.
           </p>
           <div className="flex flex-wrap gap-2">
-            <button type="button" className="btn-primary" onClick={discard} disabled={busy}>Yes, discard it</button>
-            <button type="button" className="btn-quiet" onClick={() => setDiscarding(false)}>Keep the wave</button>
+            <button type="button" className="btn-primary" onClick={discard} disabled={busy}>
+              Yes, discard it
+            </button>
+            <button type="button" className="btn-quiet" onClick={() => setDiscarding(false)}>
+              Keep the wave
+            </button>
           </div>
         </div>
       )}
@@ -95,8 +123,12 @@ export function WaveActions({ waveId, status, version, canPlan, batchCount, unba
         <div className="notice-info space-y-3" role="alertdialog" aria-labelledby="release-question">
           <p id="release-question">{words.question}</p>
           <div className="flex flex-wrap gap-2">
-            <button type="button" className="btn-primary" onClick={release} disabled={busy}>{batchCount === 0 ? "Yes, hand them back" : "Yes, release"}</button>
-            <button type="button" className="btn-quiet" onClick={() => setAsking(false)}>Not yet</button>
+            <button type="button" className="btn-primary" onClick={release} disabled={busy}>
+              {batchCount === 0 ? "Yes, hand them back" : "Yes, release"}
+            </button>
+            <button type="button" className="btn-quiet" onClick={() => setAsking(false)}>
+              Not yet
+            </button>
           </div>
         </div>
       )}
@@ -109,7 +141,11 @@ export function WaveActions({ waveId, status, version, canPlan, batchCount, unba
           done={(_r, message) => <>{message}. Loading the batches…</>}
         />
       )}
-      {error && <p role="alert" className="notice-error">{error}</p>}
+      {error && (
+        <p role="alert" className="notice-error">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

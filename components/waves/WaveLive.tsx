@@ -22,17 +22,29 @@ export function WaveLive({ initial, timing }: { initial: WaveAnswer; timing: Sit
     <>
       {initial.wave.status === "released" && (
         <p className="mb-3" role="status" aria-live="polite">
-          Picked so far: <span className="font-semibold">{picked} of {lines} lines</span> ({batches.filter((b) => b.status === "done").length} of {batches.length} batches done). Updates by itself.
+          Picked so far:{" "}
+          <span className="font-semibold">
+            {picked} of {lines} lines
+          </span>{" "}
+          ({batches.filter((b) => b.status === "done").length} of {batches.length} batches done). Updates by itself.
         </p>
       )}
       <WaveResults waveId={initial.wave.id} batches={batches} timing={timing} />
       {shortPicks.length > 0 && (
         <section className="mt-6" aria-labelledby="shorts-title">
-          <h2 id="shorts-title" className="mb-2">⚠ Short picks to follow up ({shortPicks.length})</h2>
+          <h2 id="shorts-title" className="mb-2">
+            ⚠ Short picks to follow up ({shortPicks.length})
+          </h2>
           <div className="overflow-x-auto rounded-lg border border-rack-light bg-paper-raised">
             <table className="w-full text-left">
               <thead className="bg-paper-sunk">
-                <tr>{["Batch", "Order", "Bin", "SKU", "Ordered", "Found", "Reason"].map((h) => <th key={h} scope="col" className="px-3 py-2">{h}</th>)}</tr>
+                <tr>
+                  {["Batch", "Order", "Bin", "SKU", "Ordered", "Found", "Reason"].map((h) => (
+                    <th key={h} scope="col" className="px-3 py-2">
+                      {h}
+                    </th>
+                  ))}
+                </tr>
               </thead>
               <tbody>
                 {shortPicks.map((s, i) => (

@@ -7,11 +7,36 @@ import type { WavePreviewDTO } from "@/lib/contracts/waves";
 const n = (x: number) => x.toLocaleString("en-GB");
 
 /** How many orders the wave will take with the filter as it stands, and which lines the layout version cannot reach. */
-export function WavePreview({ query, layoutLabel, noCutoff }: { query: string | null; layoutLabel: string; noCutoff: boolean }) {
-  const { data, error, isLoading } = useSWR<WavePreviewDTO>(query ? `/api/waves/preview?${query}` : null, swrFetcher, { keepPreviousData: true });
-  if (!query) return <p className="notice-error" role="status">Tick at least one priority: a wave takes orders of the priorities ticked.</p>;
-  if (error) return <p className="notice-error" role="status">Could not count the orders: {(error as Error).message}</p>;
-  if (!data) return <p role="status" className="text-ink-soft">{isLoading ? "Counting the open orders…" : ""}</p>;
+export function WavePreview({
+  query,
+  layoutLabel,
+  noCutoff,
+}: {
+  query: string | null;
+  layoutLabel: string;
+  noCutoff: boolean;
+}) {
+  const { data, error, isLoading } = useSWR<WavePreviewDTO>(query ? `/api/waves/preview?${query}` : null, swrFetcher, {
+    keepPreviousData: true,
+  });
+  if (!query)
+    return (
+      <p className="notice-error" role="status">
+        Tick at least one priority: a wave takes orders of the priorities ticked.
+      </p>
+    );
+  if (error)
+    return (
+      <p className="notice-error" role="status">
+        Could not count the orders: {(error as Error).message}
+      </p>
+    );
+  if (!data)
+    return (
+      <p role="status" className="text-ink-soft">
+        {isLoading ? "Counting the open orders…" : ""}
+      </p>
+    );
   const off = data.offLayout;
   return (
     <div className="space-y-2" role="status" aria-live="polite" data-testid="wave-preview">
@@ -19,20 +44,26 @@ export function WavePreview({ query, layoutLabel, noCutoff }: { query: string | 
         {data.orders === 0
           ? "No open order matches: every matching order is already in a wave, or none was imported. Widen the cut-off or priorities."
           : `This wave will take ${n(data.orders)} open ${data.orders === 1 ? "order" : "orders"} (${n(data.lines)} order lines) that no other wave holds.`}
-        {data.orders > 0 && noCutoff && ` No cut-off is set, so that is every open order of the ticked priorities${data.ordersWithoutCutoff > 0 ? `, ${n(data.ordersWithoutCutoff)} of them without any cut-off` : ""}.`}
+        {data.orders > 0 &&
+          noCutoff &&
+          ` No cut-off is set, so that is every open order of the ticked priorities${data.ordersWithoutCutoff > 0 ? `, ${n(data.ordersWithoutCutoff)} of them without any cut-off` : ""}.`}
       </p>
       {off.lines > 0 && (
         <div className="notice-error">
           <p className="font-semibold">
-            ⚠ {n(off.lines)} {off.lines === 1 ? "line" : "lines"} of {n(off.orders)} {off.orders === 1 ? "order picks" : "orders pick"} from bins that are not on {layoutLabel}.
+            ⚠ {n(off.lines)} {off.lines === 1 ? "line" : "lines"} of {n(off.orders)}{" "}
+            {off.orders === 1 ? "order picks" : "orders pick"} from bins that are not on {layoutLabel}.
           </p>
           <p>
-            {off.orders === 1 ? "That order" : "Those orders"} cannot be batched on this layout version. If you release the wave as planned, {off.orders === 1 ? "it goes" : "they go"} back to open orders. Correct the item master&apos;s bins or choose a layout version that has them. For example:
+            {off.orders === 1 ? "That order" : "Those orders"} cannot be batched on this layout version. If you release
+            the wave as planned, {off.orders === 1 ? "it goes" : "they go"} back to open orders. Correct the item
+            master&apos;s bins or choose a layout version that has them. For example:
           </p>
           <ul className="list-disc pl-5">
             {off.examples.map((e, i) => (
               <li key={`${e.orderNumber}-${e.sku}-${i}`}>
-                Order <span className="font-semibold">{e.orderNumber}</span>: {e.sku} {e.binCodes.length ? `is in ${e.binCodes.join(" or ")}` : "has no pick bin in the item master"}
+                Order <span className="font-semibold">{e.orderNumber}</span>: {e.sku}{" "}
+                {e.binCodes.length ? `is in ${e.binCodes.join(" or ")}` : "has no pick bin in the item master"}
               </li>
             ))}
             {off.lines > off.examples.length && <li>and {n(off.lines - off.examples.length)} more</li>}

@@ -9,11 +9,34 @@ import { estimateSeconds, type SiteTiming } from "@/lib/batching/estimate";
 
 type Row = BatchSummaryDTO & { seconds: number };
 
-export function WaveResults({ waveId, batches: summaries, timing }: { waveId: number; batches: BatchSummaryDTO[]; timing: SiteTiming }) {
-  const batches = useMemo<Row[]>(() => summaries.map((b) => ({ ...b, seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing) })), [summaries, timing]);
+export function WaveResults({
+  waveId,
+  batches: summaries,
+  timing,
+}: {
+  waveId: number;
+  batches: BatchSummaryDTO[];
+  timing: SiteTiming;
+}) {
+  const batches = useMemo<Row[]>(
+    () =>
+      summaries.map((b) => ({
+        ...b,
+        seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing),
+      })),
+    [summaries, timing],
+  );
   const columns = useMemo<DataColumn<Row>[]>(
     () => [
-      { accessorKey: "number", header: "Batch", cell: ({ row }) => <Link className="font-semibold underline" href={`/waves/${waveId}/batches/${row.original.number}`}>#{row.original.number}</Link> },
+      {
+        accessorKey: "number",
+        header: "Batch",
+        cell: ({ row }) => (
+          <Link className="font-semibold underline" href={`/waves/${waveId}/batches/${row.original.number}`}>
+            #{row.original.number}
+          </Link>
+        ),
+      },
       { accessorKey: "stopCount", header: "Stops" },
       { accessorKey: "lineCount", header: "Lines" },
       { accessorKey: "toteCount", header: "Totes" },
@@ -21,8 +44,18 @@ export function WaveResults({ waveId, batches: summaries, timing }: { waveId: nu
       { accessorKey: "distanceMm", header: "Walk", cell: ({ row }) => metres(row.original.distanceMm) },
       { accessorKey: "seconds", header: "Est. time", cell: ({ row }) => minutes(row.original.seconds) },
       { accessorKey: "baselineMm", header: "Usual walk", cell: ({ row }) => metres(row.original.baselineMm) },
-      { id: "savings", accessorFn: (b) => (b.baselineMm > 0 ? 1 - b.distanceMm / b.baselineMm : 0), header: "Savings", cell: ({ row }) => savingsPct(row.original.distanceMm, row.original.baselineMm) },
-      { id: "kind", accessorFn: (b) => (b.optimal ? "exact" : "heuristic"), header: "Route", cell: ({ getValue }) => (getValue() === "exact" ? "✓ exact" : "≈ heuristic") },
+      {
+        id: "savings",
+        accessorFn: (b) => (b.baselineMm > 0 ? 1 - b.distanceMm / b.baselineMm : 0),
+        header: "Savings",
+        cell: ({ row }) => savingsPct(row.original.distanceMm, row.original.baselineMm),
+      },
+      {
+        id: "kind",
+        accessorFn: (b) => (b.optimal ? "exact" : "heuristic"),
+        header: "Route",
+        cell: ({ getValue }) => (getValue() === "exact" ? "✓ exact" : "≈ heuristic"),
+      },
       { accessorKey: "status", header: "Status" },
       {
         id: "progress",
@@ -37,5 +70,14 @@ export function WaveResults({ waveId, batches: summaries, timing }: { waveId: nu
     ],
     [waveId],
   );
-  return <DataTable data={batches} columns={columns} rowId={(b) => String(b.id)} searchLabel="batches (route kind, status)" empty="Not planned yet: plan the wave to see its batches." pageSize={20} />;
+  return (
+    <DataTable
+      data={batches}
+      columns={columns}
+      rowId={(b) => String(b.id)}
+      searchLabel="batches (route kind, status)"
+      empty="Not planned yet: plan the wave to see its batches."
+      pageSize={20}
+    />
+  );
 }

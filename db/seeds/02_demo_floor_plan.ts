@@ -18,7 +18,15 @@ export async function seed(knex: Knex): Promise<void> {
     const published = bramblegateDocument();
     const id = await createFloorPlan(site.id, DEMO_FLOOR_PLAN, published, admin?.id ?? null);
     const { graph, matrix } = await buildLayout(published);
-    await insertLayoutVersion({ floorPlanId: id, fromDraftVersion: 1, document: published, graph, matrix, rackRunOfBin: rackRunOfBins(published), userId: admin?.id ?? null });
+    await insertLayoutVersion({
+      floorPlanId: id,
+      fromDraftVersion: 1,
+      document: published,
+      graph,
+      matrix,
+      rackRunOfBin: rackRunOfBins(published),
+      userId: admin?.id ?? null,
+    });
     const saved = await saveDraft(site.id, id, 1, bramblegateDraftDocument(), admin?.id ?? null);
     if (!saved?.ok) throw new Error("could not save the demo draft");
   } finally {

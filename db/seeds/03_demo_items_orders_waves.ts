@@ -25,25 +25,80 @@ export async function seed(knex: Knex): Promise<void> {
   try {
     await knex.transaction(async (trx) => {
       for (const it of items) {
-        const [id] = await trx("items").insert({ site_id: site.id, sku: it.sku, description: it.description, uom: it.unitOfMeasure, unit_weight_g: it.unitWeightG });
+        const [id] = await trx("items").insert({
+          site_id: site.id,
+          sku: it.sku,
+          description: it.description,
+          uom: it.unitOfMeasure,
+          unit_weight_g: it.unitWeightG,
+        });
         await trx("item_bins").insert({ item_id: id, bin_code: it.binCode, rank: 1 });
       }
-      const itemIds = new Map((await trx("items").where({ site_id: site.id }).select("id", "sku")).map((r: { id: number; sku: string }) => [r.sku, r.id]));
+      const itemIds = new Map(
+        (await trx("items").where({ site_id: site.id }).select("id", "sku")).map((r: { id: number; sku: string }) => [
+          r.sku,
+          r.id,
+        ]),
+      );
       for (const o of orders) {
-        const [orderId] = await trx("orders").insert({ site_id: site.id, order_number: o.orderNumber, customer_ref: `${o.customer} / ${o.customerRef}`, priority: o.priority, cutoff_at: o.cutoffAt ? new Date(o.cutoffAt) : null });
-        await trx("order_lines").insert(o.lines.map((l, i) => ({ order_id: orderId, line_no: i + 1, item_id: itemIds.get(l.sku), quantity: l.quantity })));
+        const [orderId] = await trx("orders").insert({
+          site_id: site.id,
+          order_number: o.orderNumber,
+          customer_ref: `${o.customer} / ${o.customerRef}`,
+          priority: o.priority,
+          cutoff_at: o.cutoffAt ? new Date(o.cutoffAt) : null,
+        });
+        await trx("order_lines").insert(
+          o.lines.map((l, i) => ({
+            order_id: orderId,
+            line_no: i + 1,
+            item_id: itemIds.get(l.sku),
+            quantity: l.quantity,
+          })),
+        );
       }
     });
-    const settings: WaveSettings = { ...DEMO_CART_LIMITS, depotId: document.depots[0].id, dropoffId: document.dropoffs[0].id, method: "savings" };
+    const settings: WaveSettings = {
+      ...DEMO_CART_LIMITS,
+      depotId: document.depots[0].id,
+      dropoffId: document.dropoffs[0].id,
+      method: "savings",
+    };
     const ids = async (day: string, before?: string) =>
-      (await knex("orders").where({ site_id: site.id }).where("order_number", "like", `FS-${day}-%`).andWhere((q) => (before ? q.where("cutoff_at", "<=", new Date(before)) : q)).select("id")).map((r: { id: number }) => r.id);
-    const monday = await createWave(site.id, { name: "Monday 23 November", layoutVersionId: version.id, settings, orderIds: await ids("261123") }, planner.id);
-    const tuesday = await createWave(site.id, { name: "Tuesday 24 November, morning", layoutVersionId: version.id, settings, orderIds: await ids("261124", "2026-11-24T12:00:00Z") }, planner.id);
+      (
+        await knex("orders")
+          .where({ site_id: site.id })
+          .where("order_number", "like", `FS-${day}-%`)
+          .andWhere((q) => (before ? q.where("cutoff_at", "<=", new Date(before)) : q))
+          .select("id")
+      ).map((r: { id: number }) => r.id);
+    const monday = await createWave(
+      site.id,
+      { name: "Monday 23 November", layoutVersionId: version.id, settings, orderIds: await ids("261123") },
+      planner.id,
+    );
+    const tuesday = await createWave(
+      site.id,
+      {
+        name: "Tuesday 24 November, morning",
+        layoutVersionId: version.id,
+        settings,
+        orderIds: await ids("261124", "2026-11-24T12:00:00Z"),
+      },
+      planner.id,
+    );
     const { graph, matrix } = await loadLayoutGraph(version.id);
     for (const waveId of [monday, tuesday]) {
       const waveOrders = orders.filter((o) => o.orderNumber.startsWith(waveId === monday ? "FS-261123" : "FS-261124"));
-      const rows = await knex("orders").whereIn("id", knex("wave_orders").where({ wave_id: waveId }).select("order_id")).select("id", "order_number");
-      const lines = await knex("order_lines").whereIn("order_id", rows.map((r: { id: number }) => r.id)).select("id", "order_id", "line_no");
+      const rows = await knex("orders")
+        .whereIn("id", knex("wave_orders").where({ wave_id: waveId }).select("order_id"))
+        .select("id", "order_number");
+      const lines = await knex("order_lines")
+        .whereIn(
+          "order_id",
+          rows.map((r: { id: number }) => r.id),
+        )
+        .select("id", "order_id", "line_no");
       const byNumber = new Map(waveOrders.map((o) => [o.orderNumber, o]));
       // Give the planner's orders their database ids, as the wave planner does.
       const planned: DemoOrder[] = rows.map((r: { id: number; order_number: string }) => {
@@ -51,13 +106,24 @@ export async function seed(knex: Knex): Promise<void> {
         return {
           ...o,
           orderId: r.id,
-          lines: o.lines.map((l, i) => ({ ...l, lineId: lines.find((x: { order_id: number; line_no: number }) => x.order_id === r.id && x.line_no === i + 1).id })),
+          lines: o.lines.map((l, i) => ({
+            ...l,
+            lineId: lines.find((x: { order_id: number; line_no: number }) => x.order_id === r.id && x.line_no === i + 1)
+              .id,
+          })),
         };
       });
-      const result = batchOrders(graph, matrix, planned, DEMO_CART_LIMITS, { method: "savings", from: settings.depotId, to: settings.dropoffId });
+      const result = batchOrders(graph, matrix, planned, DEMO_CART_LIMITS, {
+        method: "savings",
+        from: settings.depotId,
+        to: settings.dropoffId,
+      });
       const byId = new Map(planned.map((o) => [o.orderId, o]));
       const stored = result.batches.map((b) => toStoredBatch(graph, b, byId));
-      const totals = { distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0), baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0) };
+      const totals = {
+        distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0),
+        baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0),
+      };
       const wave = await getWave(site.id, waveId);
       await storePlan(waveId, wave!.version, stored, totals, result.unbatchable);
     }

@@ -37,7 +37,13 @@ export async function requireRole(access: Access, path: string): Promise<SignedI
   const user = await currentUser();
   if (!user) return signInFirst();
   if (!roleMay(user.role, access)) {
-    await audit({ event: "access.denied", actorUserId: user.id, subject: path, ip: clientIp(await headers()), detail: { access } });
+    await audit({
+      event: "access.denied",
+      actorUserId: user.id,
+      subject: path,
+      ip: clientIp(await headers()),
+      detail: { access },
+    });
     forbidden();
   }
   return user;

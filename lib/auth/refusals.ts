@@ -9,7 +9,12 @@ import { audit } from "@/db/audit";
 export async function auditNoSession(sessionId: string | null, subject: string, ip: string): Promise<void> {
   await audit(
     sessionId
-      ? { event: "session.refused", subject, ip, detail: { reason: "the session cookie names no live session (signed out, ended, expired or unknown)" } }
+      ? {
+          event: "session.refused",
+          subject,
+          ip,
+          detail: { reason: "the session cookie names no live session (signed out, ended, expired or unknown)" },
+        }
       : { event: "access.anonymous", subject, ip },
   );
 }

@@ -18,13 +18,20 @@ export async function startSession(userId: string, now = new Date()): Promise<Se
  * lucia handles the sliding idle expiry; the absolute lifetime and the disabled flag are ours.
  * `now` is injectable so the lifetime can be tested without waiting twelve hours.
  */
-export async function validateSessionId(sessionId: string, now = new Date()): Promise<{ session: Session; user: SignedInUser } | null> {
+export async function validateSessionId(
+  sessionId: string,
+  now = new Date(),
+): Promise<{ session: Session; user: SignedInUser } | null> {
   const { session, user } = await lucia().validateSession(sessionId);
   if (!session || !user) return null;
   const createdAt = new Date(session.createdAt);
   if (now.getTime() - createdAt.getTime() > SESSION_ABSOLUTE_MS || user.disabled) {
     await lucia().invalidateSession(session.id);
-    await audit({ event: "session.expired", actorUserId: user.id, detail: { reason: user.disabled ? "disabled" : "absolute lifetime" } });
+    await audit({
+      event: "session.expired",
+      actorUserId: user.id,
+      detail: { reason: user.disabled ? "disabled" : "absolute lifetime" },
+    });
     return null;
   }
   return { session, user: toSignedIn(user) };

@@ -10,7 +10,8 @@ import { HttpError } from "@/lib/http/errors";
 export type SignedIn = { sessionId: string; role: Role };
 
 const WRONG = "That e-mail address and password do not match an active account. Check both and try again.";
-const BUSY = "Many sign-ins are being checked for this account or from this place right now. Try again in a few seconds.";
+const BUSY =
+  "Many sign-ins are being checked for this account or from this place right now. Try again in a few seconds.";
 
 /**
  * Every attempt is counted before its password is checked and taken back only when it was right, so
@@ -27,15 +28,24 @@ export async function signIn(emailInput: string, password: string, ip: string, n
   }
   if (!attempt.ok) {
     await audit({ event: "sign_in.throttled", subject: email, ip, detail: { until: attempt.until.toISOString() } });
-    throw new HttpError(429, `Too many failed sign-ins. ${tryAgainAt(attempt.until, now)}, or ask your site's layout admin to check your account.`, {
-      retryAt: attempt.until.toISOString(),
-    });
+    throw new HttpError(
+      429,
+      `Too many failed sign-ins. ${tryAgainAt(attempt.until, now)}, or ask your site's layout admin to check your account.`,
+      {
+        retryAt: attempt.until.toISOString(),
+      },
+    );
   }
   const user = await findUserForSignIn(email);
   const passwordOk = await verifyPassword(user?.passwordHash ?? (await dummyPasswordHash()), password);
   if (!user || !user.passwordHash || !passwordOk || user.disabled) {
     await attempt.keep();
-    await audit({ event: "sign_in.failure", subject: email, ip, detail: { reason: !user ? "unknown account" : user.disabled ? "disabled" : "wrong password" } });
+    await audit({
+      event: "sign_in.failure",
+      subject: email,
+      ip,
+      detail: { reason: !user ? "unknown account" : user.disabled ? "disabled" : "wrong password" },
+    });
     throw new HttpError(401, WRONG);
   }
   await attempt.release();

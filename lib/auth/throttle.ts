@@ -42,7 +42,9 @@ export async function takeAttempt(limits: Limit[], windowMs: number, now = new D
     taken.push({ ...limit, ...count });
     if (count.n > limit.max) {
       await release();
-      return count.kept < limit.max ? { ok: false, busy: true } : { ok: false, busy: false, until: new Date(count.windowStart.getTime() + windowMs) };
+      return count.kept < limit.max
+        ? { ok: false, busy: true }
+        : { ok: false, busy: false, until: new Date(count.windowStart.getTime() + windowMs) };
     }
   }
   return { ok: true, keep, release };

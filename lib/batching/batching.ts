@@ -37,8 +37,18 @@ function nodeOf(graph: CompactGraph, id: string): number | undefined {
   return (graph.depots.find((p) => p.id === id) ?? graph.dropoffs.find((p) => p.id === id))?.node;
 }
 
-function plan(graph: CompactGraph, dm: DistanceMatrix, group: readonly PreparedOrder[], options: BatchingOptions): BatchPlan {
-  const route = planPick(graph, dm, { from: options.from, to: options.to, binCodes: binCodesOf(group.map((g) => g.order)) }, options.route ?? {});
+function plan(
+  graph: CompactGraph,
+  dm: DistanceMatrix,
+  group: readonly PreparedOrder[],
+  options: BatchingOptions,
+): BatchPlan {
+  const route = planPick(
+    graph,
+    dm,
+    { from: options.from, to: options.to, binCodes: binCodesOf(group.map((g) => g.order)) },
+    options.route ?? {},
+  );
   return {
     orders: group.map((g) => g.order.orderId),
     lineCount: group.reduce((s, g) => s + g.lineCount, 0),
@@ -68,7 +78,10 @@ export function batchOrders(
   const startNode = nodeOf(graph, options.from);
   const endNode = nodeOf(graph, options.to);
   if (startNode === undefined || endNode === undefined) {
-    throw new UnknownLocationError([...(startNode === undefined ? [options.from] : []), ...(endNode === undefined ? [options.to] : [])]);
+    throw new UnknownLocationError([
+      ...(startNode === undefined ? [options.from] : []),
+      ...(endNode === undefined ? [options.to] : []),
+    ]);
   }
   const costs = new WalkCosts(graph, dm, startNode, endNode);
   const total = orders.length;
@@ -85,7 +98,9 @@ export function batchOrders(
   let placed = unbatchable.length;
   progress(placed);
   const groups =
-    options.method === "savings" ? savingsBatches(prepared, costs, limits, options.savings) : firstComeBatches(prepared, costs, limits);
+    options.method === "savings"
+      ? savingsBatches(prepared, costs, limits, options.savings)
+      : firstComeBatches(prepared, costs, limits);
   const batches: BatchPlan[] = [];
   for (;;) {
     if (options.shouldStop?.()) throw new BatchingCancelled(batches.length);

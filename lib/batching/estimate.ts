@@ -15,11 +15,17 @@ export const DEFAULT_SITE_TIMING: SiteTiming = { walkingSpeedMmPerS: 1000, secon
 
 /** A site's own timing, or the defaults for a site that has none (or is not found). */
 export function siteTiming(site: Partial<SiteTiming> | null | undefined): SiteTiming {
-  return { walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? DEFAULT_SITE_TIMING.walkingSpeedMmPerS, secondsPerLine: site?.secondsPerLine ?? DEFAULT_SITE_TIMING.secondsPerLine };
+  return {
+    walkingSpeedMmPerS: site?.walkingSpeedMmPerS ?? DEFAULT_SITE_TIMING.walkingSpeedMmPerS,
+    secondsPerLine: site?.secondsPerLine ?? DEFAULT_SITE_TIMING.secondsPerLine,
+  };
 }
 
 /** Walking time plus handling time per line. */
-export function estimateSeconds(work: { distanceMm: number; lines: number }, timing: SiteTiming = DEFAULT_SITE_TIMING): number {
+export function estimateSeconds(
+  work: { distanceMm: number; lines: number },
+  timing: SiteTiming = DEFAULT_SITE_TIMING,
+): number {
   if (!(timing.walkingSpeedMmPerS > 0)) throw new RangeError("walking speed must be positive");
   if (!(timing.secondsPerLine >= 0)) throw new RangeError("seconds per line must not be negative");
   if (!(work.distanceMm >= 0) || !(work.lines >= 0)) throw new RangeError("distance and lines must not be negative");

@@ -7,7 +7,11 @@ import type { WalkCosts } from "./walk-costs";
  * First-come: walk the queue (already in cut-off, priority, number order) and fill the cart while the
  * next order fits; the first order that does not fit starts the next cart. Yields one batch at a time.
  */
-export function* firstComeBatches(queue: readonly PreparedOrder[], costs: WalkCosts, limits: CartLimits): Generator<PreparedOrder[]> {
+export function* firstComeBatches(
+  queue: readonly PreparedOrder[],
+  costs: WalkCosts,
+  limits: CartLimits,
+): Generator<PreparedOrder[]> {
   let cart = new CartLoad(costs, limits);
   for (const o of queue) {
     const fits = !o.alone && cart.fits(o) && cart.route.addedLength(o.points) < Infinity;

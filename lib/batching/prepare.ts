@@ -41,10 +41,14 @@ function offLayoutReason(name: string, off: readonly WaveLine[]): string {
     return `${l.sku} is in ${codes.join(" or ")}`;
   };
   const named = off.slice(0, NAMED_LINES).map(where);
-  const more = off.length > NAMED_LINES ? `, and ${off.length - NAMED_LINES} more line${off.length - NAMED_LINES === 1 ? "" : "s"}` : "";
+  const more =
+    off.length > NAMED_LINES
+      ? `, and ${off.length - NAMED_LINES} more line${off.length - NAMED_LINES === 1 ? "" : "s"}`
+      : "";
   const binCount = off.reduce((n, l) => n + (l.binCode ? 1 : (l.itemBins?.length ?? 0)), 0);
   const those = binCount === 1 ? "that bin" : "those bins";
-  const notOn = binCount > 0 ? `; ${those} ${binCount === 1 ? "is" : "are"} not on the published layout version of this wave` : "";
+  const notOn =
+    binCount > 0 ? `; ${those} ${binCount === 1 ? "is" : "are"} not on the published layout version of this wave` : "";
   return `${name} cannot be picked on this layout version: ${named.join("; ")}${more}${notOn}. Correct the item master's bins${binCount > 0 ? ` or publish a floor plan with ${those}` : ""}, then plan again.`;
 }
 
@@ -52,12 +56,15 @@ function offLayoutReason(name: string, off: readonly WaveLine[]): string {
 function problem(order: WaveOrder, limits: CartLimits, bins: Map<string, GraphBin>, weightG: number): string | null {
   const name = `Order ${order.orderNumber}`;
   if (order.lines.length === 0) return `${name} has no lines; add its lines or cancel it.`;
-  if (Number.isNaN(cutoffMs(order))) return `${name} has a cut-off "${order.cutoffAt}" that is not a date and time; correct it and plan again.`;
+  if (Number.isNaN(cutoffMs(order)))
+    return `${name} has a cut-off "${order.cutoffAt}" that is not a date and time; correct it and plan again.`;
   if (!Number.isFinite(order.priority)) return `${name} has no valid priority; set it to 1, 2 or 3.`;
   const badQty = order.lines.find((l) => !(l.quantity > 0) || !Number.isFinite(l.quantity));
-  if (badQty) return `${name}: line ${badQty.lineId} (${badQty.sku}) has quantity ${badQty.quantity}; quantities must be positive.`;
+  if (badQty)
+    return `${name}: line ${badQty.lineId} (${badQty.sku}) has quantity ${badQty.quantity}; quantities must be positive.`;
   const badWeight = order.lines.find((l) => !(l.unitWeightG >= 0) || !Number.isFinite(l.unitWeightG));
-  if (badWeight) return `${name}: ${badWeight.sku} has no valid unit weight in the item master; correct it and plan again.`;
+  if (badWeight)
+    return `${name}: ${badWeight.sku} has no valid unit weight in the item master; correct it and plan again.`;
   const off = order.lines.filter((l) => !bins.has(l.binCode));
   if (off.length > 0) return offLayoutReason(name, off);
   if (order.lines.length > limits.maxLines) {
@@ -87,7 +94,10 @@ export function prepareOrders(
   const good: Omit<PreparedOrder, "rank" | "points" | "alone">[] = [];
   for (const order of orders) {
     if (seen.has(order.orderId)) {
-      unbatchable.push({ orderId: order.orderId, reason: `Order ${order.orderNumber} appears more than once in the wave (id ${order.orderId}); only its first copy was batched.` });
+      unbatchable.push({
+        orderId: order.orderId,
+        reason: `Order ${order.orderNumber} appears more than once in the wave (id ${order.orderId}); only its first copy was batched.`,
+      });
       continue;
     }
     seen.add(order.orderId);

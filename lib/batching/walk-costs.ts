@@ -54,7 +54,8 @@ export class WalkCosts {
     const row = new Int32Array(n);
     const known = old?.length ?? 0;
     if (old) row.set(old);
-    for (let j = known; j < n; j++) row[j] = j === a ? 0 : accessDistance(this.graph, this.dm, p, this.points[j] as AccessPoint);
+    for (let j = known; j < n; j++)
+      row[j] = j === a ? 0 : accessDistance(this.graph, this.dm, p, this.points[j] as AccessPoint);
     this.rows[a] = row;
     return row;
   }

@@ -16,7 +16,16 @@ export type BatchSummaryDTO = {
   shortLines: number;
 };
 
-export type BatchStopLine = { orderNumber: string; tote: number; sku: string; description: string; quantity: number; uom: string; binCode: string; unitWeightG: number };
+export type BatchStopLine = {
+  orderNumber: string;
+  tote: number;
+  sku: string;
+  description: string;
+  quantity: number;
+  uom: string;
+  binCode: string;
+  unitWeightG: number;
+};
 
 export type BatchDetailDTO = BatchSummaryDTO & {
   stops: { seq: number; x: number; y: number; accessPoint: number; lines: BatchStopLine[] }[];

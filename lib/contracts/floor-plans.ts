@@ -9,7 +9,13 @@ export type FloorPlanSummary = {
   latestVersion: { id: number; number: number; publishedAt: string; binCount: number; fromDraftVersion: number } | null;
 };
 
-export type DraftDTO = { floorPlanId: number; version: number; document: EditorDocument; updatedAt: string; updatedByName: string | null };
+export type DraftDTO = {
+  floorPlanId: number;
+  version: number;
+  document: EditorDocument;
+  updatedAt: string;
+  updatedByName: string | null;
+};
 
 /** GET /api/floor-plans/[id]/draft */
 export type DraftResponse = {
@@ -18,4 +24,7 @@ export type DraftResponse = {
 };
 
 /** PUT /api/floor-plans/[id]/draft, 409: someone saved first. */
-export type SaveConflict = { error: string; current: { version: number; updatedByName: string | null; updatedAt: string } };
+export type SaveConflict = {
+  error: string;
+  current: { version: number; updatedByName: string | null; updatedAt: string };
+};

@@ -3,7 +3,14 @@ import type { RowProblem } from "@/lib/sheets/columns";
 
 export type { RowProblem };
 
-export type ImportCounts = { rows: number; items?: number; inserted?: number; updated?: number; orders?: number; lines?: number };
+export type ImportCounts = {
+  rows: number;
+  items?: number;
+  inserted?: number;
+  updated?: number;
+  orders?: number;
+  lines?: number;
+};
 
 /** POST /api/imports/[kind]/preview */
 export type PreviewAnswer = {

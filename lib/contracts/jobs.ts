@@ -2,4 +2,13 @@
 
 export type JobStatus = "queued" | "running" | "done" | "failed" | "cancelled";
 
-export type JobDTO = { id: string; kind: string; status: JobStatus; progress: number; message: string; result: unknown; createdAt: string; updatedAt: string };
+export type JobDTO = {
+  id: string;
+  kind: string;
+  status: JobStatus;
+  progress: number;
+  message: string;
+  result: unknown;
+  createdAt: string;
+  updatedAt: string;
+};

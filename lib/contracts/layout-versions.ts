@@ -12,10 +12,24 @@ export type LayoutVersionDTO = {
   matrixSha256: string;
 };
 
-export type BinRowDTO = { code: string; rackRun: string; aisle: number; bay: number; level: number; x: number; y: number; accessPoint: number };
+export type BinRowDTO = {
+  code: string;
+  rackRun: string;
+  aisle: number;
+  bay: number;
+  level: number;
+  x: number;
+  y: number;
+  accessPoint: number;
+};
 
 /** A choice of layout version in a form (the imports' "check bins against"). */
 export type VersionOption = { id: number; label: string };
 
 /** A layout version a new wave may be planned on, with the points a cart can start and end at. */
-export type LayoutChoice = { id: number; label: string; depots: { id: string; name: string }[]; dropoffs: { id: string; name: string }[] };
+export type LayoutChoice = {
+  id: number;
+  label: string;
+  depots: { id: string; name: string }[];
+  dropoffs: { id: string; name: string }[];
+};

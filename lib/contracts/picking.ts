@@ -52,7 +52,14 @@ export type PickStopDTO = {
 
 export type PickViewDTO = {
   /** `version` goes back with every confirmation: it changes when the batch is taken or given back. */
-  batch: { id: number; waveName: string; number: number; status: PickBatchStatus; version: number; assignedName: string | null };
+  batch: {
+    id: number;
+    waveName: string;
+    number: number;
+    status: PickBatchStatus;
+    version: number;
+    assignedName: string | null;
+  };
   depot: string;
   dropoff: string;
   stops: PickStopDTO[];

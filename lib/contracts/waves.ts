@@ -47,4 +47,13 @@ export type WavePreviewDTO = {
 };
 
 /** A line a picker could not fill completely: the planner's follow-up list. */
-export type ShortPickDTO = { batchNumber: number; orderNumber: string; binCode: string; sku: string; ordered: number; picked: number; reason: string | null; at: string | null };
+export type ShortPickDTO = {
+  batchNumber: number;
+  orderNumber: string;
+  binCode: string;
+  sku: string;
+  ordered: number;
+  picked: number;
+  reason: string | null;
+  at: string | null;
+};

@@ -32,12 +32,20 @@ export function checkDocument(doc: EditorDocument): Problem[] {
         severity: "warning",
         runId: run.id,
         cells: runCells(doc, run),
-        message: `${runName(run)} has ${count(unused.length, "imported code")} for bays or levels it no longer has (${unused.slice(0, 3).map((c) => c.code).join(", ")}${unused.length > 3 ? ", …" : ""}). Import its bins again or ignore them.`,
+        message: `${runName(run)} has ${count(unused.length, "imported code")} for bays or levels it no longer has (${unused
+          .slice(0, 3)
+          .map((c) => c.code)
+          .join(", ")}${unused.length > 3 ? ", …" : ""}). Import its bins again or ignore them.`,
       });
     }
   }
   if (doc.rackRuns.length === 0) {
-    problems.push({ kind: "no-bins", severity: "warning", cells: [], message: "There are no rack runs yet, so there is nothing to pick. Draw rack runs with the rack run tool." });
+    problems.push({
+      kind: "no-bins",
+      severity: "warning",
+      cells: [],
+      message: "There are no rack runs yet, so there is nothing to pick. Draw rack runs with the rack run tool.",
+    });
   }
   problems.push(...engineOnlyProblems(d, problems), ...graphSizeProblems(d));
   // Errors first; otherwise the order the checks found them, so the list does not jump while editing.
@@ -48,13 +56,26 @@ function idProblems(doc: EditorDocument): Problem[] {
   const out: Problem[] = [];
   const runIds = new Set<string>();
   for (const run of doc.rackRuns) {
-    if (runIds.has(run.id)) out.push({ kind: "duplicate-id", severity: "error", runId: run.id, cells: runCells(doc, run), message: `Two rack runs share the id “${run.id}”. Delete one of them and draw it again.` });
+    if (runIds.has(run.id))
+      out.push({
+        kind: "duplicate-id",
+        severity: "error",
+        runId: run.id,
+        cells: runCells(doc, run),
+        message: `Two rack runs share the id “${run.id}”. Delete one of them and draw it again.`,
+      });
     runIds.add(run.id);
   }
   // Batches name their depot and drop-off by id, and a drop-off may be a depot, so the ids share one namespace.
   const pointIds = new Set<string>();
   for (const p of [...doc.depots, ...doc.dropoffs]) {
-    if (pointIds.has(p.id)) out.push({ kind: "duplicate-id", severity: "error", cells: [cellOf(doc, p.x, p.y)], message: `Two depots or drop-offs share the id “${p.id}”. Delete one and place it again.` });
+    if (pointIds.has(p.id))
+      out.push({
+        kind: "duplicate-id",
+        severity: "error",
+        cells: [cellOf(doc, p.x, p.y)],
+        message: `Two depots or drop-offs share the id “${p.id}”. Delete one and place it again.`,
+      });
     pointIds.add(p.id);
   }
   return out;
@@ -62,12 +83,29 @@ function idProblems(doc: EditorDocument): Problem[] {
 
 function pointProblems(doc: EditorDocument, d: GridDrawing): Problem[] {
   const out: Problem[] = [];
-  if (doc.depots.length === 0) out.push({ kind: "no-depot", severity: "error", cells: [], message: "There is no depot. Place one with the depot tool where pickers collect their carts." });
-  if (doc.dropoffs.length === 0) out.push({ kind: "no-dropoff", severity: "error", cells: [], message: "There is no drop-off. Place one with the drop-off tool where carts are taken for packing." });
+  if (doc.depots.length === 0)
+    out.push({
+      kind: "no-depot",
+      severity: "error",
+      cells: [],
+      message: "There is no depot. Place one with the depot tool where pickers collect their carts.",
+    });
+  if (doc.dropoffs.length === 0)
+    out.push({
+      kind: "no-dropoff",
+      severity: "error",
+      cells: [],
+      message: "There is no drop-off. Place one with the drop-off tool where carts are taken for packing.",
+    });
   const check = (p: EditorDocument["depots"][number], what: string) => {
     const c = cellOf(doc, p.x, p.y);
     if (d.cells[c] !== "floor") {
-      out.push({ kind: "point-not-on-floor", severity: "error", cells: [c], message: `The ${what} “${p.name}” ${where(doc, c)} is not on walkable floor. Move it onto the floor or paint floor under it.` });
+      out.push({
+        kind: "point-not-on-floor",
+        severity: "error",
+        cells: [c],
+        message: `The ${what} “${p.name}” ${where(doc, c)} is not on walkable floor. Move it onto the floor or paint floor under it.`,
+      });
     }
   };
   for (const p of doc.depots) check(p, "depot");
@@ -125,7 +163,10 @@ function codeProblems(doc: EditorDocument): Problem[] {
   return [...groups.values()].map((g) => {
     const names = g.runs.map((id, i) => runName(byId.get(id) as RackRun, i === 0));
     const sample = g.codes.slice(0, 3).join(", ") + (g.codes.length > 3 ? ", …" : "");
-    const whose = names.length === 1 ? `${names[0]} gives the same location code twice` : `${names[0]} and ${names[1]} give the same location codes`;
+    const whose =
+      names.length === 1
+        ? `${names[0]} gives the same location code twice`
+        : `${names[0]} and ${names[1]} give the same location codes`;
     return {
       kind: "duplicate-code" as const,
       severity: "error" as const,
@@ -164,7 +205,10 @@ function faceProblems(doc: EditorDocument, d: GridDrawing): Problem[] {
       severity: "error",
       runId: run.id,
       cells: blind.map(({ c }) => cellOf(doc, c.x, c.y)),
-      message: `${runName(run)}: ${bayList(run, blind.map((b) => b.i))} open${blind.length === 1 ? "s" : ""} onto no walkable floor on the ${sideName(run.facing)} side. Paint floor in front of ${blind.length === 1 ? "it" : "them"} or turn the run to face the aisle.`,
+      message: `${runName(run)}: ${bayList(
+        run,
+        blind.map((b) => b.i),
+      )} open${blind.length === 1 ? "s" : ""} onto no walkable floor on the ${sideName(run.facing)} side. Paint floor in front of ${blind.length === 1 ? "it" : "them"} or turn the run to face the aisle.`,
     });
   }
   return out;
@@ -201,7 +245,9 @@ function walkProblems(doc: EditorDocument, d: GridDrawing): Problem[] {
     for (const drop of dropoffs) {
       const c = cellOf(doc, drop.x, drop.y);
       if (reach[c]) continue;
-      const fix = joined[c] ? "One-way marks block every way between them: turn or remove a mark." : "Connect them with walkable floor.";
+      const fix = joined[c]
+        ? "One-way marks block every way between them: turn or remove a mark."
+        : "Connect them with walkable floor.";
       out.push({
         kind: "no-path",
         severity: reachesAny ? "warning" : "error",
@@ -214,7 +260,12 @@ function walkProblems(doc: EditorDocument, d: GridDrawing): Problem[] {
   for (const group of groupsOf(d, (c) => !!nearDepot[c] && !!nearDrop[c] && !(fromDepot[c] && toDropoff[c]))) {
     const trapped = group.some((c) => fromDepot[c]);
     const closed = group.some((c) => toDropoff[c]);
-    const what = trapped && !closed ? "can be walked into but have no way back to a drop-off" : closed && !trapped ? "cannot be entered from a depot" : "cannot be entered from a depot nor left towards a drop-off";
+    const what =
+      trapped && !closed
+        ? "can be walked into but have no way back to a drop-off"
+        : closed && !trapped
+          ? "cannot be entered from a depot"
+          : "cannot be entered from a depot nor left towards a drop-off";
     out.push({
       kind: "one-way-trap",
       severity: "error",
@@ -226,14 +277,21 @@ function walkProblems(doc: EditorDocument, d: GridDrawing): Problem[] {
   for (const run of doc.rackRuns) {
     const cut = rackRunCells(run)
       .map((c, i) => ({ c, i, access: binAccessCell(d, c) }))
-      .filter(({ access }) => access !== null && !(fromDepot[cellOf(doc, access.x, access.y)] && toDropoff[cellOf(doc, access.x, access.y)]));
+      .filter(
+        ({ access }) =>
+          access !== null &&
+          !(fromDepot[cellOf(doc, access.x, access.y)] && toDropoff[cellOf(doc, access.x, access.y)]),
+      );
     if (cut.length === 0) continue;
     out.push({
       kind: "bin-unreachable",
       severity: "error",
       runId: run.id,
       cells: cut.map(({ c }) => cellOf(doc, c.x, c.y)),
-      message: `${runName(run)}: ${bayList(run, cut.map((b) => b.i))} cannot be reached on a walk from a depot to a drop-off. Connect the floor in front of ${cut.length === 1 ? "it" : "them"} to the aisles.`,
+      message: `${runName(run)}: ${bayList(
+        run,
+        cut.map((b) => b.i),
+      )} cannot be reached on a walk from a depot to a drop-off. Connect the floor in front of ${cut.length === 1 ? "it" : "them"} to the aisles.`,
     });
   }
   return out;

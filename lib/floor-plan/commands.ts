@@ -1,5 +1,15 @@
 import type { Side } from "@/lib/routing/drawing";
-import { CELL_MM_MAX, CELL_MM_MIN, GROUND, MAX_SIDE_CELLS, rackRunSchema, type EditorDocument, type EditorPoint, type GroundChar, type RackRun } from "./document";
+import {
+  CELL_MM_MAX,
+  CELL_MM_MIN,
+  GROUND,
+  MAX_SIDE_CELLS,
+  rackRunSchema,
+  type EditorDocument,
+  type EditorPoint,
+  type GroundChar,
+  type RackRun,
+} from "./document";
 
 export type PointKind = "depot" | "dropoff";
 export type RunChanges = Partial<Omit<RackRun, "id">>;
@@ -59,11 +69,16 @@ export function execute(doc: EditorDocument, cmd: Command): Executed | null {
     case "set-one-way":
       return setOneWay(doc, cmd.cells, cmd.dir);
     case "replace-one-way":
-      return sameMarks(doc.oneWay, cmd.marks) ? null : { doc: { ...doc, oneWay: cmd.marks }, inverse: { type: "replace-one-way", marks: doc.oneWay } };
+      return sameMarks(doc.oneWay, cmd.marks)
+        ? null
+        : { doc: { ...doc, oneWay: cmd.marks }, inverse: { type: "replace-one-way", marks: doc.oneWay } };
     case "add-rack-run": {
       if (doc.rackRuns.some((r) => r.id === cmd.run.id) || runProblem(doc, cmd.run)) return null;
       const at = clampIndex(cmd.index, doc.rackRuns.length);
-      return { doc: { ...doc, rackRuns: insertAt(doc.rackRuns, at, cmd.run) }, inverse: { type: "delete-rack-run", id: cmd.run.id } };
+      return {
+        doc: { ...doc, rackRuns: insertAt(doc.rackRuns, at, cmd.run) },
+        inverse: { type: "delete-rack-run", id: cmd.run.id },
+      };
     }
     case "update-rack-run":
       return updateRun(doc, cmd.id, cmd.changes);
@@ -77,21 +92,36 @@ export function execute(doc: EditorDocument, cmd: Command): Executed | null {
       const at = doc.rackRuns.findIndex((r) => r.id === cmd.id);
       const run = doc.rackRuns[at];
       if (!run) return null;
-      return { doc: { ...doc, rackRuns: doc.rackRuns.filter((_r, i) => i !== at) }, inverse: { type: "add-rack-run", run, index: at } };
+      return {
+        doc: { ...doc, rackRuns: doc.rackRuns.filter((_r, i) => i !== at) },
+        inverse: { type: "add-rack-run", run, index: at },
+      };
     }
     case "set-custom-codes":
       return updateRun(doc, cmd.id, { customCodes: cmd.customCodes });
     case "add-point": {
       const list = points(doc, cmd.kind);
-      if ([...doc.depots, ...doc.dropoffs].some((p) => p.id === cmd.point.id) || !inGrid(doc, cmd.point.x, cmd.point.y) || !cmd.point.name.trim()) return null;
+      if (
+        [...doc.depots, ...doc.dropoffs].some((p) => p.id === cmd.point.id) ||
+        !inGrid(doc, cmd.point.x, cmd.point.y) ||
+        !cmd.point.name.trim()
+      )
+        return null;
       const at = clampIndex(cmd.index, list.length);
-      return { doc: withPoints(doc, cmd.kind, insertAt(list, at, cmd.point)), inverse: { type: "delete-point", kind: cmd.kind, id: cmd.point.id } };
+      return {
+        doc: withPoints(doc, cmd.kind, insertAt(list, at, cmd.point)),
+        inverse: { type: "delete-point", kind: cmd.kind, id: cmd.point.id },
+      };
     }
     case "move-point": {
       const p = points(doc, cmd.kind).find((q) => q.id === cmd.id);
       if (!p || !inGrid(doc, cmd.x, cmd.y) || (p.x === cmd.x && p.y === cmd.y)) return null;
       return {
-        doc: withPoints(doc, cmd.kind, points(doc, cmd.kind).map((q) => (q.id === cmd.id ? { ...q, x: cmd.x, y: cmd.y } : q))),
+        doc: withPoints(
+          doc,
+          cmd.kind,
+          points(doc, cmd.kind).map((q) => (q.id === cmd.id ? { ...q, x: cmd.x, y: cmd.y } : q)),
+        ),
         inverse: { type: "move-point", kind: cmd.kind, id: cmd.id, x: p.x, y: p.y },
       };
     }
@@ -100,7 +130,11 @@ export function execute(doc: EditorDocument, cmd: Command): Executed | null {
       const name = cmd.name.trim();
       if (!p || !name || name.length > 60 || p.name === name) return null;
       return {
-        doc: withPoints(doc, cmd.kind, points(doc, cmd.kind).map((q) => (q.id === cmd.id ? { ...q, name } : q))),
+        doc: withPoints(
+          doc,
+          cmd.kind,
+          points(doc, cmd.kind).map((q) => (q.id === cmd.id ? { ...q, name } : q)),
+        ),
         inverse: { type: "rename-point", kind: cmd.kind, id: cmd.id, name: p.name },
       };
     }
@@ -109,24 +143,44 @@ export function execute(doc: EditorDocument, cmd: Command): Executed | null {
       const at = list.findIndex((q) => q.id === cmd.id);
       const p = list[at];
       if (!p) return null;
-      return { doc: withPoints(doc, cmd.kind, list.filter((_q, i) => i !== at)), inverse: { type: "add-point", kind: cmd.kind, point: p, index: at } };
+      return {
+        doc: withPoints(
+          doc,
+          cmd.kind,
+          list.filter((_q, i) => i !== at),
+        ),
+        inverse: { type: "add-point", kind: cmd.kind, point: p, index: at },
+      };
     }
     case "resize":
       return resize(doc, cmd.width, cmd.height);
     case "set-cell-size": {
-      if (!Number.isInteger(cmd.cellMm) || cmd.cellMm < CELL_MM_MIN || cmd.cellMm > CELL_MM_MAX || cmd.cellMm === doc.cellMm) return null;
+      if (
+        !Number.isInteger(cmd.cellMm) ||
+        cmd.cellMm < CELL_MM_MIN ||
+        cmd.cellMm > CELL_MM_MAX ||
+        cmd.cellMm === doc.cellMm
+      )
+        return null;
       return { doc: { ...doc, cellMm: cmd.cellMm }, inverse: { type: "set-cell-size", cellMm: doc.cellMm } };
     }
     case "set-background": {
       const b = cmd.background;
-      if (b === doc.background || (b && doc.background && b.fileId === doc.background.fileId && b.opacity === doc.background.opacity)) return null;
+      if (
+        b === doc.background ||
+        (b && doc.background && b.fileId === doc.background.fileId && b.opacity === doc.background.opacity)
+      )
+        return null;
       if (b && !(b.opacity >= 0.05 && b.opacity <= 1 && /^[a-f0-9]{32}$/.test(b.fileId))) return null;
       return { doc: { ...doc, background: b }, inverse: { type: "set-background", background: doc.background } };
     }
     case "set-background-opacity": {
       const opacity = Math.min(1, Math.max(0.05, cmd.opacity));
       if (!doc.background || !Number.isFinite(cmd.opacity) || opacity === doc.background.opacity) return null;
-      return { doc: { ...doc, background: { ...doc.background, opacity } }, inverse: { type: "set-background-opacity", opacity: doc.background.opacity } };
+      return {
+        doc: { ...doc, background: { ...doc.background, opacity } },
+        inverse: { type: "set-background-opacity", opacity: doc.background.opacity },
+      };
     }
     case "replace-document":
       return cmd.document === doc ? null : { doc: cmd.document, inverse: { type: "replace-document", document: doc } };
@@ -139,7 +193,9 @@ export function execute(doc: EditorDocument, cmd: Command): Executed | null {
         current = done.doc;
         inverses.unshift(done.inverse);
       }
-      return inverses.length === 0 ? null : { doc: current, inverse: { type: "batch", label: cmd.label, commands: inverses } };
+      return inverses.length === 0
+        ? null
+        : { doc: current, inverse: { type: "batch", label: cmd.label, commands: inverses } };
     }
   }
 }
@@ -156,17 +212,32 @@ export function runProblem(doc: Pick<EditorDocument, "width" | "height">, run: R
 
 /** Why the grid cannot be resized to width × height, or null when it can. */
 export function resizeProblem(doc: EditorDocument, width: number, height: number): string | null {
-  if (!Number.isInteger(width) || !Number.isInteger(height) || width < 4 || height < 4 || width > MAX_SIDE_CELLS || height > MAX_SIDE_CELLS) {
+  if (
+    !Number.isInteger(width) ||
+    !Number.isInteger(height) ||
+    width < 4 ||
+    height < 4 ||
+    width > MAX_SIDE_CELLS ||
+    height > MAX_SIDE_CELLS
+  ) {
     return `Width and height are whole numbers of cells from 4 to ${MAX_SIDE_CELLS}.`;
   }
   const size = { width, height };
-  if (doc.rackRuns.some((r) => runProblem(size, r))) return "Some rack runs would fall off the grid. Move or shorten them first.";
-  if ([...doc.depots, ...doc.dropoffs].some((p) => p.x >= width || p.y >= height)) return "A depot or drop-off would fall off the grid. Move it first.";
+  if (doc.rackRuns.some((r) => runProblem(size, r)))
+    return "Some rack runs would fall off the grid. Move or shorten them first.";
+  if ([...doc.depots, ...doc.dropoffs].some((p) => p.x >= width || p.y >= height))
+    return "A depot or drop-off would fall off the grid. Move it first.";
   return null;
 }
 
 /** Cells of the rectangle spanned by two corners, clipped to the grid. */
-export function rectCells(doc: Pick<EditorDocument, "width" | "height">, x0: number, y0: number, x1: number, y1: number): number[] {
+export function rectCells(
+  doc: Pick<EditorDocument, "width" | "height">,
+  x0: number,
+  y0: number,
+  x1: number,
+  y1: number,
+): number[] {
   const cells: number[] = [];
   const [xa, xb] = [Math.max(0, Math.min(x0, x1)), Math.min(doc.width - 1, Math.max(x0, x1))];
   const [ya, yb] = [Math.max(0, Math.min(y0, y1)), Math.min(doc.height - 1, Math.max(y0, y1))];
@@ -232,7 +303,9 @@ export function nextId(doc: EditorDocument, what: "run" | PointKind): string {
 }
 
 function paint(doc: EditorDocument, cells: number[], ground: GroundChar): Executed | null {
-  const valid = [...new Set(cells)].filter((c) => Number.isInteger(c) && c >= 0 && c < doc.ground.length && doc.ground[c] !== ground);
+  const valid = [...new Set(cells)].filter(
+    (c) => Number.isInteger(c) && c >= 0 && c < doc.ground.length && doc.ground[c] !== ground,
+  );
   const groundDone = setGroundCells(doc, valid, ground.repeat(valid.length));
   if (ground === GROUND.floor) return groundDone;
   const dropped = new Set(cells);
@@ -253,7 +326,10 @@ function setGroundCells(doc: EditorDocument, cells: number[], chars: string): Ex
   cells.forEach((c, i) => (ground[c] = chars[i] as string));
   // Restore in reverse so that a cell listed twice gets its earliest value back.
   const back = [...cells].reverse();
-  return { doc: { ...doc, ground: ground.join("") }, inverse: { type: "set-ground-cells", cells: back, ground: before.split("").reverse().join("") } };
+  return {
+    doc: { ...doc, ground: ground.join("") },
+    inverse: { type: "set-ground-cells", cells: back, ground: before.split("").reverse().join("") },
+  };
 }
 
 function setOneWay(doc: EditorDocument, cells: number[], dir: Side | null): Executed | null {
@@ -275,12 +351,17 @@ function updateRun(doc: EditorDocument, id: string, changes: RunChanges): Execut
   const at = doc.rackRuns.findIndex((r) => r.id === id);
   const run = doc.rackRuns[at];
   if (!run) return null;
-  const keys = (Object.keys(changes) as (keyof RunChanges)[]).filter((k) => changes[k] !== undefined && !sameValue(changes[k], run[k]));
+  const keys = (Object.keys(changes) as (keyof RunChanges)[]).filter(
+    (k) => changes[k] !== undefined && !sameValue(changes[k], run[k]),
+  );
   if (keys.length === 0) return null;
   const next = { ...run, ...Object.fromEntries(keys.map((k) => [k, changes[k]])) } as RackRun;
   if (runProblem(doc, next)) return null;
   const back = Object.fromEntries(keys.map((k) => [k, run[k]])) as RunChanges;
-  return { doc: { ...doc, rackRuns: doc.rackRuns.map((r, i) => (i === at ? next : r)) }, inverse: { type: "update-rack-run", id, changes: back } };
+  return {
+    doc: { ...doc, rackRuns: doc.rackRuns.map((r, i) => (i === at ? next : r)) },
+    inverse: { type: "update-rack-run", id, changes: back },
+  };
 }
 
 function sameValue(a: unknown, b: unknown): boolean {
@@ -291,7 +372,11 @@ function resize(doc: EditorDocument, width: number, height: number): Executed | 
   if ((width === doc.width && height === doc.height) || resizeProblem(doc, width, height)) return null;
   let ground = "";
   for (let y = 0; y < height; y++) {
-    ground += y < doc.height ? doc.ground.slice(y * doc.width, y * doc.width + Math.min(width, doc.width)) + GROUND.outside.repeat(Math.max(0, width - doc.width)) : GROUND.outside.repeat(width);
+    ground +=
+      y < doc.height
+        ? doc.ground.slice(y * doc.width, y * doc.width + Math.min(width, doc.width)) +
+          GROUND.outside.repeat(Math.max(0, width - doc.width))
+        : GROUND.outside.repeat(width);
   }
   const oneWay = doc.oneWay.flatMap((m) => {
     const x = m.cell % doc.width;

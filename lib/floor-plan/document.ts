@@ -25,15 +25,25 @@ const side = z.enum(["N", "E", "S", "W"]);
 const id = z.string().regex(/^[A-Za-z0-9_-]{1,24}$/, "Ids use letters, digits, - and _ (at most 24).");
 /** The id of a rack run, depot or drop-off. */
 export const elementId = id;
-const cell = z.number().int().min(0).max(MAX_SIDE_CELLS - 1);
+const cell = z
+  .number()
+  .int()
+  .min(0)
+  .max(MAX_SIDE_CELLS - 1);
 
 /** A location code pattern: literal text with {aisle}, {bay}, {level}, each optionally zero-padded as {bay:3}. */
 export const codePattern = z
   .string()
   .min(3)
   .max(40)
-  .refine((p) => /\{bay(:\d)?\}/.test(p) && /\{level(:\d)?\}/.test(p), "The pattern needs {bay} and {level} so every bin gets its own code.")
-  .refine((p) => !/\{(?!aisle(:\d)?\}|bay(:\d)?\}|level(:\d)?\})/.test(p), "Only {aisle}, {bay} and {level} (optionally padded like {bay:3}) may appear in braces.");
+  .refine(
+    (p) => /\{bay(:\d)?\}/.test(p) && /\{level(:\d)?\}/.test(p),
+    "The pattern needs {bay} and {level} so every bin gets its own code.",
+  )
+  .refine(
+    (p) => !/\{(?!aisle(:\d)?\}|bay(:\d)?\}|level(:\d)?\})/.test(p),
+    "Only {aisle}, {bay} and {level} (optionally padded like {bay:3}) may appear in braces.",
+  );
 
 export const rackRunSchema = z
   .object({
@@ -55,13 +65,26 @@ export const rackRunSchema = z
     pattern: codePattern,
     /** Codes that differ from the pattern (imported from a spreadsheet), per bay and level. */
     customCodes: z
-      .array(z.object({ bay: z.number().int().min(1).max(9999 + 2 * MAX_SIDE_CELLS), level: z.number().int().min(1).max(MAX_LEVELS), code: z.string().regex(/^[A-Za-z0-9._\/-]{1,32}$/, "Codes use letters, digits and . _ / - (at most 32).") }))
+      .array(
+        z.object({
+          bay: z
+            .number()
+            .int()
+            .min(1)
+            .max(9999 + 2 * MAX_SIDE_CELLS),
+          level: z.number().int().min(1).max(MAX_LEVELS),
+          code: z.string().regex(/^[A-Za-z0-9._\/-]{1,32}$/, "Codes use letters, digits and . _ / - (at most 32)."),
+        }),
+      )
       .max(MAX_SIDE_CELLS * MAX_LEVELS),
   })
-  .refine((r) => (r.orientation === "h" ? r.facing === "N" || r.facing === "S" : r.facing === "E" || r.facing === "W"), {
-    message: "A horizontal run faces N or S; a vertical one faces E or W.",
-    path: ["facing"],
-  });
+  .refine(
+    (r) => (r.orientation === "h" ? r.facing === "N" || r.facing === "S" : r.facing === "E" || r.facing === "W"),
+    {
+      message: "A horizontal run faces N or S; a vertical one faces E or W.",
+      path: ["facing"],
+    },
+  );
 
 const point = z.object({ id, x: cell, y: cell, name: z.string().trim().min(1).max(60) });
 
@@ -76,20 +99,47 @@ export const editorDocumentSchema = z
     rackRuns: z.array(rackRunSchema).max(MAX_RACK_RUNS),
     depots: z.array(point).max(20),
     dropoffs: z.array(point).max(20),
-    background: z.object({ fileId: z.string().regex(/^[a-f0-9]{32}$/), opacity: z.number().min(0.05).max(1) }).nullable(),
+    background: z
+      .object({ fileId: z.string().regex(/^[a-f0-9]{32}$/), opacity: z.number().min(0.05).max(1) })
+      .nullable(),
   })
-  .refine((d) => d.ground.length === d.width * d.height, { message: "Ground paint must have one entry per cell.", path: ["ground"] })
-  .refine((d) => d.oneWay.every((m) => m.cell < d.width * d.height), { message: "A one-way mark lies outside the grid.", path: ["oneWay"] })
+  .refine((d) => d.ground.length === d.width * d.height, {
+    message: "Ground paint must have one entry per cell.",
+    path: ["ground"],
+  })
+  .refine((d) => d.oneWay.every((m) => m.cell < d.width * d.height), {
+    message: "A one-way mark lies outside the grid.",
+    path: ["oneWay"],
+  })
   .refine(
-    (d) => d.rackRuns.every((r) => (r.orientation === "h" ? r.x + r.length <= d.width && r.y < d.height : r.y + r.length <= d.height && r.x < d.width)),
+    (d) =>
+      d.rackRuns.every((r) =>
+        r.orientation === "h"
+          ? r.x + r.length <= d.width && r.y < d.height
+          : r.y + r.length <= d.height && r.x < d.width,
+      ),
     { message: "A rack run reaches past the edge of the grid.", path: ["rackRuns"] },
   )
-  .refine((d) => [...d.depots, ...d.dropoffs].every((p) => p.x < d.width && p.y < d.height), { message: "A depot or drop-off lies outside the grid.", path: ["depots"] });
+  .refine((d) => [...d.depots, ...d.dropoffs].every((p) => p.x < d.width && p.y < d.height), {
+    message: "A depot or drop-off lies outside the grid.",
+    path: ["depots"],
+  });
 
 export type EditorDocument = z.infer<typeof editorDocumentSchema>;
 export type RackRun = z.infer<typeof rackRunSchema>;
 export type EditorPoint = z.infer<typeof point>;
 
 export function blankDocument(width: number, height: number, cellMm: number): EditorDocument {
-  return { format: DOCUMENT_FORMAT, width, height, cellMm, ground: GROUND.outside.repeat(width * height), oneWay: [], rackRuns: [], depots: [], dropoffs: [], background: null };
+  return {
+    format: DOCUMENT_FORMAT,
+    width,
+    height,
+    cellMm,
+    ground: GROUND.outside.repeat(width * height),
+    oneWay: [],
+    rackRuns: [],
+    depots: [],
+    dropoffs: [],
+    background: null,
+  };
 }

@@ -46,7 +46,16 @@ export const MIN_CELL_PX = ZOOM_STEPS[0];
 export const MAX_CELL_PX = ZOOM_STEPS[ZOOM_STEPS.length - 1] as number;
 
 export function initialEditorState(document: EditorDocument, canEdit: boolean): EditorState {
-  return { history: startHistory(document), canEdit, tool: "select", selection: null, cellPx: DEFAULT_CELL_PX, paintShape: "brush", oneWayDir: "N", savedRevision: 0 };
+  return {
+    history: startHistory(document),
+    canEdit,
+    tool: "select",
+    selection: null,
+    cellPx: DEFAULT_CELL_PX,
+    paintShape: "brush",
+    oneWayDir: "N",
+    savedRevision: 0,
+  };
 }
 
 export function editorReducer(state: EditorState, intent: Intent): EditorState {
@@ -63,26 +72,40 @@ export function editorReducer(state: EditorState, intent: Intent): EditorState {
       return { ...state, tool: intent.tool, selection: row.keepsSelection ? state.selection : null };
     }
     case "select":
-      return { ...state, selection: intent.selection && exists(state.history.present, intent.selection) ? intent.selection : null };
+      return {
+        ...state,
+        selection: intent.selection && exists(state.history.present, intent.selection) ? intent.selection : null,
+      };
     case "delete-selection": {
       const s = state.selection;
       if (!s || !state.canEdit) return state;
-      const command: Command = s.kind === "run" ? { type: "delete-rack-run", id: s.id } : { type: "delete-point", kind: s.kind, id: s.id };
+      const command: Command =
+        s.kind === "run" ? { type: "delete-rack-run", id: s.id } : { type: "delete-point", kind: s.kind, id: s.id };
       return { ...withHistory(state, record(state.history, command)), selection: null };
     }
     case "nudge": {
       const s = state.selection;
       if (!s || !state.canEdit) return state;
       const doc = state.history.present;
-      if (s.kind === "run") return withHistory(state, record(state.history, { type: "move-rack-run", id: s.id, dx: intent.dx, dy: intent.dy }));
+      if (s.kind === "run")
+        return withHistory(
+          state,
+          record(state.history, { type: "move-rack-run", id: s.id, dx: intent.dx, dy: intent.dy }),
+        );
       const p = (s.kind === "depot" ? doc.depots : doc.dropoffs).find((q) => q.id === s.id);
       if (!p) return state;
-      return withHistory(state, record(state.history, { type: "move-point", kind: s.kind, id: s.id, x: p.x + intent.dx, y: p.y + intent.dy }));
+      return withHistory(
+        state,
+        record(state.history, { type: "move-point", kind: s.kind, id: s.id, x: p.x + intent.dx, y: p.y + intent.dy }),
+      );
     }
     case "zoom": {
       const i = ZOOM_STEPS.findIndex((z) => z >= state.cellPx);
       const at = i < 0 ? ZOOM_STEPS.length - 1 : i;
-      const next = intent.by === "in" ? ZOOM_STEPS[Math.min(ZOOM_STEPS.length - 1, ZOOM_STEPS[at] === state.cellPx ? at + 1 : at)] : ZOOM_STEPS[Math.max(0, at - 1)];
+      const next =
+        intent.by === "in"
+          ? ZOOM_STEPS[Math.min(ZOOM_STEPS.length - 1, ZOOM_STEPS[at] === state.cellPx ? at + 1 : at)]
+          : ZOOM_STEPS[Math.max(0, at - 1)];
       return { ...state, cellPx: next ?? state.cellPx };
     }
     case "set-zoom":

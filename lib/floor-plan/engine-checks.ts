@@ -27,14 +27,24 @@ const COVERED_BY: Record<IssueCode, ProblemKind[]> = {
  */
 export function engineOnlyProblems(d: GridDrawing, found: readonly Problem[]): Problem[] {
   return validateDrawing(d)
-    .filter((issue) => !COVERED_BY[issue.code].some((kind) => found.some((p) => p.kind === kind && (issue.severity === "warning" || p.severity === "error"))))
+    .filter(
+      (issue) =>
+        !COVERED_BY[issue.code].some((kind) =>
+          found.some((p) => p.kind === kind && (issue.severity === "warning" || p.severity === "error")),
+        ),
+    )
     .map((issue) => toProblem(d, issue));
 }
 
 function toProblem(d: GridDrawing, issue: DrawingIssue): Problem {
   const kind: ProblemKind = COVERED_BY[issue.code][0] ?? "floor-cut-off";
   const text = issue.message.charAt(0).toUpperCase() + issue.message.slice(1);
-  return { kind, severity: issue.severity, cells: (issue.cells ?? []).map((c) => c.y * d.width + c.x), message: `${text}.` };
+  return {
+    kind,
+    severity: issue.severity,
+    cells: (issue.cells ?? []).map((c) => c.y * d.width + c.x),
+    message: `${text}.`,
+  };
 }
 
 /**

@@ -58,7 +58,13 @@ export interface Step {
 }
 
 /** The pointer at a screen point, with `origin` the screen point of the grid's top-left corner. */
-export function pointerAt(clientX: number, clientY: number, origin: { left: number; top: number }, cellPx: number, doc: Pick<EditorDocument, "width" | "height">): PointerAt {
+export function pointerAt(
+  clientX: number,
+  clientY: number,
+  origin: { left: number; top: number },
+  cellPx: number,
+  doc: Pick<EditorDocument, "width" | "height">,
+): PointerAt {
   const x = Math.floor((clientX - origin.left) / cellPx);
   const y = Math.floor((clientY - origin.top) / cellPx);
   const cell = x >= 0 && y >= 0 && x < doc.width && y < doc.height ? { x, y } : null;
@@ -69,7 +75,12 @@ export function pointerAt(clientX: number, clientY: number, origin: { left: numb
  * A press: only the primary button starts anything (null: leave the event alone). `scroll` is where the
  * plan's box is scrolled now, for a pan. A press that starts no drag leaves `drag` as it was.
  */
-export function pointerDown(ctx: GestureContext, drag: Drag | null, p: PointerPress, scroll: { left: number; top: number } | null): Step | null {
+export function pointerDown(
+  ctx: GestureContext,
+  drag: Drag | null,
+  p: PointerPress,
+  scroll: { left: number; top: number } | null,
+): Step | null {
   if (p.button !== 0) return null;
   const { doc } = ctx;
   const c = p.cell;
@@ -79,17 +90,27 @@ export function pointerDown(ctx: GestureContext, drag: Drag | null, p: PointerPr
     if (hit && c) {
       const select = intent({ type: "select", selection: hit });
       if (!ctx.canEdit) return { drag, effects: [select] };
-      const move: Drag = hit.kind === "run" ? { kind: "move-run", id: hit.id, from: c, to: c } : { kind: "move-point", point: hit.kind, id: hit.id, from: c, to: c };
+      const move: Drag =
+        hit.kind === "run"
+          ? { kind: "move-run", id: hit.id, from: c, to: c }
+          : { kind: "move-point", point: hit.kind, id: hit.id, from: c, to: c };
       return { drag: move, effects: [select] };
     }
     const effects = tool === "select" ? [intent({ type: "select", selection: null })] : [];
-    return { drag: scroll ? { kind: "pan", clientX: p.clientX, clientY: p.clientY, left: scroll.left, top: scroll.top } : drag, effects };
+    return {
+      drag: scroll ? { kind: "pan", clientX: p.clientX, clientY: p.clientY, left: scroll.left, top: scroll.top } : drag,
+      effects,
+    };
   }
   if (paintsWith(tool) !== undefined) {
     const rect = (ctx.paintShape === "rect") !== p.shiftKey;
-    return { drag: rect ? { kind: "rect", from: c, to: c } : { kind: "paint", cells: new Set([index(doc, c)]) }, effects: [] };
+    return {
+      drag: rect ? { kind: "rect", from: c, to: c } : { kind: "paint", cells: new Set([index(doc, c)]) },
+      effects: [],
+    };
   }
-  if (tool === "one-way") return { drag: { kind: "one-way", cells: new Set(isWalkable(doc, c) ? [index(doc, c)] : []) }, effects: [] };
+  if (tool === "one-way")
+    return { drag: { kind: "one-way", cells: new Set(isWalkable(doc, c) ? [index(doc, c)] : []) }, effects: [] };
   if (tool === "rack") return { drag: { kind: "rack", from: c, to: c }, effects: [] };
   const kind = toolRow(tool).places;
   return { drag, effects: kind ? placePoint(doc, kind, c) : [] };
@@ -102,16 +123,30 @@ function placePoint(doc: EditorDocument, kind: "depot" | "dropoff", c: Cell): Ef
   if (!isWalkable(doc, c)) return [];
   const id = nextId(doc, kind);
   const name = `${kind === "depot" ? "Depot" : "Drop-off"} ${id.slice(1)}`;
-  return [intent({ type: "do", command: { type: "add-point", kind, point: { id, x: c.x, y: c.y, name } } }), intent({ type: "select", selection: { kind, id } })];
+  return [
+    intent({ type: "do", command: { type: "add-point", kind, point: { id, x: c.x, y: c.y, name } } }),
+    intent({ type: "select", selection: { kind, id } }),
+  ];
 }
 
 /** A move: strokes gather the cells passed over (off the grid adds nothing); rectangles and moves follow the nearest cell. */
 export function pointerMove(ctx: GestureContext, drag: Drag | null, p: PointerAt): Step {
   if (!drag) return { drag, effects: [] };
-  if (drag.kind === "pan") return { drag, effects: [{ type: "scroll", left: drag.left - (p.clientX - drag.clientX), top: drag.top - (p.clientY - drag.clientY) }] };
+  if (drag.kind === "pan")
+    return {
+      drag,
+      effects: [
+        { type: "scroll", left: drag.left - (p.clientX - drag.clientX), top: drag.top - (p.clientY - drag.clientY) },
+      ],
+    };
   const c = p.cell;
-  if (drag.kind === "paint") return { drag: c ? { ...drag, cells: new Set(drag.cells).add(index(ctx.doc, c)) } : drag, effects: [] };
-  if (drag.kind === "one-way") return { drag: c && isWalkable(ctx.doc, c) ? { ...drag, cells: new Set(drag.cells).add(index(ctx.doc, c)) } : drag, effects: [] };
+  if (drag.kind === "paint")
+    return { drag: c ? { ...drag, cells: new Set(drag.cells).add(index(ctx.doc, c)) } : drag, effects: [] };
+  if (drag.kind === "one-way")
+    return {
+      drag: c && isWalkable(ctx.doc, c) ? { ...drag, cells: new Set(drag.cells).add(index(ctx.doc, c)) } : drag,
+      effects: [],
+    };
   return { drag: { ...drag, to: p.clamped }, effects: [] };
 }
 
@@ -123,12 +158,34 @@ export function pointerUp(ctx: GestureContext, drag: Drag | null): Step {
   const done: Step = { drag: null, effects: [] };
   if (!drag) return done;
   const ground = paintsWith(ctx.tool);
-  if (drag.kind === "paint" && ground) done.effects.push(intent({ type: "do", command: { type: "paint", cells: [...drag.cells], ground } }));
-  else if (drag.kind === "rect" && ground) done.effects.push(intent({ type: "do", command: { type: "paint-rect", x0: drag.from.x, y0: drag.from.y, x1: drag.to.x, y1: drag.to.y, ground } }));
-  else if (drag.kind === "one-way" && drag.cells.size > 0) done.effects.push(intent({ type: "do", command: { type: "set-one-way", cells: [...drag.cells], dir: ctx.oneWayDir } }));
+  if (drag.kind === "paint" && ground)
+    done.effects.push(intent({ type: "do", command: { type: "paint", cells: [...drag.cells], ground } }));
+  else if (drag.kind === "rect" && ground)
+    done.effects.push(
+      intent({
+        type: "do",
+        command: { type: "paint-rect", x0: drag.from.x, y0: drag.from.y, x1: drag.to.x, y1: drag.to.y, ground },
+      }),
+    );
+  else if (drag.kind === "one-way" && drag.cells.size > 0)
+    done.effects.push(
+      intent({ type: "do", command: { type: "set-one-way", cells: [...drag.cells], dir: ctx.oneWayDir } }),
+    );
   else if (drag.kind === "rack") done.effects.push({ type: "rack-drawn", run: drawnRun(drag.from, drag.to) });
-  else if (drag.kind === "move-run") done.effects.push(intent({ type: "do", command: { type: "move-rack-run", id: drag.id, dx: drag.to.x - drag.from.x, dy: drag.to.y - drag.from.y } }));
-  else if (drag.kind === "move-point") done.effects.push(intent({ type: "do", command: { type: "move-point", kind: drag.point, id: drag.id, x: drag.to.x, y: drag.to.y } }));
+  else if (drag.kind === "move-run")
+    done.effects.push(
+      intent({
+        type: "do",
+        command: { type: "move-rack-run", id: drag.id, dx: drag.to.x - drag.from.x, dy: drag.to.y - drag.from.y },
+      }),
+    );
+  else if (drag.kind === "move-point")
+    done.effects.push(
+      intent({
+        type: "do",
+        command: { type: "move-point", kind: drag.point, id: drag.id, x: drag.to.x, y: drag.to.y },
+      }),
+    );
   return done;
 }
 
@@ -162,7 +219,9 @@ export function isWalkable(doc: EditorDocument, c: Cell): boolean {
 /** A straight run from where the drag began, along whichever axis it moved further. */
 export function drawnRun(from: Cell, to: Cell): DrawnRun {
   const h = Math.abs(to.x - from.x) >= Math.abs(to.y - from.y);
-  return h ? { x: Math.min(from.x, to.x), y: from.y, orientation: "h", length: Math.abs(to.x - from.x) + 1 } : { x: from.x, y: Math.min(from.y, to.y), orientation: "v", length: Math.abs(to.y - from.y) + 1 };
+  return h
+    ? { x: Math.min(from.x, to.x), y: from.y, orientation: "h", length: Math.abs(to.x - from.x) + 1 }
+    : { x: from.x, y: Math.min(from.y, to.y), orientation: "v", length: Math.abs(to.y - from.y) + 1 };
 }
 
 /** The cells a drag would change if released now, and whether they are one-way marks rather than paint. */
@@ -170,7 +229,8 @@ export function previewCells(doc: EditorDocument, drag: Drag | null): { cells: n
   if (!drag) return { cells: [], oneWay: false };
   if (drag.kind === "paint") return { cells: [...drag.cells], oneWay: false };
   if (drag.kind === "one-way") return { cells: [...drag.cells], oneWay: true };
-  if (drag.kind === "rect") return { cells: rectCells(doc, drag.from.x, drag.from.y, drag.to.x, drag.to.y), oneWay: false };
+  if (drag.kind === "rect")
+    return { cells: rectCells(doc, drag.from.x, drag.from.y, drag.to.x, drag.to.y), oneWay: false };
   return { cells: [], oneWay: false };
 }
 

@@ -9,7 +9,12 @@ export interface KeyLike {
   altKey: boolean;
 }
 
-const ARROWS: Record<string, [number, number]> = { ArrowUp: [0, -1], ArrowDown: [0, 1], ArrowLeft: [-1, 0], ArrowRight: [1, 0] };
+const ARROWS: Record<string, [number, number]> = {
+  ArrowUp: [0, -1],
+  ArrowDown: [0, 1],
+  ArrowLeft: [-1, 0],
+  ArrowRight: [1, 0],
+};
 
 /** The intent a key press stands for in the editor, or null to let the browser have it. */
 export function intentForKey(k: KeyLike, ctx: { hasSelection: boolean }): Intent | null {

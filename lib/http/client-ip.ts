@@ -39,7 +39,9 @@ export function parseTrustedProxies(setting: string): BlockList {
     const maxBits = kind === 6 ? 128 : 32;
     const validPrefix = prefix === null || (/^\d+$/.test(bits ?? "") && prefix <= maxBits);
     if (!kind || !validPrefix || extra !== undefined) {
-      throw new Error(`TRUSTED_PROXIES: "${entry}" is not an IP address or a CIDR range (like 10.0.0.0/8); fix or remove it.`);
+      throw new Error(
+        `TRUSTED_PROXIES: "${entry}" is not an IP address or a CIDR range (like 10.0.0.0/8); fix or remove it.`,
+      );
     }
     const type = kind === 6 ? "ipv6" : "ipv4";
     if (prefix === null) list.addAddress(address!, type);

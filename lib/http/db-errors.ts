@@ -13,7 +13,15 @@ const CONNECTION_LOST = new Set([
   "ECONNRESET",
   "EPIPE",
 ]);
-const UNREACHABLE = new Set(["ECONNREFUSED", "ETIMEDOUT", "EHOSTUNREACH", "ENETUNREACH", "ENOTFOUND", "EAI_AGAIN", "ER_CON_COUNT_ERROR"]);
+const UNREACHABLE = new Set([
+  "ECONNREFUSED",
+  "ETIMEDOUT",
+  "EHOSTUNREACH",
+  "ENETUNREACH",
+  "ENOTFOUND",
+  "EAI_AGAIN",
+  "ER_CON_COUNT_ERROR",
+]);
 
 export type DatabaseOutage = "connection-lost" | "unreachable";
 
@@ -32,7 +40,8 @@ export function databaseOutage(e: unknown): DatabaseOutage | null {
     if (code && UNREACHABLE.has(code)) return "unreachable";
     if (code && CONNECTION_LOST.has(code)) return "connection-lost";
     // mysql2's own wording when a command is queued on a connection that already died.
-    if (cur instanceof Error && /connection is in closed state|Connection lost/i.test(cur.message)) return "connection-lost";
+    if (cur instanceof Error && /connection is in closed state|Connection lost/i.test(cur.message))
+      return "connection-lost";
     // knex, when no connection could be had in time (the server hangs instead of refusing).
     if (cur instanceof Error && cur.name === "KnexTimeoutError") return "unreachable";
   }
@@ -40,8 +49,10 @@ export function databaseOutage(e: unknown): DatabaseOutage | null {
 }
 
 const MESSAGES: Record<DatabaseOutage, string> = {
-  "connection-lost": "The database connection dropped, so nothing was saved. Try again in a moment; if it keeps happening, tell your admin.",
-  unreachable: "Trailbin cannot reach its database right now, so nothing was saved. Try again in a minute; if it keeps happening, tell your admin.",
+  "connection-lost":
+    "The database connection dropped, so nothing was saved. Try again in a moment; if it keeps happening, tell your admin.",
+  unreachable:
+    "Trailbin cannot reach its database right now, so nothing was saved. Try again in a minute; if it keeps happening, tell your admin.",
 };
 
 /** The 503 a person sees when the database is gone: plain words and when to try again. */

@@ -13,27 +13,37 @@ export class OriginSettingError extends Error {}
  * words that say what to set, for a server that should not start with it.
  */
 export function parsePublicOrigins(value: string): string[] {
-  const entries = value.split(",").map((e) => e.trim()).filter((e) => e !== "");
-  if (entries.length === 0) throw new OriginSettingError(`APP_ORIGIN is not set: give the address people open Trailbin at, ${EXAMPLE}.`);
+  const entries = value
+    .split(",")
+    .map((e) => e.trim())
+    .filter((e) => e !== "");
+  if (entries.length === 0)
+    throw new OriginSettingError(`APP_ORIGIN is not set: give the address people open Trailbin at, ${EXAMPLE}.`);
   const origins = entries.map((entry) => {
     let url: URL;
     try {
       url = new URL(entry);
     } catch {
-      throw new OriginSettingError(`APP_ORIGIN entry "${entry}" is not an address: start it with http:// or https://, ${EXAMPLE}.`);
+      throw new OriginSettingError(
+        `APP_ORIGIN entry "${entry}" is not an address: start it with http:// or https://, ${EXAMPLE}.`,
+      );
     }
     if (url.protocol !== "http:" && url.protocol !== "https:") {
       throw new OriginSettingError(`APP_ORIGIN entry "${entry}" must start with http:// or https://, ${EXAMPLE}.`);
     }
     if (url.pathname !== "/" || url.search || url.hash || url.username || url.password) {
-      throw new OriginSettingError(`APP_ORIGIN entry "${entry}" may have no path, query or user name: just scheme, host and port, ${EXAMPLE}.`);
+      throw new OriginSettingError(
+        `APP_ORIGIN entry "${entry}" may have no path, query or user name: just scheme, host and port, ${EXAMPLE}.`,
+      );
     }
     return url.origin;
   });
   // A site is served over HTTP or over HTTPS (its session cookie is named for one of them); a list
   // mixing both would let a page on the other one act on this site.
   if (new Set(origins.map((o) => new URL(o).protocol)).size > 1) {
-    throw new OriginSettingError(`APP_ORIGIN mixes http:// and https:// entries (${origins.join(", ")}): a site is served with one scheme, so list them all with the one it uses.`);
+    throw new OriginSettingError(
+      `APP_ORIGIN mixes http:// and https:// entries (${origins.join(", ")}): a site is served with one scheme, so list them all with the one it uses.`,
+    );
   }
   return [...new Set(origins)];
 }

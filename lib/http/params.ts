@@ -13,14 +13,21 @@ export function parseId(raw: unknown): number | null {
 
 /** A route param naming a stored record, for `route({ params: z.object({ id: idParam("wave") }) })`: a mangled link points at nothing (404). */
 export const idParam = (what: string) =>
-  z.unknown().optional().transform((raw, ctx) => {
-    const id = parseId(raw);
-    if (id === null) {
-      ctx.addIssue({ code: "custom", message: noSuch(what) });
-      return z.NEVER;
-    }
-    return id;
-  });
+  z
+    .unknown()
+    .optional()
+    .transform((raw, ctx) => {
+      const id = parseId(raw);
+      if (id === null) {
+        ctx.addIssue({ code: "custom", message: noSuch(what) });
+        return z.NEVER;
+      }
+      return id;
+    });
 
 /** A route param as text ("" when absent), for `route({ params })`. */
-export const textParam = () => z.unknown().optional().transform((raw) => (typeof raw === "string" ? raw : ""));
+export const textParam = () =>
+  z
+    .unknown()
+    .optional()
+    .transform((raw) => (typeof raw === "string" ? raw : ""));

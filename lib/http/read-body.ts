@@ -6,7 +6,11 @@ import { HttpError } from "./errors";
  * it whole first (`request.text()`, `.formData()`) would let one client make the server hold
  * whatever it sends.
  */
-export async function readBodyCapped(req: Request, maxBytes: number, tooLarge: string): Promise<Uint8Array<ArrayBuffer>> {
+export async function readBodyCapped(
+  req: Request,
+  maxBytes: number,
+  tooLarge: string,
+): Promise<Uint8Array<ArrayBuffer>> {
   if (Number(req.headers.get("content-length") ?? 0) > maxBytes) throw new HttpError(413, tooLarge);
   if (!req.body) return new Uint8Array(0);
   const reader = req.body.getReader();

@@ -4,6 +4,10 @@
  * loaded, one version on from it, the write went through: the repeat is answered as a success, never
  * refused as stale. Someone else's write that happens to look the same must fail `leaves`.
  */
-export function wentThrough<T extends { version: number }>(stored: T | null | undefined, leaves: (stored: T) => boolean, sentVersion?: number): boolean {
+export function wentThrough<T extends { version: number }>(
+  stored: T | null | undefined,
+  leaves: (stored: T) => boolean,
+  sentVersion?: number,
+): boolean {
   return !!stored && (sentVersion === undefined || stored.version === sentVersion + 1) && leaves(stored);
 }

@@ -25,7 +25,11 @@ export type RouteContext<B, A extends Access, P = Params> = {
   sessionId: string | null;
 };
 
-type Options<S extends z.ZodType | undefined, A extends Access, P extends z.ZodType | undefined> = { access: A; body?: S; params?: P };
+type Options<S extends z.ZodType | undefined, A extends Access, P extends z.ZodType | undefined> = {
+  access: A;
+  body?: S;
+  params?: P;
+};
 
 function readCookie(req: Request, name: string): string | null {
   const header = req.headers.get("cookie");
@@ -44,7 +48,8 @@ async function readJson(req: Request): Promise<unknown> {
   // A form or text body posted from elsewhere is not what our pages send; refusing it keeps the one
   // parser (and its limits) the only way in.
   const type = req.headers.get("content-type") ?? "";
-  if (!/^application\/json\s*(;|$)/i.test(type)) throw new HttpError(415, "Send this request as JSON (Content-Type: application/json).");
+  if (!/^application\/json\s*(;|$)/i.test(type))
+    throw new HttpError(415, "Send this request as JSON (Content-Type: application/json).");
   try {
     return JSON.parse(text);
   } catch {
@@ -59,17 +64,31 @@ async function readJson(req: Request): Promise<unknown> {
  * Every route handler goes through here, in this order: Origin (for state changes), session, permission,
  * body validation, then the handler. Any step that fails answers with a JSON error a person can read.
  */
-export function route<A extends Access, S extends z.ZodType | undefined = undefined, P extends z.ZodType | undefined = undefined>(
+export function route<
+  A extends Access,
+  S extends z.ZodType | undefined = undefined,
+  P extends z.ZodType | undefined = undefined,
+>(
   opts: Options<S, A, P>,
-  handler: (ctx: RouteContext<S extends z.ZodType ? z.infer<S> : undefined, A, P extends z.ZodType ? z.output<P> : Params>) => Promise<Response>,
+  handler: (
+    ctx: RouteContext<S extends z.ZodType ? z.infer<S> : undefined, A, P extends z.ZodType ? z.output<P> : Params>,
+  ) => Promise<Response>,
 ) {
   return async (req: Request, context: { params: Promise<Params> }): Promise<Response> => {
     const ip = clientIp(req.headers);
     const path = new URL(req.url).pathname;
     try {
       if (!originAllowed(req.method, req.headers)) {
-        await audit({ event: "origin.refused", subject: path, ip, detail: { method: req.method, origin: req.headers.get("origin") } });
-        return jsonError(403, "This request did not come from a Trailbin page (missing or foreign Origin). Reload the page and try again.");
+        await audit({
+          event: "origin.refused",
+          subject: path,
+          ip,
+          detail: { method: req.method, origin: req.headers.get("origin") },
+        });
+        return jsonError(
+          403,
+          "This request did not come from a Trailbin page (missing or foreign Origin). Reload the page and try again.",
+        );
       }
       const sessionId = readCookie(req, SESSION_COOKIE);
       const signedIn = sessionId ? await validateSessionId(sessionId) : null;
@@ -80,7 +99,13 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
           return jsonError(401, "Your session has ended or you are not signed in. Sign in and try again.");
         }
         if (!roleMay(user.role, opts.access)) {
-          await audit({ event: "access.denied", actorUserId: user.id, subject: `${req.method} ${path}`, ip, detail: { access: opts.access } });
+          await audit({
+            event: "access.denied",
+            actorUserId: user.id,
+            subject: `${req.method} ${path}`,
+            ip,
+            detail: { access: opts.access },
+          });
           return jsonError(403, "Your role does not allow this. Ask a layout admin if you need access.");
         }
       }
@@ -96,7 +121,8 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
       if (opts.params) {
         // A URL param that names nothing (a mangled link) is a 404, after the body's 400s as before.
         const parsed = opts.params.safeParse(params);
-        if (!parsed.success) throw new HttpError(404, parsed.error.issues[0]?.message ?? "Nothing is at this address. Check the link.");
+        if (!parsed.success)
+          throw new HttpError(404, parsed.error.issues[0]?.message ?? "Nothing is at this address. Check the link.");
         params = parsed.data;
       }
       return await handler({
@@ -116,7 +142,10 @@ export function route<A extends Access, S extends z.ZodType | undefined = undefi
       }
       const ref = crypto.randomUUID().slice(0, 8);
       console.error(`[${ref}] ${req.method} ${path}`, e);
-      return jsonError(500, `Something went wrong on the server (reference ${ref}). Try again; if it keeps happening, tell your admin the reference.`);
+      return jsonError(
+        500,
+        `Something went wrong on the server (reference ${ref}). Try again; if it keeps happening, tell your admin the reference.`,
+      );
     }
   };
 }

@@ -8,9 +8,14 @@ const FORM_OVERHEAD_BYTES = 64 * 1024;
  * The multipart form of an upload and its one file, refused by its declared size before any of it
  * is buffered (browsers always declare it for a form upload) and read no further than the cap.
  */
-export async function uploadedForm(req: Request, maxBytes: number, what: string): Promise<{ form: FormData; file: File; bytes: Uint8Array }> {
+export async function uploadedForm(
+  req: Request,
+  maxBytes: number,
+  what: string,
+): Promise<{ form: FormData; file: File; bytes: Uint8Array }> {
   const declared = req.headers.get("content-length");
-  if (!declared) throw new HttpError(411, "The upload did not say how large it is. Upload the file from the Trailbin page.");
+  if (!declared)
+    throw new HttpError(411, "The upload did not say how large it is. Upload the file from the Trailbin page.");
   const mib = (maxBytes / 1024 / 1024).toFixed(0);
   const tooLarge = `The ${what} is larger than ${mib} MiB. Use a smaller file.`;
   if (Number(declared) > maxBytes + FORM_OVERHEAD_BYTES) throw new HttpError(413, tooLarge);

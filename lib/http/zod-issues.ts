@@ -27,7 +27,8 @@ function plainMessage(i: Issue): string {
       return `Give ${TYPE_WORDS[i.expected] ?? "another kind of value"} here.`;
     case "too_big": {
       const unit = things(i.origin);
-      if (i.origin === "int" || i.origin === "number" || i.origin === "bigint") return `At most ${Number(i.maximum).toLocaleString("en")}.`;
+      if (i.origin === "int" || i.origin === "number" || i.origin === "bigint")
+        return `At most ${Number(i.maximum).toLocaleString("en")}.`;
       return `At most ${Number(i.maximum).toLocaleString("en")} ${unit || "items"}.`;
     }
     case "too_small": {
@@ -35,14 +36,18 @@ function plainMessage(i: Issue): string {
       if (i.origin === "string" && Number(i.minimum) === 1) return "This cannot be empty.";
       if (i.origin === "array" && Number(i.minimum) === 1) return "Give at least one.";
       if (unit) return `At least ${Number(i.minimum).toLocaleString("en")} ${unit}.`;
-      return i.inclusive ? `At least ${Number(i.minimum).toLocaleString("en")}.` : `More than ${Number(i.minimum).toLocaleString("en")}.`;
+      return i.inclusive
+        ? `At least ${Number(i.minimum).toLocaleString("en")}.`
+        : `More than ${Number(i.minimum).toLocaleString("en")}.`;
     }
     case "invalid_format":
       if (i.format === "email") return "Enter a valid e-mail address.";
       if (i.format === "datetime") return "Give a date and time like 2026-12-01T14:00:00Z.";
       return "This has characters that are not allowed here.";
     case "invalid_value":
-      return i.values.length <= 6 ? `Choose one of: ${i.values.map(String).join(", ")}.` : "Choose one of the offered values.";
+      return i.values.length <= 6
+        ? `Choose one of: ${i.values.map(String).join(", ")}.`
+        : "Choose one of the offered values.";
     case "unrecognized_keys":
       return `Unknown field${i.keys.length === 1 ? "" : "s"}: ${i.keys.slice(0, 5).join(", ")}.`;
     default:
@@ -51,5 +56,8 @@ function plainMessage(i: Issue): string {
 }
 
 export function zodIssues(error: z.ZodError): FieldIssue[] {
-  return error.issues.map((i) => ({ path: i.path.map(String).join(".") || "(body)", message: plainMessage(i as Issue) }));
+  return error.issues.map((i) => ({
+    path: i.path.map(String).join(".") || "(body)",
+    message: plainMessage(i as Issue),
+  }));
 }

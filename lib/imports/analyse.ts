@@ -31,7 +31,8 @@ export type Analysis = {
 /** Reads and checks an import without writing anything: what the preview shows and the import runs on. */
 export async function analyseImport(siteId: number, r: ImportRequest): Promise<Analysis> {
   const version = await getLayoutVersionById(siteId, r.layoutVersionId);
-  if (!version) throw new HttpError(400, "The chosen layout version does not exist at this site. Choose one from the list.");
+  if (!version)
+    throw new HttpError(400, "The chosen layout version does not exist at this site. Choose one from the list.");
   let rows: string[][];
   try {
     rows = (await readSheet(r.bytes)).rows;
@@ -43,11 +44,23 @@ export async function analyseImport(siteId: number, r: ImportRequest): Promise<A
   const [rawHeader, ...body] = rows;
   const headers = (rawHeader ?? []).map((h) => h.trim());
   const { mapping, problems } = resolveMapping(headers, fields, r.mapping);
-  if (headers.every((h) => h === "")) problems.unshift({ row: 1, message: "The sheet is empty: row 1 must hold the column headers (download the template)." });
+  if (headers.every((h) => h === ""))
+    problems.unshift({
+      row: 1,
+      message: "The sheet is empty: row 1 must hold the column headers (download the template).",
+    });
   const filled = body.filter((row) => !isBlankRow(row));
   const preview = filled.slice(0, PREVIEW_ROWS).map((row) => fields.map((f) => cell(row, mapping, f.key)));
   const duplicate = await findImport(siteId, r.kind, r.sha256);
-  const base = { headers, mapping, fields: fields.map(({ key, label, required }) => ({ key, label, required })), preview, duplicate, items: [], orders: [] };
+  const base = {
+    headers,
+    mapping,
+    fields: fields.map(({ key, label, required }) => ({ key, label, required })),
+    preview,
+    duplicate,
+    items: [],
+    orders: [],
+  };
 
   if (r.kind === "items") {
     const skus = new Set(filled.map((row) => cell(row, mapping, "sku").toUpperCase()).filter(Boolean));
@@ -63,7 +76,10 @@ export async function analyseImport(siteId: number, r: ImportRequest): Promise<A
   // The same bytes were imported already: importing them again changes nothing, so nothing to check.
   if (problems.length || duplicate) return { ...base, problems, counts };
   const site = await getSite(siteId);
-  const [items, existingOrders] = await Promise.all([itemsWithBinsInVersion(siteId, version.id, keys.skus), existingOrderNumbers(siteId, keys.orderNumbers)]);
+  const [items, existingOrders] = await Promise.all([
+    itemsWithBinsInVersion(siteId, version.id, keys.skus),
+    existingOrderNumbers(siteId, keys.orderNumbers),
+  ]);
   const checked = validateOrderRows(body, mapping, { timeZone: site?.timezone ?? "UTC", items, existingOrders });
   return { ...base, problems: checked.problems, counts, orders: checked.orders };
 }

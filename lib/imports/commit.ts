@@ -10,14 +10,31 @@ import type { ImportRequest } from "./request";
 
 export async function alreadyImported(record: ImportRecordDTO): Promise<AlreadyImported> {
   const c = await countsOfImport(record.id);
-  return { alreadyImported: true, importedAt: record.importedAt, filename: record.filename, counts: { rows: record.rowCount, ...c } };
+  return {
+    alreadyImported: true,
+    importedAt: record.importedAt,
+    filename: record.filename,
+    counts: { rows: record.rowCount, ...c },
+  };
 }
 
 /** Writes a checked import in one transaction: all of it, or (on any failure) none of it. */
-export async function commitImport(siteId: number, userId: string, r: ImportRequest, a: Analysis): Promise<{ counts: ImportCounts } | AlreadyImported> {
+export async function commitImport(
+  siteId: number,
+  userId: string,
+  r: ImportRequest,
+  a: Analysis,
+): Promise<{ counts: ImportCounts } | AlreadyImported> {
   try {
     return await db().transaction(async (trx) => {
-      const fileId = await recordImport(trx, { siteId, kind: r.kind, sha256: r.sha256, filename: r.filename, rowCount: a.counts.rows, userId });
+      const fileId = await recordImport(trx, {
+        siteId,
+        kind: r.kind,
+        sha256: r.sha256,
+        filename: r.filename,
+        rowCount: a.counts.rows,
+        userId,
+      });
       if (r.kind === "items") {
         const c = await upsertItems(trx, siteId, a.items);
         return { counts: { rows: a.counts.rows, items: a.items.length, inserted: c.inserted, updated: c.updated } };
@@ -31,7 +48,11 @@ export async function commitImport(siteId: number, userId: string, r: ImportRequ
       const record = await findImport(siteId, r.kind, r.sha256);
       if (record) return alreadyImported(record);
     }
-    if (e instanceof OrderNumberTakenError) throw new HttpError(409, "Another import added one of these order numbers a moment ago; nothing was imported. Preview the file again to see which rows.");
+    if (e instanceof OrderNumberTakenError)
+      throw new HttpError(
+        409,
+        "Another import added one of these order numbers a moment ago; nothing was imported. Preview the file again to see which rows.",
+      );
     throw e;
   }
 }

@@ -30,11 +30,20 @@ function offsetMinutes(instant: number, timeZone: string): number {
  * A wall-clock time at the site → the UTC instant. A time the clocks skip (spring forward) does not
  * exist and is refused; a time that happens twice (autumn) is taken as its first occurrence.
  */
-export function siteLocalToUtc(y: number, mo: number, d: number, h: number, mi: number, s: number, timeZone: string): Date | null {
+export function siteLocalToUtc(
+  y: number,
+  mo: number,
+  d: number,
+  h: number,
+  mi: number,
+  s: number,
+  timeZone: string,
+): Date | null {
   const wall = Date.UTC(y, mo - 1, d, h, mi, s);
   const candidates = new Set<number>();
   // The offset before and after any change near this time: try both, keep those that read back right.
-  for (const probe of [wall - 86_400_000, wall, wall + 86_400_000]) candidates.add(wall - offsetMinutes(probe, timeZone) * 60_000);
+  for (const probe of [wall - 86_400_000, wall, wall + 86_400_000])
+    candidates.add(wall - offsetMinutes(probe, timeZone) * 60_000);
   const good = [...candidates].filter((t) => t + offsetMinutes(t, timeZone) * 60_000 === wall).sort((a, b) => a - b);
   return good.length ? new Date(good[0]!) : null;
 }
@@ -43,13 +52,24 @@ export function parseCutoff(text: string, timeZone: string): Parsed {
   const t = text.trim();
   const local = LOCAL.exec(t);
   if (local) {
-    const [y, mo, d, h, mi, s] = local.slice(1).map((v) => Number(v ?? 0)) as [number, number, number, number, number, number];
+    const [y, mo, d, h, mi, s] = local.slice(1).map((v) => Number(v ?? 0)) as [
+      number,
+      number,
+      number,
+      number,
+      number,
+      number,
+    ];
     const check = new Date(Date.UTC(y, mo - 1, d, h, mi, s));
     if (h > 23 || mi > 59 || s > 59 || check.getUTCMonth() !== mo - 1 || check.getUTCDate() !== d) {
       return { ok: false, message: `Cut-off “${t}” is not a real date and time.` };
     }
     const utc = siteLocalToUtc(y, mo, d, h, mi, s, timeZone);
-    if (!utc) return { ok: false, message: `Cut-off “${t}” does not exist in ${timeZone} (the clocks skip that hour). Use a time outside the change.` };
+    if (!utc)
+      return {
+        ok: false,
+        message: `Cut-off “${t}” does not exist in ${timeZone} (the clocks skip that hour). Use a time outside the change.`,
+      };
     return { ok: true, utc };
   }
   if (WITH_OFFSET.test(t)) {

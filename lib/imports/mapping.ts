@@ -40,7 +40,11 @@ export function resolveMapping(
         const v = (chosen as Record<string, unknown>)[f.key];
         if (v === null) mapping[f.key] = null;
         else if (typeof v === "number" && Number.isInteger(v) && v >= 0 && v < header.length) mapping[f.key] = v;
-        else problems.push({ row: 1, message: `The column chosen for “${f.label}” is not a column of this sheet. Choose it again.` });
+        else
+          problems.push({
+            row: 1,
+            message: `The column chosen for “${f.label}” is not a column of this sheet. Choose it again.`,
+          });
       }
     }
   }
@@ -48,11 +52,19 @@ export function resolveMapping(
   for (const f of fields) {
     const at = mapping[f.key];
     if (at === null || at === undefined) {
-      if (f.required) problems.push({ row: 1, message: `No column for “${f.label}”: add a column headed “${f.aliases[0]}” or choose which column holds it.` });
+      if (f.required)
+        problems.push({
+          row: 1,
+          message: `No column for “${f.label}”: add a column headed “${f.aliases[0]}” or choose which column holds it.`,
+        });
       continue;
     }
     const other = byColumn.get(at);
-    if (other) problems.push({ row: 1, message: `Column “${header[at] ?? at + 1}” is chosen for both “${other}” and “${f.label}”. Choose one column per field.` });
+    if (other)
+      problems.push({
+        row: 1,
+        message: `Column “${header[at] ?? at + 1}” is chosen for both “${other}” and “${f.label}”. Choose one column per field.`,
+      });
     else byColumn.set(at, f.label);
   }
   return { mapping, problems };

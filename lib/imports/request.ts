@@ -7,7 +7,14 @@ import { zodIssues } from "@/lib/http/zod-issues";
 import { MAX_UPLOAD_BYTES } from "@/lib/sheets/read";
 import { isImportKind, type ImportKind } from "./fields";
 
-export type ImportRequest = { kind: ImportKind; bytes: Uint8Array; sha256: string; filename: string; layoutVersionId: number; mapping: unknown };
+export type ImportRequest = {
+  kind: ImportKind;
+  bytes: Uint8Array;
+  sha256: string;
+  filename: string;
+  layoutVersionId: number;
+  mapping: unknown;
+};
 
 const formFields = z.object({
   layoutVersionId: z.coerce.number({ message: "Choose a layout version." }).int().positive("Choose a layout version."),
@@ -16,7 +23,11 @@ const formFields = z.object({
 
 export function kindOf(params: Record<string, string | string[] | undefined>): ImportKind {
   const kind = params.kind;
-  if (typeof kind !== "string" || !isImportKind(kind)) throw new HttpError(404, "Trailbin imports two kinds of sheet: “items” (the item master) and “orders” (order lines).");
+  if (typeof kind !== "string" || !isImportKind(kind))
+    throw new HttpError(
+      404,
+      "Trailbin imports two kinds of sheet: “items” (the item master) and “orders” (order lines).",
+    );
   return kind;
 }
 
@@ -41,5 +52,12 @@ export async function readImportRequest(req: Request, kind: ImportKind): Promise
     }
   }
   const filename = cleanName(file.name);
-  return { kind, bytes, sha256: createHash("sha256").update(bytes).digest("hex"), filename, layoutVersionId: parsed.data.layoutVersionId, mapping };
+  return {
+    kind,
+    bytes,
+    sha256: createHash("sha256").update(bytes).digest("hex"),
+    filename,
+    layoutVersionId: parsed.data.layoutVersionId,
+    mapping,
+  };
 }

@@ -9,7 +9,11 @@ export type Progress = { fraction: number; message?: string };
  * interval is written when the interval ends. A write that finds the job no longer running (`write`
  * answers false: cancelled, possibly by another process) calls `ended`, which stops the work.
  */
-export function progressPacer(write: (p: Progress) => Promise<boolean>, ended: () => void, intervalMs = PROGRESS_INTERVAL_MS) {
+export function progressPacer(
+  write: (p: Progress) => Promise<boolean>,
+  ended: () => void,
+  intervalMs = PROGRESS_INTERVAL_MS,
+) {
   let last = -Infinity;
   let pending: Progress | null = null;
   let timer: ReturnType<typeof setTimeout> | null = null;
@@ -22,7 +26,10 @@ export function progressPacer(write: (p: Progress) => Promise<boolean>, ended: (
     pending = null;
     last = Date.now();
     // A failed write (the database busy for a moment) only costs one progress step.
-    void write(p).then((running) => running || stopped || ended(), () => undefined);
+    void write(p).then(
+      (running) => running || stopped || ended(),
+      () => undefined,
+    );
   };
 
   return {

@@ -9,5 +9,7 @@ export interface JobQueue {
 
 /** Today's queue: the job runs in this server process at once, its CPU-heavy parts in worker pools. */
 export function inProcessQueue(run: (jobId: string) => Promise<void>): JobQueue {
-  return { enqueue: (jobId) => void run(jobId).catch((e: unknown) => console.error(`job ${jobId} could not be run`, e)) };
+  return {
+    enqueue: (jobId) => void run(jobId).catch((e: unknown) => console.error(`job ${jobId} could not be run`, e)),
+  };
 }

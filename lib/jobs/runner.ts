@@ -11,7 +11,14 @@ type JobPatch = { status?: JobStatus; progress?: number; message?: string; resul
 
 /** Where jobs live: the database (db/jobs.ts) in the server, a fake in unit tests. */
 export interface JobStore {
-  createOrJoin(siteId: number, kind: string, key: string, userId: string | null, message: string, input: unknown): Promise<JobStart>;
+  createOrJoin(
+    siteId: number,
+    kind: string,
+    key: string,
+    userId: string | null,
+    message: string,
+    input: unknown,
+  ): Promise<JobStart>;
   claim(id: string, startMessage: (kind: string) => string): Promise<JobToRun | null>;
   /** Changes a queued or running job only, and says whether it did. */
   update(id: string, patch: JobPatch, trx?: Knex.Transaction): Promise<boolean>;
@@ -66,7 +73,11 @@ export type RunnerState = { kinds: Map<string, JobDefinition<never>>; aborts: Ma
 
 export const newRunnerState = (): RunnerState => ({ kinds: new Map(), aborts: new Map() });
 
-export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string) => Promise<void>) => JobQueue, state: RunnerState = newRunnerState()) {
+export function createJobRunner(
+  store: JobStore,
+  makeQueue: (run: (jobId: string) => Promise<void>) => JobQueue,
+  state: RunnerState = newRunnerState(),
+) {
   const { kinds, aborts } = state;
 
   async function run(jobId: string): Promise<void> {
@@ -95,7 +106,8 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
       signal: controller.signal,
       finish: async (trx, done) => {
         pacer.stop();
-        if (!(await store.update(jobId, { status: "done", progress: 1, ...done }, trx ?? undefined))) throw new JobNoLongerRunning(jobId);
+        if (!(await store.update(jobId, { status: "done", progress: 1, ...done }, trx ?? undefined)))
+          throw new JobNoLongerRunning(jobId);
         finished = true;
       },
     };
@@ -106,11 +118,15 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
       if (e instanceof JobNoLongerRunning) return;
       pacer.stop();
       if (controller.signal.aborted) {
-        await store.update(jobId, { status: "cancelled", message: definition.messages.cancelled }).catch(() => undefined);
+        await store
+          .update(jobId, { status: "cancelled", message: definition.messages.cancelled })
+          .catch(() => undefined);
         return;
       }
       console.error(`${kind} job ${jobId} failed`, e);
-      await store.update(jobId, { status: "failed", message: definition.failureMessage(e, jobId) }).catch(() => undefined);
+      await store
+        .update(jobId, { status: "failed", message: definition.failureMessage(e, jobId) })
+        .catch(() => undefined);
     } finally {
       pacer.stop();
       aborts.delete(jobId);
@@ -141,7 +157,10 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
     const start = await store.createOrJoin(spec.siteId, kind.kind, spec.key, spec.userId, spec.message, spec.input);
     if (!start.created) {
       if (!start.startedBy || start.startedBy.id === spec.userId) return start.job;
-      throw new HttpError(409, refusal(start.startedBy.name, start.job), { jobId: start.job.id, startedBy: start.startedBy.name });
+      throw new HttpError(409, refusal(start.startedBy.name, start.job), {
+        jobId: start.job.id,
+        startedBy: start.startedBy.name,
+      });
     }
     await onCreated?.(start.job);
     queue.enqueue(start.job.id);
@@ -152,8 +171,10 @@ export function createJobRunner(store: JobStore, makeQueue: (run: (jobId: string
   async function jobFor(user: SignedInUser, id: string, need: "watch" | "cancel") {
     const job = await store.get(user.siteId, id);
     const definition = job ? kinds.get(job.kind) : undefined;
-    if (!job || !definition || !roleMay(user.role, definition.access.watch)) throw new HttpError(404, "No such job. It may belong to another site or have been cleared.");
-    if (!roleMay(user.role, definition.access[need])) throw new HttpError(403, "Your role may watch this job but not stop it.");
+    if (!job || !definition || !roleMay(user.role, definition.access.watch))
+      throw new HttpError(404, "No such job. It may belong to another site or have been cleared.");
+    if (!roleMay(user.role, definition.access[need]))
+      throw new HttpError(403, "Your role may watch this job but not stop it.");
     return { job, definition };
   }
 

@@ -8,7 +8,11 @@ import { inProcessQueue } from "./queue";
 const globalForJobs = globalThis as unknown as { trailbinJobs?: RunnerState };
 const state = (globalForJobs.trailbinJobs ??= newRunnerState());
 
-export const { defineJob, startJob, watchJob, cancelJob } = createJobRunner({ createOrJoin: createOrJoinJob, claim: claimJob, update: updateJob, get: getJob }, inProcessQueue, state);
+export const { defineJob, startJob, watchJob, cancelJob } = createJobRunner(
+  { createOrJoin: createOrJoinJob, claim: claimJob, update: updateJob, get: getJob },
+  inProcessQueue,
+  state,
+);
 
 /**
  * The in-process queue's jobs die with the process that ran them: at start, the ones a previous

@@ -20,11 +20,20 @@ const codeRule = rackRunSchema.shape.customCodes.element.shape.code;
 export function parseBinSheet(doc: EditorDocument, run: RackRun, rows: string[][]): RackRun["customCodes"] {
   const refuse = (problems: RowProblem[]) => rowsNeedFixing(problems.length, "nothing was changed", problems);
   const [header, ...body] = rows;
-  if (!header) throw refuse([{ row: 1, message: "The sheet is empty: it needs a header row with Location code, Bay and Level." }]);
-  const { columns, problems } = mapColumns(header, { code: ["Location code", "code", "bin", "location"], bay: ["Bay"], level: ["Level"] }, ["code", "bay", "level"]);
+  if (!header)
+    throw refuse([{ row: 1, message: "The sheet is empty: it needs a header row with Location code, Bay and Level." }]);
+  const { columns, problems } = mapColumns(
+    header,
+    { code: ["Location code", "code", "bin", "location"], bay: ["Bay"], level: ["Level"] },
+    ["code", "bay", "level"],
+  );
   if (problems.length) throw refuse(problems);
   const bays = new Set(rackRunCells(run).map((_c, i) => bayAt(run, i)));
-  const otherCodes = new Set(documentBins(doc).filter((b) => b.runId !== run.id).map((b) => b.code));
+  const otherCodes = new Set(
+    documentBins(doc)
+      .filter((b) => b.runId !== run.id)
+      .map((b) => b.code),
+  );
   const seenCodes = new Map<string, number>();
   const seenSlots = new Map<string, number>();
   const customCodes: RackRun["customCodes"] = [];
@@ -35,12 +44,18 @@ export function parseBinSheet(doc: EditorDocument, run: RackRun, rows: string[][
     const bay = Number(cellOf(r, columns, "bay"));
     const level = Number(cellOf(r, columns, "level"));
     const fail = (message: string) => problems.push({ row, message });
-    if (!Number.isInteger(bay) || !bays.has(bay)) return fail(`Bay “${cellOf(r, columns, "bay")}” is not a bay of this rack run (bays ${[...bays].sort((a, b) => a - b).join(", ")}).`);
-    if (!Number.isInteger(level) || level < 1 || level > run.levels) return fail(`Level “${cellOf(r, columns, "level")}” is not between 1 and ${run.levels}.`);
+    if (!Number.isInteger(bay) || !bays.has(bay))
+      return fail(
+        `Bay “${cellOf(r, columns, "bay")}” is not a bay of this rack run (bays ${[...bays].sort((a, b) => a - b).join(", ")}).`,
+      );
+    if (!Number.isInteger(level) || level < 1 || level > run.levels)
+      return fail(`Level “${cellOf(r, columns, "level")}” is not between 1 and ${run.levels}.`);
     const checked = codeRule.safeParse(code);
-    if (!checked.success) return fail(code ? `Code “${code}”: ${checked.error.issues[0]?.message}` : "The location code is empty.");
+    if (!checked.success)
+      return fail(code ? `Code “${code}”: ${checked.error.issues[0]?.message}` : "The location code is empty.");
     const slot = `${bay}:${level}`;
-    if (seenSlots.has(slot)) return fail(`Bay ${bay} level ${level} is listed twice (first on row ${seenSlots.get(slot)}).`);
+    if (seenSlots.has(slot))
+      return fail(`Bay ${bay} level ${level} is listed twice (first on row ${seenSlots.get(slot)}).`);
     if (seenCodes.has(code)) return fail(`Code ${code} is used twice (first on row ${seenCodes.get(code)}).`);
     if (otherCodes.has(code)) return fail(`Code ${code} already belongs to a bin of another rack run.`);
     seenSlots.set(slot, row);

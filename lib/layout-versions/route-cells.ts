@@ -27,12 +27,21 @@ export type WalkLeg = { cells: number[]; mm: number };
  * The points a batch's walk passes, in order: the depot or drop-off named `from`, each stop's access
  * point, the one named `to`. A name or stop the graph does not hold stays in its place as undefined.
  */
-export function batchWalkPoints(graph: CompactGraph, from: string, to: string, stopAccessPoints: number[]): (AccessPoint | undefined)[] {
+export function batchWalkPoints(
+  graph: CompactGraph,
+  from: string,
+  to: string,
+  stopAccessPoints: number[],
+): (AccessPoint | undefined)[] {
   const named = (id: string) => [...graph.depots, ...graph.dropoffs].find((p) => p.id === id);
   const start = named(from);
   const end = named(to);
   const stops = stopAccessPoints.map((id) => graph.accessPoints[id]);
-  return [start ? nodeAccessPoint(graph, start.node) : undefined, ...stops, end ? nodeAccessPoint(graph, end.node) : undefined];
+  return [
+    start ? nodeAccessPoint(graph, start.node) : undefined,
+    ...stops,
+    end ? nodeAccessPoint(graph, end.node) : undefined,
+  ];
 }
 
 /** The shortest walk between each point and the next; a leg with a missing end, or no way through, is empty. */

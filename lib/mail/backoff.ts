@@ -11,7 +11,10 @@ export function retryDelayMs(attempts: number): number {
 }
 
 /** Where a row goes after its `attempts`-th failed try: another try at a time, or given up. */
-export function afterFailure(attempts: number, now: Date): { status: "pending"; nextAttemptAt: Date } | { status: "failed" } {
+export function afterFailure(
+  attempts: number,
+  now: Date,
+): { status: "pending"; nextAttemptAt: Date } | { status: "failed" } {
   if (attempts >= MAX_ATTEMPTS) return { status: "failed" };
   return { status: "pending", nextAttemptAt: new Date(now.getTime() + retryDelayMs(attempts)) };
 }

@@ -17,7 +17,8 @@ export function hasControlCharacters(value: string): boolean {
 
 // A deliberately plain address: local@domain, no quotes, comments, spaces, angle brackets or commas,
 // so an address can never smuggle a second recipient or a header into the envelope.
-const ADDRESS = /^[A-Za-z0-9.!#$%&'*+/=?^_`{|}~-]{1,64}@[A-Za-z0-9](?:[A-Za-z0-9-]{0,61}[A-Za-z0-9])?(?:\.[A-Za-z0-9](?:[A-Za-z0-9-]{0,61}[A-Za-z0-9])?)+$/;
+const ADDRESS =
+  /^[A-Za-z0-9.!#$%&'*+/=?^_`{|}~-]{1,64}@[A-Za-z0-9](?:[A-Za-z0-9-]{0,61}[A-Za-z0-9])?(?:\.[A-Za-z0-9](?:[A-Za-z0-9-]{0,61}[A-Za-z0-9])?)+$/;
 
 export function isValidAddress(address: string): boolean {
   return address.length <= 254 && ADDRESS.test(address) && !address.includes("..");

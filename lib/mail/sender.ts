@@ -48,7 +48,9 @@ async function sendOne(transport: MailTransport, row: OutboxRow, now: Date): Pro
  * and records the result: sent, or another try later with backoff, or failed after the last try.
  * The server's loop calls it every second; tests call it with their own clock, transport or rows.
  */
-export async function sendDueMail(opts: { now?: Date; transport?: MailTransport; ids?: number[] } = {}): Promise<SendReport> {
+export async function sendDueMail(
+  opts: { now?: Date; transport?: MailTransport; ids?: number[] } = {},
+): Promise<SendReport> {
   const now = opts.now ?? new Date();
   const report: SendReport = { sent: [], failed: [] };
   const ids = await dueMailIds(now, BATCH, opts.ids);

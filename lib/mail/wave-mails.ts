@@ -3,7 +3,15 @@ import { metres, savingsPct } from "@/lib/format/units";
 
 // The words of the planner's two wave mails. Pure: the caller finds the planner and the link.
 
-export function waveReleasedMail(p: { to: string; name: string; waveName: string; batches: { number: number; lineCount: number; distanceMm: number }[]; distanceMm: number; baselineMm: number; link: string }) {
+export function waveReleasedMail(p: {
+  to: string;
+  name: string;
+  waveName: string;
+  batches: { number: number; lineCount: number; distanceMm: number }[];
+  distanceMm: number;
+  baselineMm: number;
+  link: string;
+}) {
   const name = headerText(p.name, 120);
   const wave = headerText(p.waveName, 120);
   return {
@@ -22,7 +30,21 @@ export function waveReleasedMail(p: { to: string; name: string; waveName: string
   };
 }
 
-export function shortPickSummaryMail(p: { to: string; name: string; waveName: string; shorts: { batchNumber: number; orderNumber: string; binCode: string; sku: string; ordered: number; picked: number; reason: string | null }[]; link: string }) {
+export function shortPickSummaryMail(p: {
+  to: string;
+  name: string;
+  waveName: string;
+  shorts: {
+    batchNumber: number;
+    orderNumber: string;
+    binCode: string;
+    sku: string;
+    ordered: number;
+    picked: number;
+    reason: string | null;
+  }[];
+  link: string;
+}) {
   const name = headerText(p.name, 120);
   const wave = headerText(p.waveName, 120);
   return {
@@ -32,9 +54,14 @@ export function shortPickSummaryMail(p: { to: string; name: string; waveName: st
     text: [
       `Hello ${name},`,
       "",
-      p.shorts.length === 0 ? `Every batch of ${wave} is picked, with no short picks.` : `Every batch of ${wave} is picked. These lines were short and need following up:`,
+      p.shorts.length === 0
+        ? `Every batch of ${wave} is picked, with no short picks.`
+        : `Every batch of ${wave} is picked. These lines were short and need following up:`,
       "",
-      ...p.shorts.map((s) => `  Batch ${s.batchNumber}, order ${s.orderNumber}: ${s.sku} at ${s.binCode}, ${s.picked} of ${s.ordered} (${s.reason ?? "no reason given"})`),
+      ...p.shorts.map(
+        (s) =>
+          `  Batch ${s.batchNumber}, order ${s.orderNumber}: ${s.sku} at ${s.binCode}, ${s.picked} of ${s.ordered} (${s.reason ?? "no reason given"})`,
+      ),
       "",
       `The wave: ${p.link}`,
     ].join("\n"),

@@ -19,17 +19,31 @@ export class BatchRefusal extends HttpError {
  * Only the picker the batch is assigned to, or an admin, works it; anyone else is refused and audited.
  * A batch not yet released cannot be picked.
  */
-export async function workableBatch(user: SignedInUser, batchId: number, ip: string | null, subject: string): Promise<PickBatchRow> {
+export async function workableBatch(
+  user: SignedInUser,
+  batchId: number,
+  ip: string | null,
+  subject: string,
+): Promise<PickBatchRow> {
   const batch = await getPickBatch(user.siteId, batchId);
   if (!batch) throw new BatchRefusal(404, "No such batch at this site. Check the link or go back to your batches.");
   if (user.role !== "admin" && batch.assignedTo !== user.id) {
-    await audit({ event: "access.denied", actorUserId: user.id, subject, ip, detail: { batchId, assignedTo: batch.assignedTo } });
+    await audit({
+      event: "access.denied",
+      actorUserId: user.id,
+      subject,
+      ip,
+      detail: { batchId, assignedTo: batch.assignedTo },
+    });
     throw new BatchRefusal(
       403,
-      batch.assignedTo ? `This batch is assigned to ${batch.assignedName ?? "another picker"}. Only they (or an admin) can pick it.` : "This batch is not assigned to you. Take it from My batches first.",
+      batch.assignedTo
+        ? `This batch is assigned to ${batch.assignedName ?? "another picker"}. Only they (or an admin) can pick it.`
+        : "This batch is not assigned to you. Take it from My batches first.",
       batch,
     );
   }
-  if (batch.status === "planned") throw new BatchRefusal(409, "This batch is not released yet. Ask your planner.", batch);
+  if (batch.status === "planned")
+    throw new BatchRefusal(409, "This batch is not released yet. Ask your planner.", batch);
   return batch;
 }

@@ -68,7 +68,11 @@ export function afterAnswer(q: readonly QueuedConfirmation[], key: string, outco
 }
 
 /** The confirmation the device sends for an action: one key per action, so every resend carries it. */
-export function confirmationFor(action: PickAction, shown: { binCode: string; batchVersion: number }, idempotencyKey: string): QueuedConfirmation {
+export function confirmationFor(
+  action: PickAction,
+  shown: { binCode: string; batchVersion: number },
+  idempotencyKey: string,
+): QueuedConfirmation {
   return { idempotencyKey, ...action, binCode: shown.binCode, batchVersion: shown.batchVersion };
 }
 
@@ -95,7 +99,11 @@ export function mergeQueued(marks: LocalMarks, queued: readonly QueuedConfirmati
 }
 
 /** A line's state on this device: its local mark if any, else what the server said. */
-export function lineStatus<S extends string>(marks: LocalMarks, orderLineId: number, serverStatus: S): S | LocalMark["status"] {
+export function lineStatus<S extends string>(
+  marks: LocalMarks,
+  orderLineId: number,
+  serverStatus: S,
+): S | LocalMark["status"] {
   return marks[orderLineId]?.status ?? serverStatus;
 }
 

@@ -27,17 +27,47 @@ const versionFacts = immutableCache<string, VersionFacts>(8, async (key) => {
   const v = await getLayoutVersionById(siteId, layoutVersionId);
   const version = v ? await getLayoutVersion(siteId, v.floorPlanId, v.number) : null;
   const document = version?.document ?? null;
-  return { document, highLevels: new Set(document ? documentBins(document).filter((x) => x.level >= HIGH_LEVEL).map((x) => x.code) : []) };
+  return {
+    document,
+    highLevels: new Set(
+      document
+        ? documentBins(document)
+            .filter((x) => x.level >= HIGH_LEVEL)
+            .map((x) => x.code)
+        : [],
+    ),
+  };
 });
 
 /** Everything the handheld shows of a batch; the document comes along for the page's map. */
-export async function pickView(siteId: number, b: PickBatchRow): Promise<{ view: PickViewDTO; document: EditorDocument | null }> {
-  const [detail, lines, facts, loaded] = await Promise.all([getBatch(b.waveId, b.number), pickLines(b.id), versionFacts(`${siteId}:${b.layoutVersionId}`), layoutGraph(b.layoutVersionId)]);
+export async function pickView(
+  siteId: number,
+  b: PickBatchRow,
+): Promise<{ view: PickViewDTO; document: EditorDocument | null }> {
+  const [detail, lines, facts, loaded] = await Promise.all([
+    getBatch(b.waveId, b.number),
+    pickLines(b.id),
+    versionFacts(`${siteId}:${b.layoutVersionId}`),
+    layoutGraph(b.layoutVersionId),
+  ]);
   const stops = detail?.stops ?? [];
-  const legs = batchLegs(loaded.graph, loaded.matrix, b.depotId, b.dropoffId, stops.map((s) => s.accessPoint));
+  const legs = batchLegs(
+    loaded.graph,
+    loaded.matrix,
+    b.depotId,
+    b.dropoffId,
+    stops.map((s) => s.accessPoint),
+  );
   const { document, highLevels } = facts;
   const view: PickViewDTO = {
-    batch: { id: b.id, waveName: b.waveName, number: b.number, status: b.status, version: b.version, assignedName: b.assignedName },
+    batch: {
+      id: b.id,
+      waveName: b.waveName,
+      number: b.number,
+      status: b.status,
+      version: b.version,
+      assignedName: b.assignedName,
+    },
     depot: document ? placeName(document, b.depotId) : b.depotId,
     dropoff: document ? placeName(document, b.dropoffId) : b.dropoffId,
     stops: stops.map((s, i) => {

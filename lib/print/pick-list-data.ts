@@ -18,10 +18,21 @@ export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: numbe
   const v = await getLayoutVersionById(siteId, wave.layoutVersionId);
   const version = v ? await getLayoutVersion(siteId, v.floorPlanId, v.number) : null;
   if (!version) return [];
-  const [{ graph, matrix }, site, counts, all] = await Promise.all([layoutGraph(wave.layoutVersionId), getSite(siteId), printCounts(wave.id), listBatches(wave.id)]);
+  const [{ graph, matrix }, site, counts, all] = await Promise.all([
+    layoutGraph(wave.layoutVersionId),
+    getSite(siteId),
+    printCounts(wave.id),
+    listBatches(wave.id),
+  ]);
   const timing = siteTiming(site);
-  const highLevels = new Set(documentBins(version.document).filter((b) => b.level >= HIGH_LEVEL).map((b) => b.code));
-  const dropoff = [...version.document.dropoffs, ...version.document.depots].find((p) => p.id === wave.settings.dropoffId);
+  const highLevels = new Set(
+    documentBins(version.document)
+      .filter((b) => b.level >= HIGH_LEVEL)
+      .map((b) => b.code),
+  );
+  const dropoff = [...version.document.dropoffs, ...version.document.depots].find(
+    (p) => p.id === wave.settings.dropoffId,
+  );
   const out: PickListData[] = [];
   for (const summary of all) {
     if (numbers && !numbers.includes(summary.number)) continue;
@@ -36,7 +47,13 @@ export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: numbe
       printedBefore: counts.get(batch.number) ?? 0,
       seconds: estimateSeconds({ distanceMm: batch.distanceMm, lines: batch.lineCount }, timing),
       document: version.document,
-      routeCells: batchRouteCells(graph, matrix, wave.settings.depotId, wave.settings.dropoffId, batch.stops.map((s) => s.accessPoint)).cells,
+      routeCells: batchRouteCells(
+        graph,
+        matrix,
+        wave.settings.depotId,
+        wave.settings.dropoffId,
+        batch.stops.map((s) => s.accessPoint),
+      ).cells,
       dropoff: dropoff ? `${dropoff.name} (${dropoff.id})` : wave.settings.dropoffId,
       highLevels,
     });

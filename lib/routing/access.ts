@@ -89,7 +89,8 @@ export function accessRoute(graph: CompactGraph, dm: DistanceMatrix, p: AccessPo
         const e = graph.edges[p.edge];
         segments.push({ edge: p.edge, fromMm: p.offsetMm, toMm: e && a.node === e.to ? e.lengthMm : 0 });
       }
-      for (let i = 0; i + 1 < nodes.length; i++) segments.push(edgeBetween(graph, nodes[i] as number, nodes[i + 1] as number));
+      for (let i = 0; i + 1 < nodes.length; i++)
+        segments.push(edgeBetween(graph, nodes[i] as number, nodes[i + 1] as number));
       if (q.edge >= 0) {
         const e = graph.edges[q.edge];
         segments.push({ edge: q.edge, fromMm: e && b.node === e.to ? e.lengthMm : 0, toMm: q.offsetMm });

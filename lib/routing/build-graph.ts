@@ -71,7 +71,9 @@ export function junctionCount(d: GridDrawing, options: BuildOptions = {}): numbe
   const lines = options.compress === false ? allLines(d) : keptLines(d);
   const { special } = specialCells(d);
   let n = 0;
-  for (let y = 0; y < d.height; y++) for (let x = 0; x < d.width; x++) if (d.cells[cellIndex(d, x, y)] === "floor" && isNodeCell(d, lines, x, y, special)) n++;
+  for (let y = 0; y < d.height; y++)
+    for (let x = 0; x < d.width; x++)
+      if (d.cells[cellIndex(d, x, y)] === "floor" && isNodeCell(d, lines, x, y, special)) n++;
   return n;
 }
 
@@ -98,7 +100,7 @@ export function buildGraph(d: GridDrawing, options: BuildOptions = {}): CompactG
   }
   const label = (list: GridDrawing["depots"], kind: "depot" | "dropoff") =>
     list.flatMap((p) => {
-      const node = inGrid(d, p.x, p.y) ? nodeOfCell[cellIndex(d, p.x, p.y)] ?? -1 : -1;
+      const node = inGrid(d, p.x, p.y) ? (nodeOfCell[cellIndex(d, p.x, p.y)] ?? -1) : -1;
       const gn = nodes[node];
       if (!gn) return [];
       // A cell that is both depot and drop-off keeps the depot kind; both lists still point at it.

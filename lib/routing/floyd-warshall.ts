@@ -34,7 +34,8 @@ export function floydWarshall(graph: CompactGraph, onProgress?: ProgressCallback
     if (!e.oneWay) arc(e.to, e.from, e.lengthMm);
   }
   // A shortest path uses each edge at most once, so this bounds every finite distance.
-  if (total >= UNREACHABLE) throw new RangeError(`total corridor length ${total} mm does not fit the Int32 distance range`);
+  if (total >= UNREACHABLE)
+    throw new RangeError(`total corridor length ${total} mm does not fit the Int32 distance range`);
 
   const step = Math.max(1, Math.floor(n / 100));
   for (let k = 0; k < n; k++) {

@@ -53,7 +53,10 @@ export function generateWarehouse(spec: WarehouseSpec): GridDrawing {
       d.cells[east] = "rack";
       d.facing[east] = "W";
       if (spec.oneWayAisles) d.oneWay[cellIndex(d, 3 * a + 1, row)] = aisle % 2 === 1 ? "S" : "N";
-      for (const [side, x] of [[1, 3 * a], [2, 3 * a + 2]] as const) {
+      for (const [side, x] of [
+        [1, 3 * a],
+        [2, 3 * a + 2],
+      ] as const) {
         const bay = 2 * pos + side;
         for (let level = 1; level <= levels; level++) {
           bins.push({ code: `A${pad(aisle, 2)}-${pad(bay, 3)}-${level}`, aisle, bay, level, x, y: row });

@@ -16,7 +16,10 @@ function sameCell(d: GridDrawing, a: number, b: number): boolean {
 }
 
 function linked(d: GridDrawing, x: number, y: number, dir: Side): boolean {
-  return canStep(d, x, y, dir) || canStep(d, x + SIDE_DX[dir], y + SIDE_DY[dir], dir === "N" ? "S" : dir === "S" ? "N" : dir === "E" ? "W" : "E");
+  return (
+    canStep(d, x, y, dir) ||
+    canStep(d, x + SIDE_DX[dir], y + SIDE_DY[dir], dir === "N" ? "S" : dir === "S" ? "N" : dir === "E" ? "W" : "E")
+  );
 }
 
 /** Marks each line kept that differs from a neighbouring line (or is the grid's edge). */

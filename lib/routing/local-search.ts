@@ -144,7 +144,13 @@ function moveRun(seq: Int32Array, i: number, e: number, q: number, reversed: boo
   seq.set([...rest.slice(0, at), ...run, ...rest.slice(at)]);
 }
 
-function descend(w: Float64Array, seq: Int32Array, fwd: Float64Array, bwd: Float64Array, outOfTime: () => boolean): void {
+function descend(
+  w: Float64Array,
+  seq: Int32Array,
+  fwd: Float64Array,
+  bwd: Float64Array,
+  outOfTime: () => boolean,
+): void {
   while (!outOfTime() && (orOpt(w, seq, fwd, bwd) || twoOpt(w, seq, fwd, bwd))) {
     // keep applying improving moves until neither neighbourhood has one
   }

@@ -82,7 +82,11 @@ export function planPick(
     if (!list.includes(code)) list.push(code);
     lines.push({ stop: 2 + apIds.indexOf(bin.accessPoint), code, aisle: bin.aisle, bay: bin.bay, level: bin.level });
   }
-  const points = [nodeAccessPoint(graph, startNode), nodeAccessPoint(graph, endNode), ...apIds.map((id) => graph.accessPoints[id] as AccessPoint)];
+  const points = [
+    nodeAccessPoint(graph, startNode),
+    nodeAccessPoint(graph, endNode),
+    ...apIds.map((id) => graph.accessPoints[id] as AccessPoint),
+  ];
   const cm = accessCostMatrix(graph, dm, points);
   const stopIdx = apIds.map((_, i) => i + 2);
 

@@ -58,7 +58,8 @@ function unreachableStops(cm: CostMatrix, start: number, end: number, stops: rea
 export function sequenceStops(cm: CostMatrix, req: SequenceRequest): SequenceResult {
   const stops = [...new Set(req.stops)];
   for (const p of [req.start, req.end, ...stops]) {
-    if (!Number.isInteger(p) || p < 0 || p >= cm.n) throw new RangeError(`point ${p} is outside the ${cm.n}-point matrix`);
+    if (!Number.isInteger(p) || p < 0 || p >= cm.n)
+      throw new RangeError(`point ${p} is outside the ${cm.n}-point matrix`);
   }
   const bad = unreachableStops(cm, req.start, req.end, stops);
   if (bad.length > 0) throw new UnreachableStopError(bad);

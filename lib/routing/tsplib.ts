@@ -79,7 +79,8 @@ export function parseTsplib(text: string): TsplibInstance {
     }
     const parts = line.split(/\s+/).map(Number);
     if (section === "EDGE_WEIGHT_SECTION") numbers.push(...parts);
-    else if (section === "NODE_COORD_SECTION" && parts.length >= 3) coords.set(parts[0] as number, [parts[1] as number, parts[2] as number]);
+    else if (section === "NODE_COORD_SECTION" && parts.length >= 3)
+      coords.set(parts[0] as number, [parts[1] as number, parts[2] as number]);
   }
   const name = spec.get("NAME") ?? "unnamed";
   const type = spec.get("TYPE");
@@ -99,6 +100,8 @@ export function parseTsplib(text: string): TsplibInstance {
     pts.push(p);
   }
   const cost = new Int32Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) if (i !== j) cost[i * n + j] = metric(pts[i] as [number, number], pts[j] as [number, number]);
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < n; j++)
+      if (i !== j) cost[i * n + j] = metric(pts[i] as [number, number], pts[j] as [number, number]);
   return { name, type, n, cost };
 }

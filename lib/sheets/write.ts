@@ -8,7 +8,8 @@ export function safeCell(value: string | number): string | number {
 
 // Workbook text reads "_x0041_" as an escaped "A"; the reader (and Excel) take "_x005F_" for a
 // literal "_", so text that merely looks like such an escape comes back as it was.
-const xmlEscapeLookalike = (value: string | number) => (typeof value === "string" ? value.replace(/_(?=x[0-9a-f]{4}_)/gi, "_x005F_") : value);
+const xmlEscapeLookalike = (value: string | number) =>
+  typeof value === "string" ? value.replace(/_(?=x[0-9a-f]{4}_)/gi, "_x005F_") : value;
 
 export function workbookBytes(sheetName: string, rows: (string | number)[][]): Buffer {
   const sheet = XLSX.utils.aoa_to_sheet(rows.map((r) => r.map((v) => xmlEscapeLookalike(safeCell(v)))));
@@ -27,8 +28,13 @@ export function csvText(rows: (string | number)[][]): string {
 }
 
 export function downloadResponse(body: Buffer | string, filename: string, kind: "xlsx" | "csv"): Response {
-  const type = kind === "xlsx" ? "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" : "text/csv; charset=utf-8";
+  const type =
+    kind === "xlsx" ? "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" : "text/csv; charset=utf-8";
   return new Response(typeof body === "string" ? body : new Uint8Array(body), {
-    headers: { "content-type": type, "content-disposition": `attachment; filename="${filename.replace(/[^A-Za-z0-9._-]/g, "_")}"`, "cache-control": "no-store" },
+    headers: {
+      "content-type": type,
+      "content-disposition": `attachment; filename="${filename.replace(/[^A-Za-z0-9._-]/g, "_")}"`,
+      "cache-control": "no-store",
+    },
   });
 }

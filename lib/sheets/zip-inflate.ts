@@ -4,7 +4,9 @@ import { endOfCentralDirectory } from "./zip-size";
 export type Inflated = { ok: true; bytes: number } | { ok: false; reason: "damaged" | "too-large" };
 
 const inflateBounded = (data: Uint8Array, maxOutputLength: number) =>
-  new Promise<Buffer>((resolve, reject) => inflateRaw(data, { maxOutputLength }, (e, out) => (e ? reject(e) : resolve(out))));
+  new Promise<Buffer>((resolve, reject) =>
+    inflateRaw(data, { maxOutputLength }, (e, out) => (e ? reject(e) : resolve(out))),
+  );
 
 /**
  * What a zip really unpacks to, measured by inflating every entry with a cap on the output, before the
@@ -20,25 +22,36 @@ export async function zipInflatedBytes(bytes: Uint8Array, limit: number): Promis
   if (eocd < 0) return { ok: false, reason: "damaged" };
   // The parser takes the last end-of-directory signature in the file; a second one after this makes
   // it read another directory than the one checked here.
-  for (let i = eocd + 1; i + 4 <= bytes.length; i++) if (view.getUint32(i, true) === 0x06054b50) return { ok: false, reason: "damaged" };
+  for (let i = eocd + 1; i + 4 <= bytes.length; i++)
+    if (view.getUint32(i, true) === 0x06054b50) return { ok: false, reason: "damaged" };
   const entries = view.getUint16(eocd + 10, true);
   let offset = view.getUint32(eocd + 16, true);
   let total = 0;
   for (let n = 0; n < entries; n++) {
-    if (offset + 46 > bytes.length || view.getUint32(offset, true) !== 0x02014b50) return { ok: false, reason: "damaged" };
+    if (offset + 46 > bytes.length || view.getUint32(offset, true) !== 0x02014b50)
+      return { ok: false, reason: "damaged" };
     const compressed = view.getUint32(offset + 20, true);
     const unpacked = view.getUint32(offset + 24, true);
     const local = view.getUint32(offset + 42, true);
-    offset += 46 + view.getUint16(offset + 28, true) + view.getUint16(offset + 30, true) + view.getUint16(offset + 32, true);
-    if (local + 30 > bytes.length || view.getUint32(local, true) !== 0x04034b50) return { ok: false, reason: "damaged" };
+    offset +=
+      46 + view.getUint16(offset + 28, true) + view.getUint16(offset + 30, true) + view.getUint16(offset + 32, true);
+    if (local + 30 > bytes.length || view.getUint32(local, true) !== 0x04034b50)
+      return { ok: false, reason: "damaged" };
     const flags = view.getUint16(local + 6, true);
     const method = view.getUint16(local + 8, true);
     const dataStart = local + 30 + view.getUint16(local + 26, true) + view.getUint16(local + 28, true);
     // With a data descriptor (flag bit 3) the local sizes may be 0; otherwise they must be the directory's.
     const localCompressed = view.getUint32(local + 18, true);
     const localUnpacked = view.getUint32(local + 22, true);
-    if (!(flags & 8) && (localCompressed !== compressed || localUnpacked !== unpacked)) return { ok: false, reason: "damaged" };
-    if ((flags & 8) && !((localCompressed === 0 && localUnpacked === 0) || (localCompressed === compressed && localUnpacked === unpacked))) {
+    if (!(flags & 8) && (localCompressed !== compressed || localUnpacked !== unpacked))
+      return { ok: false, reason: "damaged" };
+    if (
+      flags & 8 &&
+      !(
+        (localCompressed === 0 && localUnpacked === 0) ||
+        (localCompressed === compressed && localUnpacked === unpacked)
+      )
+    ) {
       return { ok: false, reason: "damaged" };
     }
     if (dataStart > bytes.length) return { ok: false, reason: "damaged" };

@@ -18,8 +18,15 @@ export type NewUser = { email: string; displayName: string; role: Role; password
  * An admin adds someone to their site: with a first password, or without one, in which case the person
  * gets an invitation mail and chooses it themselves.
  */
-export async function addUser(admin: SignedInUser, input: NewUser, ip: string): Promise<{ user: UserDTO; invited: boolean }> {
-  const problem = input.password === undefined ? null : passwordProblem(input.password, { email: input.email, name: input.displayName });
+export async function addUser(
+  admin: SignedInUser,
+  input: NewUser,
+  ip: string,
+): Promise<{ user: UserDTO; invited: boolean }> {
+  const problem =
+    input.password === undefined
+      ? null
+      : passwordProblem(input.password, { email: input.email, name: input.displayName });
   if (problem) throw fieldsNeedAttention([{ path: "password", message: problem }]);
   try {
     const id = newId();
@@ -35,14 +42,27 @@ export async function addUser(admin: SignedInUser, input: NewUser, ip: string): 
           link: setPasswordLink(appOrigin(), token),
         }),
       );
-      await audit({ event: "user.invited", actorUserId: admin.id, subject: created.id, ip, detail: { email: created.email, role: created.role } });
+      await audit({
+        event: "user.invited",
+        actorUserId: admin.id,
+        subject: created.id,
+        ip,
+        detail: { email: created.email, role: created.role },
+      });
       return { user: created, invited: true };
     }
     const created = await createUser({ ...person, passwordHash: await hashPassword(input.password) });
-    await audit({ event: "user.created", actorUserId: admin.id, subject: created.id, ip, detail: { email: created.email, role: created.role } });
+    await audit({
+      event: "user.created",
+      actorUserId: admin.id,
+      subject: created.id,
+      ip,
+      detail: { email: created.email, role: created.role },
+    });
     return { user: created, invited: false };
   } catch (e) {
-    if (e instanceof DuplicateEmailError) throw new HttpError(409, `An account for ${input.email} already exists. Change that account's role instead.`);
+    if (e instanceof DuplicateEmailError)
+      throw new HttpError(409, `An account for ${input.email} already exists. Change that account's role instead.`);
     throw e;
   }
 }

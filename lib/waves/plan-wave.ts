@@ -44,16 +44,30 @@ export const planWaveJob = defineJob<PlanInput>("plan-wave", {
     const message = `Cutting ${orders.length} orders into batches and routing each (${s.method === "savings" ? "by route savings" : "first come by cut-off"})`;
     progress(0.02, message);
     const result = await wavePool().run(
-      { graph, matrix, orders, limits: { totesPerCart: s.totesPerCart, maxLines: s.maxLines, maxWeightG: s.maxWeightG }, method: s.method, from: s.depotId, to: s.dropoffId },
+      {
+        graph,
+        matrix,
+        orders,
+        limits: { totesPerCart: s.totesPerCart, maxLines: s.maxLines, maxWeightG: s.maxWeightG },
+        method: s.method,
+        from: s.depotId,
+        to: s.dropoffId,
+      },
       { signal, onProgress: (f) => progress(0.02 + f * 0.9, message) },
     );
     progress(0.95, `Storing ${result.batches.length} batches`);
     const byId = new Map(orders.map((o) => [o.orderId, o]));
     const stored = result.batches.map((b) => toStoredBatch(graph, b, byId));
-    const totals = { distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0), baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0) };
+    const totals = {
+      distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0),
+      baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0),
+    };
     const unbatchable = result.unbatchable.map((u) => ({ ...u, orderNumber: byId.get(u.orderId)?.orderNumber }));
     const saved = totals.baselineMm > 0 ? Math.round((1 - totals.distanceMm / totals.baselineMm) * 1000) / 10 : 0;
-    const done = { message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`, result: { waveId, batches: stored.length } };
+    const done = {
+      message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`,
+      result: { waveId, batches: stored.length },
+    };
     if (!(await storePlan(waveId, version, stored, totals, unbatchable, (trx) => finish(trx, done)))) {
       throw new Error("the wave changed while it was being planned (re-planned or released elsewhere); reload it");
     }
@@ -64,16 +78,31 @@ export const planWaveJob = defineJob<PlanInput>("plan-wave", {
 export async function startPlanWave(user: SignedInUser, waveId: number, version: number, ip: string): Promise<JobDTO> {
   const wave = await getWave(user.siteId, waveId);
   if (!wave) throw new HttpError(404, "No such wave at this site.");
-  if (wave.status === "released") throw new HttpError(409, "This wave is released; its batches are locked. Create a new wave for further orders.");
-  if (wave.version !== version) throw new HttpError(409, "Someone changed this wave while you were looking. Reload it and plan again.");
+  if (wave.status === "released")
+    throw new HttpError(409, "This wave is released; its batches are locked. Create a new wave for further orders.");
+  if (wave.version !== version)
+    throw new HttpError(409, "Someone changed this wave while you were looking. Reload it and plan again.");
   if (wave.orderCount === 0) throw new HttpError(422, "This wave has no orders to plan.");
   return startJob(
     planWaveJob,
-    { siteId: user.siteId, key: `plan-wave:${waveId}@${version}`, userId: user.id, message: "Waiting to start", input: { waveId, version } },
+    {
+      siteId: user.siteId,
+      key: `plan-wave:${waveId}@${version}`,
+      userId: user.id,
+      message: "Waiting to start",
+      input: { waveId, version },
+    },
     (by, j) =>
       j.status === "done"
         ? `${by} has just planned this wave. Reload it to see their batches.`
         : `${by} is planning this wave right now. Wait for their plan, then reload the wave to review it.`,
-    (job) => audit({ event: "wave.plan_started", actorUserId: user.id, subject: `wave:${waveId}`, ip, detail: { version, job: job.id } }),
+    (job) =>
+      audit({
+        event: "wave.plan_started",
+        actorUserId: user.id,
+        subject: `wave:${waveId}`,
+        ip,
+        detail: { version, job: job.id },
+      }),
   );
 }

@@ -6,7 +6,10 @@ import { waveTimeLimitMs, waveWorkerMaxHeapMb } from "./settings";
 
 // One worker per kind of work: the machine has two cores, and the other one keeps serving pickers
 // while a publish or a wave plan runs.
-const globalForPool = globalThis as unknown as { trailbinPool?: RoutingPool; trailbinWavePool?: WorkerPool<WaveTask, BatchingResult> };
+const globalForPool = globalThis as unknown as {
+  trailbinPool?: RoutingPool;
+  trailbinWavePool?: WorkerPool<WaveTask, BatchingResult>;
+};
 
 export function routingPool(): RoutingPool {
   globalForPool.trailbinPool ??= new RoutingPool({ size: 1, defaultTimeoutMs: 120_000 });

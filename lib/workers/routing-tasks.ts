@@ -38,7 +38,8 @@ export function serializeError(e: unknown): SerializedError {
 
 /** Rebuilds the engine's typed errors on the calling side so callers can use instanceof. */
 export function deserializeError(s: SerializedError): Error {
-  if (s.name === "UnreachableStopError") return new UnreachableStopError(s.stops ?? [], s.codes ?? [], s.message.replace(/^[^:]*: /, ""));
+  if (s.name === "UnreachableStopError")
+    return new UnreachableStopError(s.stops ?? [], s.codes ?? [], s.message.replace(/^[^:]*: /, ""));
   if (s.name === "CostOverflowError") {
     const e = new CostOverflowError(0);
     e.message = s.message;

@@ -2,7 +2,10 @@
 import { parentPort } from "node:worker_threads";
 import { serializeError, type SerializedError } from "./routing-tasks";
 
-export function serveTasks<Task>(run: (task: Task, onProgress: (fraction: number) => void) => unknown, serialize: (e: unknown) => SerializedError = serializeError): void {
+export function serveTasks<Task>(
+  run: (task: Task, onProgress: (fraction: number) => void) => unknown,
+  serialize: (e: unknown) => SerializedError = serializeError,
+): void {
   const port = parentPort;
   if (!port) throw new Error("a pool's worker entry must run in a worker thread");
   port.on("message", (msg: { taskId: number; task: Task }) => {

@@ -3,4 +3,11 @@ import { serveTasks } from "@/lib/workers/serve-tasks";
 import { batchOrders } from "@/lib/batching/batching";
 import type { WaveTask } from "./wave-task";
 
-serveTasks<WaveTask>((task, onProgress) => batchOrders(task.graph, task.matrix, task.orders, task.limits, { method: task.method, from: task.from, to: task.to, onProgress }));
+serveTasks<WaveTask>((task, onProgress) =>
+  batchOrders(task.graph, task.matrix, task.orders, task.limits, {
+    method: task.method,
+    from: task.from,
+    to: task.to,
+    onProgress,
+  }),
+);

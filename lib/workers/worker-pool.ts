@@ -106,7 +106,8 @@ export class WorkerPool<Task, Result> {
     for (const p of this.queue.splice(0)) p.reject(new TaskError("closed", `the ${this.kind} pool was closed`));
     await Promise.all(
       this.slots.splice(0).map((s) => {
-        if (s.running) this.finish(s, () => s.running?.reject(new TaskError("closed", `the ${this.kind} pool was closed`)));
+        if (s.running)
+          this.finish(s, () => s.running?.reject(new TaskError("closed", `the ${this.kind} pool was closed`)));
         return s.worker.terminate();
       }),
     );
@@ -117,7 +118,11 @@ export class WorkerPool<Task, Result> {
     // ERR_UNKNOWN_FILE_EXTENSION (tsx issue #354: the hook is not in place for a worker's entry),
     // so a one-line CommonJS bootstrap registers tsx before requiring the .ts entry.
     const bootstrap = `require("tsx/cjs/api").register(); require(${JSON.stringify(this.entry)});`;
-    const worker = new Worker(bootstrap, { eval: true, execArgv: ["--import", "tsx"], ...(this.resourceLimits ? { resourceLimits: this.resourceLimits } : {}) });
+    const worker = new Worker(bootstrap, {
+      eval: true,
+      execArgv: ["--import", "tsx"],
+      ...(this.resourceLimits ? { resourceLimits: this.resourceLimits } : {}),
+    });
     worker.unref();
     const slot: Slot = { worker, running: null, timer: null, onAbort: null };
     worker.on("message", (m: PoolMessage) => this.onMessage(slot, m));

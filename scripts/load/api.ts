@@ -13,7 +13,11 @@ export class ApiError extends Error {
 
 export type Api = {
   origin: string;
-  call<T = Record<string, unknown>>(method: string, path: string, opts?: { cookie?: string; json?: unknown; form?: FormData; expect?: number[] }): Promise<{ status: number; body: T; ms: number }>;
+  call<T = Record<string, unknown>>(
+    method: string,
+    path: string,
+    opts?: { cookie?: string; json?: unknown; form?: FormData; expect?: number[] },
+  ): Promise<{ status: number; body: T; ms: number }>;
 };
 
 export function api(origin: string): Api {
@@ -46,7 +50,11 @@ export function api(origin: string): Api {
 
 /** Signs in and returns the Cookie header value of the new session. */
 export async function signIn(origin: string, email: string, password: string): Promise<string> {
-  const res = await fetch(origin + "/api/session", { method: "POST", headers: { origin, "content-type": "application/json" }, body: JSON.stringify({ email, password }) });
+  const res = await fetch(origin + "/api/session", {
+    method: "POST",
+    headers: { origin, "content-type": "application/json" },
+    body: JSON.stringify({ email, password }),
+  });
   if (res.status !== 200) throw new ApiError(res.status, await res.text(), `sign-in as ${email}`);
   const cookie = res.headers.getSetCookie().find((c) => c.startsWith("trailbin_session="));
   if (!cookie) throw new Error(`sign-in as ${email} set no session cookie`);

@@ -8,7 +8,14 @@ import { PhaseStats } from "./stats";
 type Context = { shot?: Shot; handheld?: Handheld };
 
 // The parts of autocannon's client (lib/httpClient.js of the pinned 9.0.0) that its rate limit uses.
-type PacedClient = { opts: { path?: string }; rateInterval?: ReturnType<typeof setInterval>; reqsMadeThisSecond: number; paused?: boolean; destroyed?: boolean; _doRequest(): void };
+type PacedClient = {
+  opts: { path?: string };
+  rateInterval?: ReturnType<typeof setInterval>;
+  reqsMadeThisSecond: number;
+  paused?: boolean;
+  destroyed?: boolean;
+  _doRequest(): void;
+};
 
 /**
  * autocannon paces a connection by allowing `connectionRate` requests per 1 s window, and every
@@ -22,17 +29,24 @@ function spreadPacing(client: autocannon.Client, ratePerHandheld: number, count:
   const period = 1000 / ratePerHandheld;
   // autocannon starts its own 1 s timer right after this hook returns: stop it at once.
   setImmediate(() => c.rateInterval && clearInterval(c.rateInterval));
-  setTimeout(() => {
-    if (c.destroyed) return;
-    c.rateInterval = setInterval(() => {
-      c.reqsMadeThisSecond = 0;
-      if (c.paused) c._doRequest();
-      c.paused = false;
-    }, period);
-  }, (i / count) * period);
+  setTimeout(
+    () => {
+      if (c.destroyed) return;
+      c.rateInterval = setInterval(() => {
+        c.reqsMadeThisSecond = 0;
+        if (c.paused) c._doRequest();
+        c.paused = false;
+      }, period);
+    },
+    (i / count) * period,
+  );
 }
 
-export async function runPhase(origin: string, handhelds: Handheld[], opts: { seconds: number; ratePerHandheld?: number }): Promise<{ stats: PhaseStats; result: autocannon.Result }> {
+export async function runPhase(
+  origin: string,
+  handhelds: Handheld[],
+  opts: { seconds: number; ratePerHandheld?: number },
+): Promise<{ stats: PhaseStats; result: autocannon.Result }> {
   const stats = new PhaseStats();
   let answered: { shot: Shot; status: number; verdict: ReturnType<Handheld["answered"]> } | null = null;
   const urls = handhelds.map((_, i) => `${origin}/handheld/${i}`);
@@ -42,39 +56,57 @@ export async function runPhase(origin: string, handhelds: Handheld[], opts: { se
     finish = resolve;
     fail = reject;
   });
-  const instance = autocannon({
-    // autocannon takes a list of URLs (lib/run.js); its type definitions only know one.
-    url: urls as unknown as string,
-    connections: handhelds.length,
-    duration: opts.seconds,
-    // One request per pacing window; the windows are set up per handheld in setupClient.
-    ...(opts.ratePerHandheld ? { connectionRate: 1, setupClient: (client: autocannon.Client) => spreadPacing(client, opts.ratePerHandheld!, handhelds.length) } : {}),
-    timeout: 10,
-    requests: [
-      {
-        setupRequest: (req, ctx) => {
-          const context = ctx as Context;
-          const i = Number(/^\/handheld\/(\d+)/.exec(req.path ?? "")?.[1]);
-          const h = handhelds[i];
-          if (!h) throw new Error(`no handheld for ${req.path}`);
-          const shot = h.next();
-          context.shot = shot;
-          context.handheld = h;
-          const headers = { ...req.headers, cookie: h.account.cookie, origin, ...(shot.body ? { "content-type": "application/json" } : {}) };
-          return { ...req, method: shot.method, path: shot.path, headers, body: shot.body };
+  const instance = autocannon(
+    {
+      // autocannon takes a list of URLs (lib/run.js); its type definitions only know one.
+      url: urls as unknown as string,
+      connections: handhelds.length,
+      duration: opts.seconds,
+      // One request per pacing window; the windows are set up per handheld in setupClient.
+      ...(opts.ratePerHandheld
+        ? {
+            connectionRate: 1,
+            setupClient: (client: autocannon.Client) => spreadPacing(client, opts.ratePerHandheld!, handhelds.length),
+          }
+        : {}),
+      timeout: 10,
+      requests: [
+        {
+          setupRequest: (req, ctx) => {
+            const context = ctx as Context;
+            const i = Number(/^\/handheld\/(\d+)/.exec(req.path ?? "")?.[1]);
+            const h = handhelds[i];
+            if (!h) throw new Error(`no handheld for ${req.path}`);
+            const shot = h.next();
+            context.shot = shot;
+            context.handheld = h;
+            const headers = {
+              ...req.headers,
+              cookie: h.account.cookie,
+              origin,
+              ...(shot.body ? { "content-type": "application/json" } : {}),
+            };
+            return { ...req, method: shot.method, path: shot.path, headers, body: shot.body };
+          },
+          onResponse: (status, body, ctx, headers) => {
+            const { shot, handheld } = ctx as Context;
+            if (!shot || !handheld) return;
+            answered = {
+              shot,
+              status,
+              verdict: handheld.answered(shot, status, body, (headers ?? {}) as Record<string, unknown>),
+            };
+          },
         },
-        onResponse: (status, body, ctx, headers) => {
-          const { shot, handheld } = ctx as Context;
-          if (!shot || !handheld) return;
-          answered = { shot, status, verdict: handheld.answered(shot, status, body, (headers ?? {}) as Record<string, unknown>) };
-        },
-      },
-    ],
-  }, (err, result) => (err ? fail(err) : finish(result)));
+      ],
+    },
+    (err, result) => (err ? fail(err) : finish(result)),
+  );
   // autocannon emits "response" (with its own latency measure) right after onResponse for the same
   // answer, synchronously, so the answer just judged is the one this latency belongs to.
   instance.on("response", (_client, status, _bytes, responseTime) => {
-    if (answered && answered.status === status) stats.record(answered.shot.kind, status, responseTime, answered.verdict);
+    if (answered && answered.status === status)
+      stats.record(answered.shot.kind, status, responseTime, answered.verdict);
     answered = null;
   });
   instance.on("reqError", (err: Error) => {
@@ -103,7 +135,12 @@ export async function drain(origin: string, handhelds: Handheld[]): Promise<{ se
         const shot = h.inFlight;
         sent++;
         try {
-          const res = await fetch(origin + shot.path, { method: shot.method, headers: { cookie: h.account.cookie, origin, ...(shot.body ? { "content-type": "application/json" } : {}) }, body: shot.body, signal: AbortSignal.timeout(30_000) });
+          const res = await fetch(origin + shot.path, {
+            method: shot.method,
+            headers: { cookie: h.account.cookie, origin, ...(shot.body ? { "content-type": "application/json" } : {}) },
+            body: shot.body,
+            signal: AbortSignal.timeout(30_000),
+          });
           const v = h.answered(shot, res.status, await res.text(), Object.fromEntries(res.headers));
           if (!v.ok) bad.push(v.why ?? `${shot.kind} answered ${res.status}`);
         } catch (e) {

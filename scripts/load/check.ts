@@ -2,7 +2,15 @@
 // a unit test can feed it a ledger and tables with the faults it must catch.
 import type { StoredConfirmation, StoredPickLine } from "../../db/picking-ledger";
 
-export type SentConfirmation = { key: string; batchId: number; orderLineId: number; userId: string; quantity: number; short: boolean; statuses: number[] };
+export type SentConfirmation = {
+  key: string;
+  batchId: number;
+  orderLineId: number;
+  userId: string;
+  quantity: number;
+  short: boolean;
+  statuses: number[];
+};
 
 export type CheckResult = {
   acknowledged: number;
@@ -19,7 +27,10 @@ const MAX_LISTED = 20;
  * line; every line picked or short in these batches has exactly one acknowledged confirmation, and an
  * open line has none; the quantities picked add up to what was acknowledged, so nothing counts twice.
  */
-export function checkLedger(sent: Iterable<SentConfirmation>, stored: { confirmations: StoredConfirmation[]; lines: StoredPickLine[] }): CheckResult {
+export function checkLedger(
+  sent: Iterable<SentConfirmation>,
+  stored: { confirmations: StoredConfirmation[]; lines: StoredPickLine[] },
+): CheckResult {
   const problems: string[] = [];
   const problem = (s: string) => {
     if (problems.length < MAX_LISTED) problems.push(s);
@@ -29,7 +40,9 @@ export function checkLedger(sent: Iterable<SentConfirmation>, stored: { confirma
   for (const c of stored.confirmations) rowsByKey.set(c.key, [...(rowsByKey.get(c.key) ?? []), c]);
   const lineById = new Map(stored.lines.map((l) => [l.orderLineId, l]));
   const successesByLine = new Map<number, string[]>();
-  for (const c of stored.confirmations) if (c.status === 200 && c.orderLineId !== null) successesByLine.set(c.orderLineId, [...(successesByLine.get(c.orderLineId) ?? []), c.key]);
+  for (const c of stored.confirmations)
+    if (c.status === 200 && c.orderLineId !== null)
+      successesByLine.set(c.orderLineId, [...(successesByLine.get(c.orderLineId) ?? []), c.key]);
 
   let acknowledged = 0;
   let refused = 0;
@@ -48,13 +61,20 @@ export function checkLedger(sent: Iterable<SentConfirmation>, stored: { confirma
     if (s.statuses.includes(200)) {
       acknowledged++;
       ackQuantity += s.quantity;
-      if (s.statuses.some((x) => x !== 200 && x < 500)) problem(`key ${s.key} was answered both 200 and ${s.statuses.filter((x) => x !== 200).join(", ")}`);
+      if (s.statuses.some((x) => x !== 200 && x < 500))
+        problem(`key ${s.key} was answered both 200 and ${s.statuses.filter((x) => x !== 200).join(", ")}`);
       if (rows.length !== 1) {
         problem(`acknowledged key ${s.key} is stored ${rows.length} times, not once`);
         continue;
       }
       const row = rows[0]!;
-      if (row.status !== 200 || row.orderLineId !== s.orderLineId || row.userId !== s.userId || row.batchId !== s.batchId) problem(`acknowledged key ${s.key} is stored as ${JSON.stringify(row)}`);
+      if (
+        row.status !== 200 ||
+        row.orderLineId !== s.orderLineId ||
+        row.userId !== s.userId ||
+        row.batchId !== s.batchId
+      )
+        problem(`acknowledged key ${s.key} is stored as ${JSON.stringify(row)}`);
       const other = ackByLine.get(s.orderLineId);
       if (other) problem(`line ${s.orderLineId} was acknowledged twice (keys ${other} and ${s.key})`);
       ackByLine.set(s.orderLineId, s.key);
@@ -62,16 +82,21 @@ export function checkLedger(sent: Iterable<SentConfirmation>, stored: { confirma
       const want = s.short ? "short" : "picked";
       if (!line) problem(`acknowledged line ${s.orderLineId} is not in the checked batches`);
       else if (line.pickStatus !== want || line.pickedQty !== s.quantity || line.confirmedBy !== s.userId) {
-        problem(`line ${s.orderLineId} holds ${line.pickStatus} ${line.pickedQty} by ${line.confirmedBy}; acknowledged ${want} ${s.quantity} by ${s.userId}`);
+        problem(
+          `line ${s.orderLineId} holds ${line.pickStatus} ${line.pickedQty} by ${line.confirmedBy}; acknowledged ${want} ${s.quantity} by ${s.userId}`,
+        );
       }
     } else {
       refused++;
-      for (const row of rows) if (row.status === 200 || !s.statuses.includes(row.status)) problem(`refused key ${s.key} (answered ${s.statuses.join(", ")}) is stored as ${row.status}`);
+      for (const row of rows)
+        if (row.status === 200 || !s.statuses.includes(row.status))
+          problem(`refused key ${s.key} (answered ${s.statuses.join(", ")}) is stored as ${row.status}`);
       if (rows.length > 1) problem(`refused key ${s.key} is stored ${rows.length} times`);
     }
   }
 
-  for (const c of stored.confirmations) if (!sentKeys.has(c.key)) problem(`stored key ${c.key} was never sent by a handheld`);
+  for (const c of stored.confirmations)
+    if (!sentKeys.has(c.key)) problem(`stored key ${c.key} was never sent by a handheld`);
   let storedQuantity = 0;
   for (const l of stored.lines) {
     const successes = successesByLine.get(l.orderLineId) ?? [];
@@ -80,9 +105,12 @@ export function checkLedger(sent: Iterable<SentConfirmation>, stored: { confirma
       continue;
     }
     storedQuantity += l.pickedQty ?? 0;
-    if (successes.length !== 1) problem(`line ${l.orderLineId} (${l.pickStatus}) has ${successes.length} stored successes, not one`);
-    else if (!ackByLine.has(l.orderLineId)) problem(`line ${l.orderLineId} (${l.pickStatus}) was never acknowledged to a handheld`);
+    if (successes.length !== 1)
+      problem(`line ${l.orderLineId} (${l.pickStatus}) has ${successes.length} stored successes, not one`);
+    else if (!ackByLine.has(l.orderLineId))
+      problem(`line ${l.orderLineId} (${l.pickStatus}) was never acknowledged to a handheld`);
   }
-  if (storedQuantity !== ackQuantity) problem(`lines hold ${storedQuantity} units picked; handhelds were told ${ackQuantity}`);
+  if (storedQuantity !== ackQuantity)
+    problem(`lines hold ${storedQuantity} units picked; handhelds were told ${ackQuantity}`);
   return { acknowledged, refused, unanswered, problems };
 }

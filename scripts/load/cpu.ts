@@ -26,6 +26,7 @@ export function cpuSample(nextPid: number | undefined, mariadbPid: number | unde
 
 /** Milliseconds of CPU per request between two samples, as text ("–" when a process was not found). */
 export function perRequest(a: CpuSample, b: CpuSample, requests: number): { nextMain: string; mariadb: string } {
-  const f = (x: number | null, y: number | null) => (x === null || y === null || requests === 0 ? "–" : `${((y - x) / requests).toFixed(2)} ms`);
+  const f = (x: number | null, y: number | null) =>
+    x === null || y === null || requests === 0 ? "–" : `${((y - x) / requests).toFixed(2)} ms`;
   return { nextMain: f(a.nextMainMs, b.nextMainMs), mariadb: f(a.mariadbMs, b.mariadbMs) };
 }

@@ -10,16 +10,40 @@ export const KINDS = ["confirm", "repeat", "wrong scan", "double tap", "pick vie
 export type Kind = (typeof KINDS)[number];
 
 /** What a correct server answers to each kind; anything else is an error of the run. */
-export const EXPECTED: Record<Kind, number> = { confirm: 200, repeat: 200, "wrong scan": 422, "double tap": 409, "pick view": 200, "my batches": 200 };
+export const EXPECTED: Record<Kind, number> = {
+  confirm: 200,
+  repeat: 200,
+  "wrong scan": 422,
+  "double tap": 409,
+  "pick view": 200,
+  "my batches": 200,
+};
 
 export type Mix = { repeat: number; doubleTap: number; wrongScan: number; short: number };
 /** Shares per confirmation: lost answers resent, second taps, wrong scans, short picks. */
 export const DEFAULT_MIX: Mix = { repeat: 0.05, doubleTap: 0.01, wrongScan: 0.03, short: 0.03 };
 
-export type KeyRecord = { key: string; batchId: number; orderLineId: number; userId: string; quantity: number; short: boolean; kind: "confirm" | "wrong scan" | "double tap"; statuses: number[] };
+export type KeyRecord = {
+  key: string;
+  batchId: number;
+  orderLineId: number;
+  userId: string;
+  quantity: number;
+  short: boolean;
+  kind: "confirm" | "wrong scan" | "double tap";
+  statuses: number[];
+};
 export type Ledger = Map<string, KeyRecord>;
 
-export type Shot = { kind: Kind; method: "GET" | "POST"; path: string; body?: string; key?: string; line?: PickLine; firstAnswer?: string };
+export type Shot = {
+  kind: Kind;
+  method: "GET" | "POST";
+  path: string;
+  body?: string;
+  key?: string;
+  line?: PickLine;
+  firstAnswer?: string;
+};
 export type Verdict = { ok: boolean; why?: string };
 
 const WRONG_SCAN = "NO-SUCH-BIN";
@@ -63,15 +87,40 @@ export class Handheld {
   /** Lines this handheld has not confirmed yet. */
   openLines(): number {
     let n = 0;
-    for (let b = this.batch; b < this.account.batches.length; b++) n += this.account.batches[b]!.lines.length - (b === this.batch ? this.line : 0);
+    for (let b = this.batch; b < this.account.batches.length; b++)
+      n += this.account.batches[b]!.lines.length - (b === this.batch ? this.line : 0);
     return n;
   }
 
   private confirmation(kind: KeyRecord["kind"], line: PickLine, scan: string, quantity: number, short: boolean): Shot {
     const key = randomUUID();
-    const body = { idempotencyKey: key, orderLineId: line.orderLineId, binCode: line.binCode, batchVersion: line.batchVersion, scan, quantity, ...(short ? { short: { reason: "empty bin" } } : {}) };
-    this.ledger.set(key, { key, batchId: line.batchId, orderLineId: line.orderLineId, userId: this.account.userId, quantity, short, kind, statuses: [] });
-    return { kind, method: "POST", path: `/api/batches/${line.batchId}/confirm`, body: JSON.stringify(body), key, line };
+    const body = {
+      idempotencyKey: key,
+      orderLineId: line.orderLineId,
+      binCode: line.binCode,
+      batchVersion: line.batchVersion,
+      scan,
+      quantity,
+      ...(short ? { short: { reason: "empty bin" } } : {}),
+    };
+    this.ledger.set(key, {
+      key,
+      batchId: line.batchId,
+      orderLineId: line.orderLineId,
+      userId: this.account.userId,
+      quantity,
+      short,
+      kind,
+      statuses: [],
+    });
+    return {
+      kind,
+      method: "POST",
+      path: `/api/batches/${line.batchId}/confirm`,
+      body: JSON.stringify(body),
+      key,
+      line,
+    };
   }
 
   /** The next request this handheld sends. */
@@ -91,11 +140,13 @@ export class Handheld {
     if (ack) {
       const r = this.rand();
       if (r < this.mix.repeat) return { ...ack.shot, kind: "repeat", firstAnswer: ack.answer };
-      if (r < this.mix.repeat + this.mix.doubleTap) return this.confirmation("double tap", ack.shot.line!, ack.shot.line!.binCode, ack.shot.line!.quantity, false);
+      if (r < this.mix.repeat + this.mix.doubleTap)
+        return this.confirmation("double tap", ack.shot.line!, ack.shot.line!.binCode, ack.shot.line!.quantity, false);
     }
     const line = this.current();
     if (!line) return { kind: "my batches", method: "GET", path: "/api/my-batches" };
-    if (!this.viewed.has(line.batchId)) return { kind: "pick view", method: "GET", path: `/api/batches/${line.batchId}/pick`, line };
+    if (!this.viewed.has(line.batchId))
+      return { kind: "pick view", method: "GET", path: `/api/batches/${line.batchId}/pick`, line };
     if (!this.wrongScanned.has(line.orderLineId) && this.rand() < this.mix.wrongScan) {
       this.wrongScanned.add(line.orderLineId);
       return this.confirmation("wrong scan", line, WRONG_SCAN, line.quantity, false);
@@ -124,14 +175,21 @@ export class Handheld {
         return { ok: false, why: `confirm answered ${status}: ${body.slice(0, 200)}` };
       case "repeat": {
         if (status !== expected) return { ok: false, why: `repeat answered ${status}: ${body.slice(0, 200)}` };
-        if (headers["idempotent-replayed"] !== "true") return { ok: false, why: "repeat not marked idempotent-replayed" };
-        if (body !== shot.firstAnswer) return { ok: false, why: `repeat answer differs from the first: ${body.slice(0, 200)} vs ${shot.firstAnswer?.slice(0, 200)}` };
+        if (headers["idempotent-replayed"] !== "true")
+          return { ok: false, why: "repeat not marked idempotent-replayed" };
+        if (body !== shot.firstAnswer)
+          return {
+            ok: false,
+            why: `repeat answer differs from the first: ${body.slice(0, 200)} vs ${shot.firstAnswer?.slice(0, 200)}`,
+          };
         return { ok: true };
       }
       case "pick view":
         if (status === expected) this.viewed.add(shot.line!.batchId);
         break;
     }
-    return status === expected ? { ok: true } : { ok: false, why: `${shot.kind} answered ${status}: ${body.slice(0, 200)}` };
+    return status === expected
+      ? { ok: true }
+      : { ok: false, why: `${shot.kind} answered ${status}: ${body.slice(0, 200)}` };
   }
 }

@@ -6,8 +6,21 @@ import { DEMO_ACCOUNTS } from "../../db/seeds/demo/accounts";
 import { mulberry32, randomInt } from "../../lib/routing/random";
 import { type Api, ApiError, signIn } from "./api";
 
-export type PickLine = { batchId: number; batchVersion: number; orderLineId: number; binCode: string; sku: string; quantity: number };
-export type HandheldAccount = { index: number; email: string; userId: string; cookie: string; batches: { id: number; lines: PickLine[] }[] };
+export type PickLine = {
+  batchId: number;
+  batchVersion: number;
+  orderLineId: number;
+  binCode: string;
+  sku: string;
+  quantity: number;
+};
+export type HandheldAccount = {
+  index: number;
+  email: string;
+  userId: string;
+  cookie: string;
+  batches: { id: number; lines: PickLine[] }[];
+};
 export type LoadSetup = {
   handhelds: HandheldAccount[];
   plannerCookie: string;
@@ -24,7 +37,14 @@ const PLAN_DAY = "2026-11-21";
 const account = (email: string) => DEMO_ACCOUNTS.find((a) => a.email === email)!;
 
 /** Invented orders over the given SKUs as an order sheet in the template's columns. */
-export function orderSheet(prefix: string, day: string, orders: number, lines: [number, number], skus: string[], seed: number): { csv: string; lines: number } {
+export function orderSheet(
+  prefix: string,
+  day: string,
+  orders: number,
+  lines: [number, number],
+  skus: string[],
+  seed: number,
+): { csv: string; lines: number } {
   const rand = mulberry32(seed);
   const rows = ["Order number,Line,SKU,Quantity,Cut-off,Priority,Customer reference"];
   const cutoffs = ["10:00", "12:00", "14:30", "16:30"];
@@ -35,7 +55,9 @@ export function orderSheet(prefix: string, day: string, orders: number, lines: [
     while (used.size < Math.min(count, skus.length)) used.add(skus[randomInt(rand, 0, skus.length - 1)]!);
     let line = 0;
     for (const sku of used) {
-      rows.push(`${prefix}-${String(o + 1).padStart(6, "0")},${++line},${sku},${randomInt(rand, 1, 4)},${day} ${cutoffs[o % cutoffs.length]},${1 + (o % 3)},Load customer ${o % 40}`);
+      rows.push(
+        `${prefix}-${String(o + 1).padStart(6, "0")},${++line},${sku},${randomInt(rand, 1, 4)},${day} ${cutoffs[o % cutoffs.length]},${1 + (o % 3)},Load customer ${o % 40}`,
+      );
       n++;
     }
   }
@@ -53,14 +75,23 @@ async function waitForJob(a: Api, cookie: string, jobId: string): Promise<Record
   for (;;) {
     const { job } = (await a.call<{ job: Record<string, unknown> }>("GET", `/api/jobs/${jobId}`, { cookie })).body;
     if (job.status === "done") return job;
-    if (job.status === "failed" || job.status === "cancelled") throw new Error(`job ${jobId} ${job.status}: ${job.message}`);
+    if (job.status === "failed" || job.status === "cancelled")
+      throw new Error(`job ${jobId} ${job.status}: ${job.message}`);
     await new Promise((r) => setTimeout(r, 500));
   }
 }
 
 type WaveBody = { wave: { id: number; version: number; orderCount: number; status: string } };
 
-async function createWave(a: Api, cookie: string, name: string, layoutVersionId: number, ends: { depotId: string; dropoffId: string }, method: string, day: string) {
+async function createWave(
+  a: Api,
+  cookie: string,
+  name: string,
+  layoutVersionId: number,
+  ends: { depotId: string; dropoffId: string },
+  method: string,
+  day: string,
+) {
   const { body } = await a.call<{ id: number; orders: number }>("POST", "/api/waves", {
     cookie,
     json: { name, layoutVersionId, settings: { ...LIMITS, ...ends, method }, cutoffBefore: `${day}T23:59:00Z` },
@@ -77,21 +108,36 @@ async function inBatches<T, R>(items: T[], width: number, fn: (t: T) => Promise<
   return out;
 }
 
-export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandheld: number; planOrders: number; log: (s: string) => void }): Promise<LoadSetup> {
+export async function setUpLoad(
+  a: Api,
+  opts: { handhelds: number; linesPerHandheld: number; planOrders: number; log: (s: string) => void },
+): Promise<LoadSetup> {
   const { log } = opts;
   // Names of this run's people and orders carry a tag, so a second run against the same database
   // (while profiling, say) does not collide with the first.
   const tag = Date.now().toString(36).slice(-5).toUpperCase();
   const admin = await signIn(a.origin, "admin@bramblegate.example", account("admin@bramblegate.example").password);
-  const planner = await signIn(a.origin, "planner@bramblegate.example", account("planner@bramblegate.example").password);
+  const planner = await signIn(
+    a.origin,
+    "planner@bramblegate.example",
+    account("planner@bramblegate.example").password,
+  );
 
   // The demo's own waves tell the layout version and its depot and drop-off.
-  const { waves } = (await a.call<{ waves: { layoutVersionId: number; settings: { depotId: string; dropoffId: string } }[] }>("GET", "/api/waves", { cookie: planner })).body;
+  const { waves } = (
+    await a.call<{ waves: { layoutVersionId: number; settings: { depotId: string; dropoffId: string } }[] }>(
+      "GET",
+      "/api/waves",
+      { cookie: planner },
+    )
+  ).body;
   const demo = waves[0];
   if (!demo) throw new Error("the demo seed made no waves");
   const layoutVersionId = demo.layoutVersionId;
   const ends = { depotId: demo.settings.depotId, dropoffId: demo.settings.dropoffId };
-  const { items } = (await a.call<{ items: { sku: string; bins: string[] }[] }>("GET", "/api/items", { cookie: planner })).body;
+  const { items } = (
+    await a.call<{ items: { sku: string; bins: string[] }[] }>("GET", "/api/items", { cookie: planner })
+  ).body;
   const skus = items.filter((i) => i.bins.length > 0).map((i) => i.sku);
 
   log(`adding ${opts.handhelds} picker accounts`);
@@ -101,8 +147,18 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
     4,
     async (i) => {
       const email = `handheld-${String(i + 1).padStart(2, "0")}-${tag.toLowerCase()}@load.example`;
-      const { body } = await a.call<{ user: { id: string } }>("POST", "/api/users", { cookie: admin, json: { email, displayName: `Handheld ${i + 1}`, role: "picker", password }, expect: [201] });
-      return { index: i, email, userId: body.user.id, cookie: await signIn(a.origin, email, password), batches: [] as HandheldAccount["batches"] };
+      const { body } = await a.call<{ user: { id: string } }>("POST", "/api/users", {
+        cookie: admin,
+        json: { email, displayName: `Handheld ${i + 1}`, role: "picker", password },
+        expect: [201],
+      });
+      return {
+        index: i,
+        email,
+        userId: body.user.id,
+        cookie: await signIn(a.origin, email, password),
+        batches: [] as HandheldAccount["batches"],
+      };
     },
   );
 
@@ -112,8 +168,20 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
   const pickSheet = orderSheet(`LOAD-${tag}-H`, PICK_DAY, pickOrders, [5, 5], skus, 7);
   log(`importing ${pickOrders} orders (${pickSheet.lines} lines) for the handhelds; planning and releasing their wave`);
   await importOrders(a, planner, layoutVersionId, "load-handheld-orders.csv", pickSheet.csv);
-  const pickWave = await createWave(a, planner, "Load run: handheld orders", layoutVersionId, ends, "first-come", PICK_DAY);
-  const { body: planned } = await a.call<{ jobId: string }>("POST", `/api/waves/${pickWave.id}/plan`, { cookie: planner, json: { version: pickWave.version }, expect: [202] });
+  const pickWave = await createWave(
+    a,
+    planner,
+    "Load run: handheld orders",
+    layoutVersionId,
+    ends,
+    "first-come",
+    PICK_DAY,
+  );
+  const { body: planned } = await a.call<{ jobId: string }>("POST", `/api/waves/${pickWave.id}/plan`, {
+    cookie: planner,
+    json: { version: pickWave.version },
+    expect: [202],
+  });
   await waitForJob(a, planner, planned.jobId);
   const ready = (await a.call<WaveBody>("GET", `/api/waves/${pickWave.id}`, { cookie: planner })).body.wave;
   await a.call("POST", `/api/waves/${pickWave.id}/release`, { cookie: planner, json: { version: ready.version } });
@@ -125,8 +193,15 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
   while (active.length) {
     for (const h of active) {
       for (let attempt = 0; ; attempt++) {
-        const { next } = (await a.call<{ next: { id: number; version: number; openLines: number } | null }>("GET", "/api/my-batches", { cookie: h.cookie })).body;
-        if (!next) throw new Error(`no batch left to take: the handhelds hold ${[...held.values()].reduce((x, y) => x + y, 0)} lines; import more orders`);
+        const { next } = (
+          await a.call<{ next: { id: number; version: number; openLines: number } | null }>("GET", "/api/my-batches", {
+            cookie: h.cookie,
+          })
+        ).body;
+        if (!next)
+          throw new Error(
+            `no batch left to take: the handhelds hold ${[...held.values()].reduce((x, y) => x + y, 0)} lines; import more orders`,
+          );
         try {
           await a.call("POST", `/api/batches/${next.id}/take`, { cookie: h.cookie, json: { version: next.version } });
           h.batches.push({ id: next.id, lines: [] });
@@ -141,21 +216,46 @@ export async function setUpLoad(a: Api, opts: { handhelds: number; linesPerHandh
   }
 
   log("loading each batch's lines in walking order");
-  type View = { batch: { version: number }; stops: { lines: { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: string }[] }[] };
+  type View = {
+    batch: { version: number };
+    stops: { lines: { orderLineId: number; binCode: string; sku: string; quantity: number; pickStatus: string }[] }[];
+  };
   await inBatches(
     people.flatMap((h) => h.batches.map((b) => ({ h, b }))),
     8,
     async ({ h, b }) => {
       const { body } = await a.call<View>("GET", `/api/batches/${b.id}/pick`, { cookie: h.cookie });
-      b.lines = body.stops.flatMap((s) => s.lines.filter((l) => l.pickStatus === "open").map((l) => ({ batchId: b.id, batchVersion: body.batch.version, orderLineId: l.orderLineId, binCode: l.binCode, sku: l.sku, quantity: l.quantity })));
+      b.lines = body.stops.flatMap((s) =>
+        s.lines
+          .filter((l) => l.pickStatus === "open")
+          .map((l) => ({
+            batchId: b.id,
+            batchVersion: body.batch.version,
+            orderLineId: l.orderLineId,
+            binCode: l.binCode,
+            sku: l.sku,
+            quantity: l.quantity,
+          })),
+      );
     },
   );
 
   const planSheet = orderSheet(`LOAD-${tag}-W`, PLAN_DAY, opts.planOrders, [1, 5], skus, 11);
-  log(`importing the ${opts.planOrders.toLocaleString("en")} orders (${planSheet.lines} lines) of the wave to plan during the load`);
+  log(
+    `importing the ${opts.planOrders.toLocaleString("en")} orders (${planSheet.lines} lines) of the wave to plan during the load`,
+  );
   await importOrders(a, planner, layoutVersionId, "load-wave-orders.csv", planSheet.csv);
-  const planWave = await createWave(a, planner, `Load run: ${opts.planOrders} orders`, layoutVersionId, ends, "savings", PLAN_DAY);
-  if (planWave.orderCount !== opts.planOrders) throw new Error(`the wave to plan took ${planWave.orderCount} orders, not ${opts.planOrders}`);
+  const planWave = await createWave(
+    a,
+    planner,
+    `Load run: ${opts.planOrders} orders`,
+    layoutVersionId,
+    ends,
+    "savings",
+    PLAN_DAY,
+  );
+  if (planWave.orderCount !== opts.planOrders)
+    throw new Error(`the wave to plan took ${planWave.orderCount} orders, not ${opts.planOrders}`);
 
   return {
     handhelds: people,

@@ -6,7 +6,9 @@ const CONFIRMATION_KINDS: readonly Kind[] = ["confirm", "repeat", "wrong scan", 
 export type KindStats = { latencies: number[]; statuses: Map<number, number>; ok: number; bad: number };
 
 export class PhaseStats {
-  readonly kinds = new Map<Kind, KindStats>(KINDS.map((k) => [k, { latencies: [], statuses: new Map(), ok: 0, bad: 0 }]));
+  readonly kinds = new Map<Kind, KindStats>(
+    KINDS.map((k) => [k, { latencies: [], statuses: new Map(), ok: 0, bad: 0 }]),
+  );
   readonly problems: string[] = [];
   timeouts = 0;
   socketErrors = 0;
@@ -54,7 +56,17 @@ export function percentile(sorted: readonly number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))]!;
 }
 
-export type Summary = { count: number; perSecond: number; p50: number; p95: number; p99: number; max: number; ok2xx: number; refused4xx: number; errors: number };
+export type Summary = {
+  count: number;
+  perSecond: number;
+  p50: number;
+  p95: number;
+  p99: number;
+  max: number;
+  ok2xx: number;
+  refused4xx: number;
+  errors: number;
+};
 
 export function summarise(k: KindStats, seconds: number, expected4xx: boolean): Summary {
   const sorted = [...k.latencies].sort((a, b) => a - b);
@@ -64,13 +76,26 @@ export function summarise(k: KindStats, seconds: number, expected4xx: boolean): 
     if (s >= 200 && s < 300) ok2xx += n;
     else if (s >= 400 && s < 500 && expected4xx) refused4xx += n;
   }
-  return { count: sorted.length, perSecond: sorted.length / seconds, p50: percentile(sorted, 50), p95: percentile(sorted, 95), p99: percentile(sorted, 99), max: sorted.at(-1) ?? NaN, ok2xx, refused4xx, errors: k.bad };
+  return {
+    count: sorted.length,
+    perSecond: sorted.length / seconds,
+    p50: percentile(sorted, 50),
+    p95: percentile(sorted, 95),
+    p99: percentile(sorted, 99),
+    max: sorted.at(-1) ?? NaN,
+    ok2xx,
+    refused4xx,
+    errors: k.bad,
+  };
 }
 
 const ms = (x: number) => (Number.isNaN(x) ? "–" : x < 10 ? `${x.toFixed(1)} ms` : `${Math.round(x)} ms`);
 const int = (x: number) => x.toLocaleString("en");
 
-export const TABLE_HEAD = ["| requests | count | req/s | p50 | p95 | p99 | max | 2xx | expected 4xx | errors |", "|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|"];
+export const TABLE_HEAD = [
+  "| requests | count | req/s | p50 | p95 | p99 | max | 2xx | expected 4xx | errors |",
+  "|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|",
+];
 
 export function tableRow(label: string, s: Summary): string {
   return `| ${label} | ${int(s.count)} | ${s.perSecond.toFixed(1)} | ${ms(s.p50)} | ${ms(s.p95)} | ${ms(s.p99)} | ${ms(s.max)} | ${int(s.ok2xx)} | ${int(s.refused4xx)} | ${int(s.errors)} |`;

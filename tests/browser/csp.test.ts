@@ -24,14 +24,20 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
   "/floor-plans": async (page) => void (await page.getByRole("heading", { name: "Floor plans" }).waitFor()),
   // The editor appears once SWR has fetched the draft.
   "/floor-plans/[id]": async (page) => void (await page.getByRole("application").waitFor()),
-  "/floor-plans/[id]/versions/[number]": async (page) => void (await page.getByRole("img", { name: /floor plan/i }).first().waitFor()),
+  "/floor-plans/[id]/versions/[number]": async (page) =>
+    void (await page
+      .getByRole("img", { name: /floor plan/i })
+      .first()
+      .waitFor()),
   "/waves": async (page) => void (await page.getByRole("button", { name: "Create the wave" }).waitFor()),
   "/waves/[id]": async (page) => void (await page.getByRole("link", { name: "#1", exact: true }).waitFor()),
-  "/waves/[id]/batches/[number]": async (page) => void (await page.getByRole("img", { name: /Route of this batch/ }).waitFor()),
+  "/waves/[id]/batches/[number]": async (page) =>
+    void (await page.getByRole("img", { name: /Route of this batch/ }).waitFor()),
   "/waves/[id]/batches/[number]/print": async (page) => expectBarcode(page),
   "/waves/[id]/print": async (page) => expectBarcode(page),
   "/my-batches": async (page) => void (await page.getByRole("heading", { name: "My batches" }).waitFor()),
-  "/pick/[batchId]": async (page) => void (await page.locator("[data-testid=stop-progress], [data-testid=batch-done], .notice-error").first().waitFor()),
+  "/pick/[batchId]": async (page) =>
+    void (await page.locator("[data-testid=stop-progress], [data-testid=batch-done], .notice-error").first().waitFor()),
   // Admins sort first, so the demo admin is on the first page however many users other tests made.
   "/admin/users": async (page) => void (await page.getByText(demoAccount("admin").email).first().waitFor()),
   "/admin/mail": async (page) => void (await page.getByRole("heading", { name: /^Received \(\d+\)$/ }).waitFor()),
@@ -63,7 +69,10 @@ async function visit(page: Page, problems: PageProblems, pattern: string, role?:
   await check!(page, role ?? "picker");
   await page.waitForLoadState("networkidle");
   expect(await isHydrated(page), `${pattern} hydrated`).toBe(true);
-  expect(await page.evaluate(() => document.fonts.ready.then((f) => [...f].some((font) => font.status === "loaded"))), "the app's font loaded").toBe(true);
+  expect(
+    await page.evaluate(() => document.fonts.ready.then((f) => [...f].some((font) => font.status === "loaded"))),
+    "the app's font loaded",
+  ).toBe(true);
   await expectClean(problems);
 }
 
@@ -86,7 +95,9 @@ describe("anonymous visitors", () => {
   });
   afterAll(async () => context?.close());
 
-  it.each(pages.filter((p) => PAGE_ACCESS[p] === "public" && p !== "/sign-in"))("%s runs under the policy", async (p) => visit(page, problems, p));
+  it.each(pages.filter((p) => PAGE_ACCESS[p] === "public" && p !== "/sign-in"))("%s runs under the policy", async (p) =>
+    visit(page, problems, p),
+  );
 
   it("the sign-in form works under the policy, and a page that needs a session sends there", async () => {
     clearProblems(problems);
@@ -96,7 +107,10 @@ describe("anonymous visitors", () => {
     await page.getByLabel("Password").fill("wrong password");
     await page.getByRole("button", { name: "Sign in" }).click();
     // The message comes from the form's own fetch: client code and connect-src both work.
-    await page.getByRole("alert").filter({ hasText: /do not match/ }).waitFor();
+    await page
+      .getByRole("alert")
+      .filter({ hasText: /do not match/ })
+      .waitFor();
     expect(await isHydrated(page)).toBe(true);
     await expectClean(problems);
   });
@@ -108,7 +122,9 @@ for (const role of ROLES) {
     let page: Page;
     let problems: PageProblems;
     beforeAll(async () => {
-      context = await browser.newContext({ viewport: role === "picker" ? { width: 390, height: 844 } : { width: 1280, height: 900 } });
+      context = await browser.newContext({
+        viewport: role === "picker" ? { width: 390, height: 844 } : { width: 1280, height: 900 },
+      });
       problems = await watchProblems(context);
       page = await context.newPage();
       await signInOnPage(page, role);
@@ -116,12 +132,17 @@ for (const role of ROLES) {
     });
     afterAll(async () => context?.close());
 
-    it.each(pages.filter((p) => roleMay(role, PAGE_ACCESS[p]!)))("%s runs under the policy", async (p) => visit(page, problems, p, role));
+    it.each(pages.filter((p) => roleMay(role, PAGE_ACCESS[p]!)))("%s runs under the policy", async (p) =>
+      visit(page, problems, p, role),
+    );
   });
 }
 
 describe("pictures under the policy", () => {
-  const PNG = Buffer.from("89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082", "hex");
+  const PNG = Buffer.from(
+    "89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082",
+    "hex",
+  );
 
   it("a floor plan's background picture loads in the editor, with no violation", async () => {
     const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
@@ -130,16 +151,27 @@ describe("pictures under the policy", () => {
     await signInOnPage(page, "admin");
     await page.waitForURL((u) => u.pathname === ROLE_HOME.admin);
     const origin = new URL(APP_URL).origin;
-    const created = await context.request.post(`${APP_URL}/api/floor-plans`, { headers: { Origin: origin }, data: { name: `CSP pictures ${Date.now()}`, widthM: 12, heightM: 7, cellMm: 1000 } });
+    const created = await context.request.post(`${APP_URL}/api/floor-plans`, {
+      headers: { Origin: origin },
+      data: { name: `CSP pictures ${Date.now()}`, widthM: 12, heightM: 7, cellMm: 1000 },
+    });
     const { id } = (await created.json()) as { id: number };
-    const saved = await context.request.put(`${APP_URL}/api/floor-plans/${id}/draft`, { headers: { Origin: origin }, data: { version: 1, document: smallDocument() } });
+    const saved = await context.request.put(`${APP_URL}/api/floor-plans/${id}/draft`, {
+      headers: { Origin: origin },
+      data: { version: 1, document: smallDocument() },
+    });
     expect(saved.ok()).toBe(true);
 
     await page.goto(`${APP_URL}/floor-plans/${id}`);
     await page.getByRole("application").waitFor();
     await page.getByText("Background picture", { exact: true }).click();
-    const picture = page.waitForResponse((r) => /\/api\/floor-plans\/\d+\/background\/[^/]+$/.test(new URL(r.url()).pathname) && r.request().method() === "GET");
-    await page.getByLabel("Background picture (PNG or JPEG)").setInputFiles({ name: "plan.png", mimeType: "image/png", buffer: PNG });
+    const picture = page.waitForResponse(
+      (r) =>
+        /\/api\/floor-plans\/\d+\/background\/[^/]+$/.test(new URL(r.url()).pathname) && r.request().method() === "GET",
+    );
+    await page
+      .getByLabel("Background picture (PNG or JPEG)")
+      .setInputFiles({ name: "plan.png", mimeType: "image/png", buffer: PNG });
     const res = await picture;
     expect(res.status()).toBe(200);
     expect(res.headers()["content-type"]).toBe("image/png");

@@ -46,14 +46,19 @@ const alive = (pid: number) => {
 };
 
 async function confirmedLines(batchId: number) {
-  return (await db()("batch_lines as bl").join("order_lines as l", "l.id", "bl.order_line_id").where("bl.batch_id", batchId).whereNot("bl.pick_status", "open").select("bl.order_line_id", "bl.pick_status", "bl.picked_qty", "l.quantity")) as {
+  return (await db()("batch_lines as bl")
+    .join("order_lines as l", "l.id", "bl.order_line_id")
+    .where("bl.batch_id", batchId)
+    .whereNot("bl.pick_status", "open")
+    .select("bl.order_line_id", "bl.pick_status", "bl.picked_qty", "l.quantity")) as {
     order_line_id: number;
     pick_status: string;
     picked_qty: number;
     quantity: number;
   }[];
 }
-const confirmationCount = async (batchId: number) => Number((await db()("pick_confirmations").where({ batch_id: batchId }).count({ n: "*" }).first())!.n);
+const confirmationCount = async (batchId: number) =>
+  Number((await db()("pick_confirmations").where({ batch_id: batchId }).count({ n: "*" }).first())!.n);
 
 async function tapPicked(page: Page, openBefore: number) {
   await page.locator(`[data-open-lines="${openBefore}"]`).waitFor();
@@ -65,7 +70,9 @@ describe("MariaDB restarted while a picker confirms", () => {
   it("queues the picks made while it is down, sends them when it is back, and counts each once", async () => {
     const { user: u, batchId } = await pickerWithBatch();
     const { wave_id: waveId } = await db()("batches").where({ id: batchId }).first("wave_id");
-    const total = Number((await db()("batch_lines").where({ batch_id: batchId, pick_status: "open" }).count({ n: "*" }).first())!.n);
+    const total = Number(
+      (await db()("batch_lines").where({ batch_id: batchId, pick_status: "open" }).count({ n: "*" }).first())!.n,
+    );
     expect(total).toBeGreaterThan(4);
 
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
@@ -80,7 +87,11 @@ describe("MariaDB restarted while a picker confirms", () => {
     const answers: { status: number; retryAfter: string | null; body: unknown }[] = [];
     page.on("response", async (r) => {
       if (!r.url().endsWith(`/api/batches/${batchId}/confirm`)) return;
-      answers.push({ status: r.status(), retryAfter: r.headers()["retry-after"] ?? null, body: await r.json().catch(() => null) });
+      answers.push({
+        status: r.status(),
+        retryAfter: r.headers()["retry-after"] ?? null,
+        body: await r.json().catch(() => null),
+      });
     });
 
     // Two picks with the database up: sent at once.
@@ -97,9 +108,13 @@ describe("MariaDB restarted while a picker confirms", () => {
       await tapPicked(page, total - 3);
       const waiting = page.getByTestId("queue-waiting");
       await waiting.waitFor();
-      await until("both picks shown as waiting", 10_000, async () => /^2 confirmations waiting to send/.test((await waiting.textContent()) ?? ""));
+      await until("both picks shown as waiting", 10_000, async () =>
+        /^2 confirmations waiting to send/.test((await waiting.textContent()) ?? ""),
+      );
       await page.screenshot({ path: path.join(ARTIFACTS, "pick-database-down.png"), fullPage: true });
-      const refused = await until("a 503 answer to a confirmation", 10_000, async () => answers.find((a) => a.status === 503));
+      const refused = await until("a 503 answer to a confirmation", 10_000, async () =>
+        answers.find((a) => a.status === 503),
+      );
       expect(refused.retryAfter).toMatch(/^\d+$/);
       expect((refused.body as { error: string }).error).toMatch(/database|nothing was saved/i);
       expect(answers.filter((a) => a.status !== 503 && a.status !== 200)).toEqual([]);
@@ -111,8 +126,12 @@ describe("MariaDB restarted while a picker confirms", () => {
       expect(alive(pid)).toBe(true);
       const other = await context.newPage();
       await other.goto(`${APP_URL}/my-batches`);
-      await expect(other.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("This page could not be shown");
-      await expect(other.getByTestId("page-error").textContent()).resolves.toMatch(/database.*Wait a minute and try again/);
+      await expect(other.getByRole("heading", { level: 1 }).textContent()).resolves.toBe(
+        "This page could not be shown",
+      );
+      await expect(other.getByTestId("page-error").textContent()).resolves.toMatch(
+        /database.*Wait a minute and try again/,
+      );
       await other.close();
     } finally {
       await testService("mariadb", "start");
@@ -133,7 +152,10 @@ describe("MariaDB restarted while a picker confirms", () => {
     const planner = await signInAs("planner");
     const wave = await api().get(`/api/waves/${waveId}`).set("Cookie", planner);
     expect(wave.status).toBe(200);
-    expect(wave.body.batches.find((b: { id: number }) => b.id === batchId)).toMatchObject({ pickedLines: 4, shortLines: 0 });
+    expect(wave.body.batches.find((b: { id: number }) => b.id === batchId)).toMatchObject({
+      pickedLines: 4,
+      shortLines: 0,
+    });
     await page.reload();
     await page.locator(`[data-open-lines="${total - 4}"]`).waitFor();
 
@@ -141,7 +163,9 @@ describe("MariaDB restarted while a picker confirms", () => {
     expect(serverPid()).toBe(pid);
     expect(alive(pid)).toBe(true);
     expect((await api().get("/api/health")).status).toBe(200);
-    expect((await api().post("/api/password/reset-request").set("Origin", ORIGIN).send({ email: u.email })).status).toBe(200);
+    expect(
+      (await api().post("/api/password/reset-request").set("Origin", ORIGIN).send({ email: u.email })).status,
+    ).toBe(200);
     await until("the reset mail", 15_000, async () => (await sinkMessagesTo(u.email)).length === 1);
     await context.close();
   });

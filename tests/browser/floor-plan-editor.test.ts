@@ -39,7 +39,10 @@ async function drag(page: Page, width: number, from: [number, number], to: [numb
 }
 
 async function tool(page: Page, name: string) {
-  await page.getByRole("toolbar", { name: "Floor plan tools" }).getByRole("button", { name: new RegExp(`^${name}`) }).click();
+  await page
+    .getByRole("toolbar", { name: "Floor plan tools" })
+    .getByRole("button", { name: new RegExp(`^${name}`) })
+    .click();
 }
 
 async function click(page: Page, width: number, at: [number, number]) {
@@ -94,7 +97,10 @@ describe("drawing a floor plan by mouse and publishing it", () => {
     const planId = Number(new URL(page.url()).pathname.split("/")[2]);
     const api = await context.request.get(`${APP_URL}/api/floor-plans/${planId}/versions/1`);
     expect(api.ok()).toBe(true);
-    const { version, bins } = (await api.json()) as { version: { document: unknown }; bins: { code: string; rackRun: string }[] };
+    const { version, bins } = (await api.json()) as {
+      version: { document: unknown };
+      bins: { code: string; rackRun: string }[];
+    };
     const doc = editorDocumentSchema.parse(version.document);
     expect(doc.rackRuns).toHaveLength(2);
     expect(bins).toHaveLength(2 * 10 * 2);
@@ -103,7 +109,12 @@ describe("drawing a floor plan by mouse and publishing it", () => {
     const { graph, matrix } = await buildLayout(doc);
     const a = findBin(graph, from)!;
     const b = findBin(graph, to)!;
-    const expected = accessDistance(graph, matrix, graph.accessPoints[a.accessPoint]!, graph.accessPoints[b.accessPoint]!);
+    const expected = accessDistance(
+      graph,
+      matrix,
+      graph.accessPoints[a.accessPoint]!,
+      graph.accessPoints[b.accessPoint]!,
+    );
 
     await page.getByLabel("From bin").fill(from);
     await page.getByLabel("To bin").fill(to);
@@ -124,14 +135,23 @@ describe("drawing a floor plan by mouse and publishing it", () => {
 });
 
 describe("editor uploads", () => {
-  const PNG = Buffer.from("89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082", "hex");
+  const PNG = Buffer.from(
+    "89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082",
+    "hex",
+  );
 
   it("imports a rack run's codes from a CSV, shows bad rows by number, and lays a picture under the grid", async () => {
     const { context, page } = await signedInPage(browser, "admin", { width: 1400, height: 1000 });
     const origin = new URL(APP_URL).origin;
-    const created = await context.request.post(`${APP_URL}/api/floor-plans`, { headers: { Origin: origin }, data: { name: `Uploads ${Date.now()}`, widthM: 12, heightM: 7, cellMm: 1000 } });
+    const created = await context.request.post(`${APP_URL}/api/floor-plans`, {
+      headers: { Origin: origin },
+      data: { name: `Uploads ${Date.now()}`, widthM: 12, heightM: 7, cellMm: 1000 },
+    });
     const { id } = (await created.json()) as { id: number };
-    const saved = await context.request.put(`${APP_URL}/api/floor-plans/${id}/draft`, { headers: { Origin: origin }, data: { version: 1, document: smallDocument() } });
+    const saved = await context.request.put(`${APP_URL}/api/floor-plans/${id}/draft`, {
+      headers: { Origin: origin },
+      data: { version: 1, document: smallDocument() },
+    });
     expect(saved.ok()).toBe(true);
 
     await page.goto(`${APP_URL}/floor-plans/${id}`);
@@ -139,14 +159,24 @@ describe("editor uploads", () => {
     await tool(page, "Select");
     await click(page, 12, [3, 2]);
     const upload = page.getByLabel("Import codes (.xlsx or .csv)");
-    await upload.setInputFiles({ name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from("Location code,Bay,Level\nX-1,1,1\nX-2,99,1\n") });
+    await upload.setInputFiles({
+      name: "bad.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from("Location code,Bay,Level\nX-1,1,1\nX-2,99,1\n"),
+    });
     await page.getByText(/row 3/i).first().waitFor();
-    await upload.setInputFiles({ name: "good.csv", mimeType: "text/csv", buffer: Buffer.from("Location code,Bay,Level\nDOCK-SPARES,1,1\n") });
+    await upload.setInputFiles({
+      name: "good.csv",
+      mimeType: "text/csv",
+      buffer: Buffer.from("Location code,Bay,Level\nDOCK-SPARES,1,1\n"),
+    });
     await page.getByText(/1 code differs from the pattern/).waitFor();
     await page.getByText("DOCK-SPARES").first().waitFor();
 
     await page.getByText("Background picture", { exact: true }).click();
-    await page.getByLabel("Background picture (PNG or JPEG)").setInputFiles({ name: "plan.png", mimeType: "image/png", buffer: PNG });
+    await page
+      .getByLabel("Background picture (PNG or JPEG)")
+      .setInputFiles({ name: "plan.png", mimeType: "image/png", buffer: PNG });
     await page.locator("svg[role=application] image").waitFor({ state: "attached" });
     await page.screenshot({ path: path.join(ARTIFACTS, "editor-uploads.png"), fullPage: true });
     await context.close();

@@ -39,10 +39,16 @@ function injected(page: Page): Promise<string[]> {
   return page.evaluate(() => {
     const found: string[] = [];
     for (const el of Array.from(document.querySelectorAll("*"))) {
-      for (const a of Array.from(el.attributes)) if (/^on/i.test(a.name)) found.push(`<${el.tagName.toLowerCase()} ${a.name}>`);
+      for (const a of Array.from(el.attributes))
+        if (/^on/i.test(a.name)) found.push(`<${el.tagName.toLowerCase()} ${a.name}>`);
       const tag = el.tagName.toLowerCase();
       if (tag === "img" && ["x", ""].includes(el.getAttribute("src") ?? "")) found.push("<img src=x>");
-      if (tag === "script" && /alert\(1\)/.test(el.textContent ?? "") && !/__next_f|self\.__next/.test(el.textContent ?? "")) found.push("<script>alert(1)</script>");
+      if (
+        tag === "script" &&
+        /alert\(1\)/.test(el.textContent ?? "") &&
+        !/__next_f|self\.__next/.test(el.textContent ?? "")
+      )
+        found.push("<script>alert(1)</script>");
       for (const attr of ["href", "src", "action", "formaction", "xlink:href"]) {
         if (/^\s*javascript:/i.test(el.getAttribute(attr) ?? "")) found.push(`<${tag} ${attr}=javascript:…>`);
       }
@@ -74,7 +80,10 @@ describe("hostile text shows as plain text", () => {
   let picker: { context: BrowserContext; page: Page; problems: PageProblems };
   beforeAll(async () => {
     admin = await signedIn(demoAccount("admin").email, demoAccount("admin").password);
-    planner = await signedIn(demoAccount("planner").email, demoAccount("planner").password, { width: 1400, height: 1000 });
+    planner = await signedIn(demoAccount("planner").email, demoAccount("planner").password, {
+      width: 1400,
+      height: 1000,
+    });
     picker = await signedIn(s.picker.email, s.picker.password, { width: 390, height: 844 });
   });
   afterAll(async () => {
@@ -97,9 +106,19 @@ describe("hostile text shows as plain text", () => {
     await expectPlainText(page, problems, [`${s.planNames[0]}: draft`], "floor-plan-draft");
     await page.goto(`${APP_URL}/floor-plans/${s.planId}/versions/1`);
     await search(page, /^Search location code, aisle or rack run/, "onerror");
-    await expectPlainText(page, problems, [s.planNames[0]!, hostileCode("R1", 1, 1), hostileCode("R1", 10, 2)], "floor-plan-version");
+    await expectPlainText(
+      page,
+      problems,
+      [s.planNames[0]!, hostileCode("R1", 1, 1), hostileCode("R1", 10, 2)],
+      "floor-plan-version",
+    );
     await search(page, /^Search location code, aisle or rack run/, "</script>");
-    await expectPlainText(page, problems, [hostileCode("R2", 11, 1), hostileCode("R2", 20, 2)], "floor-plan-version-r2");
+    await expectPlainText(
+      page,
+      problems,
+      [hostileCode("R2", 11, 1), hostileCode("R2", 20, 2)],
+      "floor-plan-version-r2",
+    );
   });
 
   it("the items list", async () => {
@@ -114,7 +133,12 @@ describe("hostile text shows as plain text", () => {
     await page.goto(`${APP_URL}/orders`);
     await page.getByLabel("Show").selectOption("all");
     await search(page, /^Search order or customer reference/, s.tag);
-    await expectPlainText(page, problems, s.orders.map((o) => o.orderNumber), "orders");
+    await expectPlainText(
+      page,
+      problems,
+      s.orders.map((o) => o.orderNumber),
+      "orders",
+    );
     await expectPlainText(page, problems, HOSTILE, "orders-customers");
   });
 
@@ -130,10 +154,27 @@ describe("hostile text shows as plain text", () => {
     await expectPlainText(page, problems, [s.waveName, shortSku], "wave");
 
     await page.goto(`${APP_URL}/waves/${s.waveId}/batches/1`);
-    await expectPlainText(page, problems, [...s.items.map((i) => i.bin), ...s.items.map((i) => i.sku), ...s.orders.map((o) => o.orderNumber)], "batch");
+    await expectPlainText(
+      page,
+      problems,
+      [...s.items.map((i) => i.bin), ...s.items.map((i) => i.sku), ...s.orders.map((o) => o.orderNumber)],
+      "batch",
+    );
 
     await page.goto(`${APP_URL}/waves/${s.waveId}/batches/1/print`);
-    await expectPlainText(page, problems, [s.waveName, ...s.items.map((i) => i.bin), ...s.items.map((i) => i.sku), ...HOSTILE, ...s.orders.map((o) => o.orderNumber), `Then take the cart to ${HOSTILE_DROPOFF} (P1).`], "pick-list");
+    await expectPlainText(
+      page,
+      problems,
+      [
+        s.waveName,
+        ...s.items.map((i) => i.bin),
+        ...s.items.map((i) => i.sku),
+        ...HOSTILE,
+        ...s.orders.map((o) => o.orderNumber),
+        `Then take the cart to ${HOSTILE_DROPOFF} (P1).`,
+      ],
+      "pick-list",
+    );
   });
 
   it("the handheld of a picker whose name is hostile", async () => {

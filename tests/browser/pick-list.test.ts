@@ -27,10 +27,14 @@ describe("printed pick list", () => {
     const expected = batch.stops.flatMap((s) => s.lines.map((l) => `${s.seq} ${l.binCode}`));
     const rows = page.getByTestId("pick-line");
     await rows.first().waitFor();
-    const shown = await rows.evaluateAll((trs) => trs.map((tr) => `${tr.children[0]?.textContent} ${tr.children[1]?.textContent?.replace(" ▲", "")}`));
+    const shown = await rows.evaluateAll((trs) =>
+      trs.map((tr) => `${tr.children[0]?.textContent} ${tr.children[1]?.textContent?.replace(" ▲", "")}`),
+    );
     expect(shown).toEqual(expected);
 
-    const barcode = await page.getByTestId("batch-barcode").screenshot({ path: path.join(ARTIFACTS, "pick-list-barcode.png") });
+    const barcode = await page
+      .getByTestId("batch-barcode")
+      .screenshot({ path: path.join(ARTIFACTS, "pick-list-barcode.png") });
     expect(decodeBarcodePng(barcode)).toBe(batchLabel(2, 1));
     await page.screenshot({ path: path.join(ARTIFACTS, "pick-list.png"), fullPage: true });
     await page.emulateMedia({ media: "print" });

@@ -56,8 +56,16 @@ async function viewOf(p: Picker): Promise<{ stops: Stop[]; batch: { version: num
   return res.body;
 }
 
-const pickStatus = async (orderLineId: number) => (await db()("batch_lines").where({ order_line_id: orderLineId }).first("pick_status")).pick_status as string;
-const closedLines = async (batchId: number) => Number((await db()("batch_lines").where({ batch_id: batchId }).whereNot({ pick_status: "open" }).count({ n: "*" }).first())!.n);
+const pickStatus = async (orderLineId: number) =>
+  (await db()("batch_lines").where({ order_line_id: orderLineId }).first("pick_status")).pick_status as string;
+const closedLines = async (batchId: number) =>
+  Number(
+    (await db()("batch_lines")
+      .where({ batch_id: batchId })
+      .whereNot({ pick_status: "open" })
+      .count({ n: "*" })
+      .first())!.n,
+  );
 
 async function scanShown(page: Page) {
   const bin = (await page.getByTestId("stop-location").textContent())!.trim();
@@ -71,7 +79,10 @@ describe("the handheld confirms only what the picker saw", () => {
     const { stops } = await viewOf(p);
     expect(stops.length, "a batch of at least two stops").toBeGreaterThan(1);
     const [first, second] = [stops[0]!, stops[1]!];
-    expect(stops.flatMap((s) => s.lines).every((l) => l.pickStatus === "open"), "a batch nobody has started").toBe(true);
+    expect(
+      stops.flatMap((s) => s.lines).every((l) => l.pickStatus === "open"),
+      "a batch nobody has started",
+    ).toBe(true);
     const total = stops.reduce((n, s) => n + s.lines.length, 0);
     const page = await signedInAs(browser, APP_URL, p);
     await page.goto(`${APP_URL}/pick/${p.batchId}`);
@@ -99,7 +110,10 @@ describe("the handheld confirms only what the picker saw", () => {
 
     // A tap meant for the new stop, once it has been on screen, is taken.
     await button.click();
-    await until("the next stop's tap stored", async () => (await pickStatus(second.lines[0]!.orderLineId)) === "picked");
+    await until(
+      "the next stop's tap stored",
+      async () => (await pickStatus(second.lines[0]!.orderLineId)) === "picked",
+    );
     await page.context().close();
   });
 
@@ -111,12 +125,24 @@ describe("the handheld confirms only what the picker saw", () => {
       // None in this batch: a line of the next stop moves into the first one, as when two bins face each other across an aisle.
       expect(stops.length, "a batch of at least two stops").toBeGreaterThan(1);
       const moved = stops[1]!.lines.at(-1)!;
-      await db()("batch_lines").where({ batch_id: p.batchId, order_line_id: moved.orderLineId }).update({ stop_seq: stops[0]!.seq });
+      await db()("batch_lines")
+        .where({ batch_id: p.batchId, order_line_id: moved.orderLineId })
+        .update({ stop_seq: stops[0]!.seq });
       at = 0;
     }
     // Lines before that stop are picked already (through the API, as another screen would).
     for (const l of stops.slice(0, at).flatMap((s) => s.lines)) {
-      const r = await api().post(`/api/batches/${p.batchId}/confirm`).set("Cookie", p.cookie).set("Origin", ORIGIN).send({ idempotencyKey: `two-bins-${l.orderLineId}`, orderLineId: l.orderLineId, quantity: l.quantity, binCode: l.binCode, batchVersion: batch.version });
+      const r = await api()
+        .post(`/api/batches/${p.batchId}/confirm`)
+        .set("Cookie", p.cookie)
+        .set("Origin", ORIGIN)
+        .send({
+          idempotencyKey: `two-bins-${l.orderLineId}`,
+          orderLineId: l.orderLineId,
+          quantity: l.quantity,
+          binCode: l.binCode,
+          batchVersion: batch.version,
+        });
       expect(r.status, JSON.stringify(r.body)).toBe(200);
     }
     const stop = (await viewOf(p)).stops.find((s) => s.seq === stops[at]!.seq)!;
@@ -125,7 +151,9 @@ describe("the handheld confirms only what the picker saw", () => {
     const page = await signedInAs(browser, APP_URL, p);
     await page.goto(`${APP_URL}/pick/${p.batchId}`);
     await page.getByTestId("stop-bins").waitFor();
-    expect((await page.getByTestId("line-bin").allTextContents()).map((t) => t.trim())).toEqual(bins.map((b) => `Bin ${b}`));
+    expect((await page.getByTestId("line-bin").allTextContents()).map((t) => t.trim())).toEqual(
+      bins.map((b) => `Bin ${b}`),
+    );
     await page.screenshot({ path: path.join(ARTIFACTS, "pick-two-bins-phone.png"), fullPage: true });
 
     const shown = (await page.getByTestId("stop-location").textContent())!.trim();
@@ -166,7 +194,13 @@ describe("a handheld on the site's LAN over plain HTTP", () => {
     const shown = (await viewOf(p)).stops.flatMap((st) => st.lines).find((l) => l.pickStatus === "open")!;
     await expect(page.getByTestId("stop-location").textContent()).resolves.toBe(shown.binCode);
     const lineId = shown.orderLineId;
-    expect(await page.evaluate(() => ({ secure: window.isSecureContext, randomUUID: typeof crypto.randomUUID, getRandomValues: typeof crypto.getRandomValues }))).toEqual({ secure: false, randomUUID: "undefined", getRandomValues: "function" });
+    expect(
+      await page.evaluate(() => ({
+        secure: window.isSecureContext,
+        randomUUID: typeof crypto.randomUUID,
+        getRandomValues: typeof crypto.getRandomValues,
+      })),
+    ).toEqual({ secure: false, randomUUID: "undefined", getRandomValues: "function" });
     await page.screenshot({ path: path.join(ARTIFACTS, "pick-lan-phone.png"), fullPage: true });
     await button.click();
     await until("the pick made over plain HTTP stored", async () => (await pickStatus(lineId)) === "picked");

@@ -19,10 +19,15 @@ describe("the handheld", () => {
   it("works batch 1 to the end on a phone: scans typed by a wedge scanner, a wrong scan refused, one short pick, then the drop-off", async () => {
     const { context, page } = await signedInPage(browser, "picker", { width: 390, height: 844 });
     await page.goto(`${APP_URL}/my-batches`);
-    await page.getByRole("link", { name: /picking batch 1$/ }).first().waitFor();
+    await page
+      .getByRole("link", { name: /picking batch 1$/ })
+      .first()
+      .waitFor();
     await page.screenshot({ path: path.join(ARTIFACTS, "my-batches-phone.png"), fullPage: true });
 
-    const total = Number((await db()("batch_lines").where({ batch_id: 1, pick_status: "open" }).count({ n: "*" }).first())!.n);
+    const total = Number(
+      (await db()("batch_lines").where({ batch_id: 1, pick_status: "open" }).count({ n: "*" }).first())!.n,
+    );
     expect(total).toBeGreaterThan(1);
     await page.goto(`${APP_URL}/pick/1`);
     await page.locator(`[data-open-lines="${total}"]`).waitFor();
@@ -66,7 +71,9 @@ describe("the handheld", () => {
     expect((await db()("batches").where({ id: 1 }).first("status")).status).toBe("done");
     const lines = await db()("batch_lines").where({ batch_id: 1 }).select("pick_status", "picked_qty", "short_reason");
     expect(lines.filter((l: { pick_status: string }) => l.pick_status === "open")).toHaveLength(0);
-    expect(lines.filter((l: { pick_status: string }) => l.pick_status === "short")).toEqual([{ pick_status: "short", picked_qty: 0, short_reason: "damaged" }]);
+    expect(lines.filter((l: { pick_status: string }) => l.pick_status === "short")).toEqual([
+      { pick_status: "short", picked_qty: 0, short_reason: "damaged" },
+    ]);
     await context.close();
   });
 });

@@ -55,7 +55,11 @@ describe("signing in through the browser", () => {
   });
 
   // A page on another origin stands in for a phishing site, so a redirect there is seen, not guessed.
-  for (const [what, sep] of [["a tab", "%09"], ["a newline", "%0a"], ["a backslash", "%5C"]] as const) {
+  for (const [what, sep] of [
+    ["a tab", "%09"],
+    ["a newline", "%0a"],
+    ["a backslash", "%5C"],
+  ] as const) {
     it(`?next= with ${what} after the first slash still lands on this site`, async () => {
       const phish = http.createServer((_req, res) => res.end("<h1>phish</h1>"));
       await new Promise<void>((r) => phish.listen(0, "127.0.0.1", r));
@@ -88,7 +92,9 @@ describe("signing in through the browser", () => {
     await page.waitForURL(/\/admin\/users/);
     // The table fills in after SWR's first fetch.
     await page.getByRole("cell", { name: demoAccount("picker").email }).waitFor();
-    await expect(page.getByRole("columnheader").allTextContents()).resolves.toEqual(expect.arrayContaining([expect.stringContaining("Role")]));
+    await expect(page.getByRole("columnheader").allTextContents()).resolves.toEqual(
+      expect.arrayContaining([expect.stringContaining("Role")]),
+    );
     await page.screenshot({ path: path.join(ARTIFACTS, "admin-users.png"), fullPage: true });
     await page.getByRole("button", { name: "Sign out" }).click();
     await page.waitForURL(/\/sign-in/);

@@ -17,7 +17,10 @@ beforeAll(async () => {
   // any other open order, so a cut-off on 9 January takes exactly these three.
   const [onLayout] = await fixtures.itemsOnLayout(1);
   await fixtures.addOrder(`${TAG}-GOOD`, "2026-01-08T08:00:00Z", [onLayout!]);
-  await fixtures.addOrder(`${TAG}-OFF`, "2026-01-08T09:00:00Z", [onLayout!, await fixtures.addItem(`${TAG}-OFF`, [`ZZ-${TAG}-1`])]);
+  await fixtures.addOrder(`${TAG}-OFF`, "2026-01-08T09:00:00Z", [
+    onLayout!,
+    await fixtures.addItem(`${TAG}-OFF`, [`ZZ-${TAG}-1`]),
+  ]);
   await fixtures.addOrder(`${TAG}-NOBIN`, "2026-01-08T10:00:00Z", [await fixtures.addItem(`${TAG}-NOBIN`, [])]);
 });
 afterAll(async () => {

@@ -17,7 +17,9 @@ describe("a planner plans a wave in the browser", () => {
   it("imports the demo order sheet, plans a wave with progress, and opens a batch with its route drawn", async () => {
     const { context, page } = await signedInPage(browser, "planner", { width: 1400, height: 1000 });
     await page.goto(`${APP_URL}/orders`);
-    await page.getByLabel("Spreadsheet (.xlsx or .csv)").setInputFiles(path.resolve(process.cwd(), "public/demo/bramblegate-orders-2026-11-28.csv"));
+    await page
+      .getByLabel("Spreadsheet (.xlsx or .csv)")
+      .setInputFiles(path.resolve(process.cwd(), "public/demo/bramblegate-orders-2026-11-28.csv"));
     const importButton = page.getByRole("button", { name: /^Import \d+ rows$/ });
     await importButton.waitFor();
     await expect(importButton.textContent()).resolves.toBe("Import 117 rows");
@@ -44,7 +46,10 @@ describe("a planner plans a wave in the browser", () => {
     const map = page.getByRole("img", { name: /Route of this batch/ });
     await map.waitFor();
     // Numbered stops on the map match the stop list.
-    const stops = await page.getByRole("list", { name: "Stops in walking order" }).getByText(/^Stop \d+$/).count();
+    const stops = await page
+      .getByRole("list", { name: "Stops in walking order" })
+      .getByText(/^Stop \d+$/)
+      .count();
     expect(stops).toBeGreaterThan(0);
     expect(await map.locator("polyline").count()).toBeGreaterThan(0);
     await page.screenshot({ path: path.join(ARTIFACTS, "batch-route.png"), fullPage: true });

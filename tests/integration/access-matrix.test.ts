@@ -17,7 +17,9 @@ describe("every route under app/ has an access decision", () => {
     expect(pages).toContain("/sign-in");
     expect(handlers.map((h) => h.url)).toContain("/api/health");
   });
-  it.each(pages)("page %s is in PAGE_ACCESS", (p) => expect(PAGE_ACCESS[p], `add ${p} to lib/auth/access-table.ts`).toBeDefined());
+  it.each(pages)("page %s is in PAGE_ACCESS", (p) =>
+    expect(PAGE_ACCESS[p], `add ${p} to lib/auth/access-table.ts`).toBeDefined(),
+  );
   it.each(handlers)("handler $url declares exactly its exported methods", ({ url, methods }) => {
     expect(Object.keys(API_ACCESS[url] ?? {}).sort()).toEqual([...methods].sort());
   });
@@ -60,16 +62,23 @@ describe("role × page matrix", () => {
 });
 
 describe("role × route handler matrix", () => {
-  const cases = handlers.flatMap((h) => h.methods.map((m) => ({ url: h.url, method: m, access: API_ACCESS[h.url]![m]! })));
+  const cases = handlers.flatMap((h) =>
+    h.methods.map((m) => ({ url: h.url, method: m, access: API_ACCESS[h.url]![m]! })),
+  );
 
   it.each(cases)("anonymous $method $url", async ({ url, method, access }) => {
     const mark = await auditMark();
-    const res = await api()[method.toLowerCase() as "get"](concrete(url)).set("Origin", ORIGIN).send(method === "GET" ? undefined : {});
+    const res = await api()
+      [method.toLowerCase() as "get"](concrete(url))
+      .set("Origin", ORIGIN)
+      .send(method === "GET" ? undefined : {});
     if (access === "public") expect([401, 403]).not.toContain(res.status);
     else {
       expect(res.status).toBe(401);
       expect(res.body.error).toMatch(/sign in/i);
-      expect((await auditedSince(mark, "access.anonymous")).map((e) => e.subject)).toContain(`${method} ${concrete(url)}`);
+      expect((await auditedSince(mark, "access.anonymous")).map((e) => e.subject)).toContain(
+        `${method} ${concrete(url)}`,
+      );
     }
   });
 
@@ -84,7 +93,9 @@ describe("role × route handler matrix", () => {
       else {
         expect(res.status).toBe(403);
         expect(res.body.error).toMatch(/role/i);
-        expect((await auditedSince(mark, "access.denied")).map((e) => e.subject)).toContain(`${method} ${concrete(url)}`);
+        expect((await auditedSince(mark, "access.denied")).map((e) => e.subject)).toContain(
+          `${method} ${concrete(url)}`,
+        );
       }
       expect(res.status).toBeLessThan(500);
     });

@@ -13,7 +13,11 @@ afterAll(closeDb);
 
 let n = 0;
 const wrongSignIn = (forwardedFor: string) =>
-  api().post("/api/session").set("Origin", ORIGIN).set("X-Forwarded-For", forwardedFor).send({ email: `nobody-${Date.now()}-${++n}@tests.example`, password: "wrong password" });
+  api()
+    .post("/api/session")
+    .set("Origin", ORIGIN)
+    .set("X-Forwarded-For", forwardedFor)
+    .send({ email: `nobody-${Date.now()}-${++n}@tests.example`, password: "wrong password" });
 
 describe("client address without a trusted proxy", () => {
   it("a forged X-Forwarded-For is not what the audit log records", async () => {
@@ -25,7 +29,8 @@ describe("client address without a trusted proxy", () => {
 
   it("rotating X-Forwarded-For counts every failure against the one real address", async () => {
     const mark = await auditMark();
-    for (const forged of ["198.51.100.8", "198.51.100.9, 198.51.100.10", "not an address"]) expect((await wrongSignIn(forged)).status).toBe(401);
+    for (const forged of ["198.51.100.8", "198.51.100.9, 198.51.100.10", "not an address"])
+      expect((await wrongSignIn(forged)).status).toBe(401);
     const entries = await auditedSince(mark, "sign_in.failure");
     expect(entries.map((e) => e.ip)).toEqual(["127.0.0.1", "127.0.0.1", "127.0.0.1"]);
   });
@@ -41,7 +46,11 @@ describe("client address without a trusted proxy", () => {
 
 describe("TRUSTED_PROXIES", () => {
   it("a server given an entry it cannot read does not start, and says which entry", async () => {
-    await expect(startSecondServer({ TRUSTED_PROXIES: "127.0.0.1, proxy.local" }, "bad-trusted-proxies")).rejects.toThrow(/exited before answering/);
-    expect(readFileSync(".data/test/second-app-bad-trusted-proxies.log", "utf8")).toMatch(/TRUSTED_PROXIES: "proxy\.local" is not an IP address/);
+    await expect(
+      startSecondServer({ TRUSTED_PROXIES: "127.0.0.1, proxy.local" }, "bad-trusted-proxies"),
+    ).rejects.toThrow(/exited before answering/);
+    expect(readFileSync(".data/test/second-app-bad-trusted-proxies.log", "utf8")).toMatch(
+      /TRUSTED_PROXIES: "proxy\.local" is not an IP address/,
+    );
   });
 });

@@ -33,7 +33,8 @@ const post = (path: string, from: string, body: object) =>
 const signInFrom = (from: string, email: string, password: string) => post("/api/session", from, { email, password });
 const resetFrom = (from: string, email: string) => post("/api/password/reset-request", from, { email });
 
-const tally = (statuses: number[]) => statuses.reduce<Record<number, number>>((t, s) => ({ ...t, [s]: (t[s] ?? 0) + 1 }), {});
+const tally = (statuses: number[]) =>
+  statuses.reduce<Record<number, number>>((t, s) => ({ ...t, [s]: (t[s] ?? 0) + 1 }), {});
 /** The words with the clock and the counts taken out, to compare two answers given a moment apart. */
 const shape = (message: string) => message.replace(/\d+/g, "#");
 
@@ -62,7 +63,9 @@ describe("sign-in throttle under parallel requests", () => {
 
   it(`${MAX_FAILURES_PER_IP + 30} wrong passwords at once for as many accounts from one address: at most ${MAX_FAILURES_PER_IP} are checked`, async () => {
     const from = freshAddress();
-    const answers = await Promise.all(Array.from({ length: MAX_FAILURES_PER_IP + 30 }, () => signInFrom(from, unknownAddress(), "wrong password")));
+    const answers = await Promise.all(
+      Array.from({ length: MAX_FAILURES_PER_IP + 30 }, () => signInFrom(from, unknownAddress(), "wrong password")),
+    );
     const t = tally(answers.map((r) => r.status));
     expect(t[401]).toBeLessThanOrEqual(MAX_FAILURES_PER_IP);
     expect((t[401] ?? 0) + (t[429] ?? 0)).toBe(MAX_FAILURES_PER_IP + 30);
@@ -74,7 +77,9 @@ describe("sign-in throttle under parallel requests", () => {
   it("right passwords sent at once are told to try again in a few seconds, not locked out, and get in when they do", async () => {
     const u = await makeUser("picker");
     const from = freshAddress();
-    const answers = await Promise.all(Array.from({ length: MAX_FAILURES_PER_ACCOUNT + 15 }, () => signInFrom(from, u.email, u.password)));
+    const answers = await Promise.all(
+      Array.from({ length: MAX_FAILURES_PER_ACCOUNT + 15 }, () => signInFrom(from, u.email, u.password)),
+    );
     const refused = answers.filter((r) => r.status !== 200);
     for (const r of refused) {
       expect(r.status).toBe(429);
@@ -141,7 +146,8 @@ describe("reset-mail cap under parallel requests", () => {
 
 describe("what a throttled sign-in says about the account", () => {
   async function lockOut(email: string, from: string) {
-    for (let i = 0; i < MAX_FAILURES_PER_ACCOUNT; i++) expect((await signInFrom(from, email, `wrong ${i}`)).status).toBe(401);
+    for (let i = 0; i < MAX_FAILURES_PER_ACCOUNT; i++)
+      expect((await signInFrom(from, email, `wrong ${i}`)).status).toBe(401);
     return signInFrom(from, email, "one more try");
   }
 
@@ -160,7 +166,12 @@ describe("client address behind a trusted proxy", () => {
   it("is the address the proxy appended, not what the client put before it", async () => {
     const mark = await auditMark();
     const forged = "6.6.6.6";
-    const res = await server.api().post("/api/session").set("Origin", server.origin).set("X-Forwarded-For", `${forged}, 198.51.100.20`).send({ email: unknownAddress(), password: "wrong password" });
+    const res = await server
+      .api()
+      .post("/api/session")
+      .set("Origin", server.origin)
+      .set("X-Forwarded-For", `${forged}, 198.51.100.20`)
+      .send({ email: unknownAddress(), password: "wrong password" });
     expect(res.status).toBe(401);
     const [entry] = await auditedSince(mark, "sign_in.failure");
     expect(entry?.ip).toBe("198.51.100.20");
@@ -170,7 +181,12 @@ describe("client address behind a trusted proxy", () => {
     const from = freshAddress();
     const mark = await auditMark();
     for (let i = 0; i < 3; i++) {
-      await server.api().post("/api/session").set("Origin", server.origin).set("X-Forwarded-For", `10.9.9.${i}, ${from}`).send({ email: unknownAddress(), password: "wrong password" });
+      await server
+        .api()
+        .post("/api/session")
+        .set("Origin", server.origin)
+        .set("X-Forwarded-For", `10.9.9.${i}, ${from}`)
+        .send({ email: unknownAddress(), password: "wrong password" });
     }
     const entries = await auditedSince(mark, "sign_in.failure");
     expect(entries.map((e) => e.ip)).toEqual([from, from, from]);

@@ -16,7 +16,10 @@ const me = (cookie: string) => api().get("/api/session").set("Cookie", cookie);
 describe("sign-in", () => {
   it("a demo planner signs in, is sent to waves, and the session works", async () => {
     const a = demoAccount("planner");
-    const res = await api().post("/api/session").set("Origin", ORIGIN).send({ email: a.email.toUpperCase(), password: a.password });
+    const res = await api()
+      .post("/api/session")
+      .set("Origin", ORIGIN)
+      .send({ email: a.email.toUpperCase(), password: a.password });
     expect(res.status).toBe(200);
     expect(res.body.home).toBe("/waves");
     const setCookie = String([res.headers["set-cookie"]].flat()[0]);
@@ -31,7 +34,10 @@ describe("sign-in", () => {
 
   it("a wrong password gets 401 with a message a person can act on, and is audited", async () => {
     const u = await makeUser("picker");
-    const res = await api().post("/api/session").set("Origin", ORIGIN).send({ email: u.email, password: "wrong password!" });
+    const res = await api()
+      .post("/api/session")
+      .set("Origin", ORIGIN)
+      .send({ email: u.email, password: "wrong password!" });
     expect(res.status).toBe(401);
     expect(res.body.error).toMatch(/do not match/);
     expect(res.headers["set-cookie"]).toBeUndefined();
@@ -40,7 +46,10 @@ describe("sign-in", () => {
   });
 
   it("an unknown account gets the same answer as a wrong password", async () => {
-    const res = await api().post("/api/session").set("Origin", ORIGIN).send({ email: "nobody@tests.example", password: "whatever it is" });
+    const res = await api()
+      .post("/api/session")
+      .set("Origin", ORIGIN)
+      .send({ email: "nobody@tests.example", password: "whatever it is" });
     expect(res.status).toBe(401);
     expect(res.body.error).toMatch(/do not match/);
   });
@@ -52,7 +61,11 @@ describe("sign-in", () => {
   });
 
   it("a body that is not JSON gets 400", async () => {
-    const res = await api().post("/api/session").set("Origin", ORIGIN).set("content-type", "application/json").send("{oops");
+    const res = await api()
+      .post("/api/session")
+      .set("Origin", ORIGIN)
+      .set("content-type", "application/json")
+      .send("{oops");
     expect(res.status).toBe(400);
     expect(res.body.error).toMatch(/not valid JSON/);
   });
@@ -80,7 +93,10 @@ describe("throttling", () => {
   it(`after ${MAX_FAILURES_PER_ACCOUNT} failures in 15 minutes even the right password waits, with a time to try again`, async () => {
     const u = await makeUser("picker");
     for (let i = 0; i < MAX_FAILURES_PER_ACCOUNT; i++) {
-      const r = await api().post("/api/session").set("Origin", ORIGIN).send({ email: u.email, password: `wrong-${i}` });
+      const r = await api()
+        .post("/api/session")
+        .set("Origin", ORIGIN)
+        .send({ email: u.email, password: `wrong-${i}` });
       expect(r.status).toBe(401);
     }
     const res = await api().post("/api/session").set("Origin", ORIGIN).send({ email: u.email, password: u.password });
@@ -104,15 +120,21 @@ describe("session lifetime", () => {
     const u = await makeUser("picker");
     const signedInAt = new Date();
     const session = await startSession(u.id, signedInAt);
-    expect(await validateSessionId(session.id, new Date(signedInAt.getTime() + SESSION_ABSOLUTE_MS - 60_000))).not.toBeNull();
-    expect(await validateSessionId(session.id, new Date(signedInAt.getTime() + SESSION_ABSOLUTE_MS + 60_000))).toBeNull();
+    expect(
+      await validateSessionId(session.id, new Date(signedInAt.getTime() + SESSION_ABSOLUTE_MS - 60_000)),
+    ).not.toBeNull();
+    expect(
+      await validateSessionId(session.id, new Date(signedInAt.getTime() + SESSION_ABSOLUTE_MS + 60_000)),
+    ).toBeNull();
     expect(await countUserSessions(u.id)).toBe(0);
   });
 
   it("a session past its idle expiry is refused", async () => {
     const u = await makeUser("picker");
     const session = await startSession(u.id);
-    await db()("sessions").where({ id: session.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await db()("sessions")
+      .where({ id: session.id })
+      .update({ expires_at: new Date(Date.now() - 1000) });
     expect(await validateSessionId(session.id)).toBeNull();
     expect(SESSION_IDLE.milliseconds()).toBeLessThan(SESSION_ABSOLUTE_MS);
   });
@@ -123,7 +145,11 @@ describe("user administration", () => {
     const u = await makeUser("picker");
     const cookie = await signIn(u.email, u.password);
     const admin = await signInAs("admin");
-    const res = await api().patch(`/api/users/${u.id}`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: u.version, role: "planner" });
+    const res = await api()
+      .patch(`/api/users/${u.id}`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: u.version, role: "planner" });
     expect(res.status).toBe(200);
     expect(res.body.user.role).toBe("planner");
     expect((await me(cookie)).status).toBe(401);
@@ -133,7 +159,11 @@ describe("user administration", () => {
     const u = await makeUser("planner");
     const cookie = await signIn(u.email, u.password);
     const admin = await signInAs("admin");
-    const res = await api().patch(`/api/users/${u.id}`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: u.version, disabled: true });
+    const res = await api()
+      .patch(`/api/users/${u.id}`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: u.version, disabled: true });
     expect(res.status).toBe(200);
     expect((await me(cookie)).status).toBe(401);
     const again = await api().post("/api/session").set("Origin", ORIGIN).send({ email: u.email, password: u.password });
@@ -143,9 +173,17 @@ describe("user administration", () => {
   it("a stale version gets 409 and changes nothing", async () => {
     const u = await makeUser("picker");
     const admin = await signInAs("admin");
-    const first = await api().patch(`/api/users/${u.id}`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: u.version, role: "planner" });
+    const first = await api()
+      .patch(`/api/users/${u.id}`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: u.version, role: "planner" });
     expect(first.status).toBe(200);
-    const stale = await api().patch(`/api/users/${u.id}`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: u.version, role: "admin" });
+    const stale = await api()
+      .patch(`/api/users/${u.id}`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: u.version, role: "admin" });
     expect(stale.status).toBe(409);
     expect(stale.body.error).toMatch(/Reload/);
     const list = await api().get("/api/users").set("Cookie", admin);
@@ -154,18 +192,23 @@ describe("user administration", () => {
 
   it("a duplicate e-mail (any letter case) gets 409 with a message", async () => {
     const admin = await signInAs("admin");
-    const res = await api()
-      .post("/api/users")
-      .set("Cookie", admin)
-      .set("Origin", ORIGIN)
-      .send({ email: "PLANNER@bramblegate.example", displayName: "Twin", role: "picker", password: "long enough password" });
+    const res = await api().post("/api/users").set("Cookie", admin).set("Origin", ORIGIN).send({
+      email: "PLANNER@bramblegate.example",
+      displayName: "Twin",
+      role: "picker",
+      password: "long enough password",
+    });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatch(/already exists/);
   });
 
   it("a short first password is refused with the rule", async () => {
     const admin = await signInAs("admin");
-    const res = await api().post("/api/users").set("Cookie", admin).set("Origin", ORIGIN).send({ email: "short@tests.example", displayName: "S", role: "picker", password: "short" });
+    const res = await api()
+      .post("/api/users")
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ email: "short@tests.example", displayName: "S", role: "picker", password: "short" });
     expect(res.status).toBe(400);
     expect(res.body.issues[0].message).toMatch(/12 characters/);
   });

@@ -10,7 +10,9 @@ import { db } from "@/db/knex";
 afterAll(() => db().destroy());
 
 const { pages, handlers } = discoverRoutes();
-const protectedCalls = handlers.flatMap((h) => h.methods.filter((m) => API_ACCESS[h.url]![m] !== "public").map((method) => ({ url: h.url, method })));
+const protectedCalls = handlers.flatMap((h) =>
+  h.methods.filter((m) => API_ACCESS[h.url]![m] !== "public").map((method) => ({ url: h.url, method })),
+);
 const protectedPages = pages.filter((p) => PAGE_ACCESS[p] !== "public" && p !== "/");
 
 let deadCookie: Promise<string> | undefined;
@@ -59,7 +61,9 @@ describe("expired, revoked and forged sessions", () => {
     const u = await makeUser("picker");
     const session = await startSession(u.id);
     expect((await me(sessionCookie(session.id))).status).toBe(200);
-    await db()("sessions").where({ id: session.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await db()("sessions")
+      .where({ id: session.id })
+      .update({ expires_at: new Date(Date.now() - 1000) });
     const mark = await auditMark();
     const res = await me(sessionCookie(session.id));
     expect(res.status).toBe(401);
@@ -82,7 +86,11 @@ describe("expired, revoked and forged sessions", () => {
     const cookie = await signIn(u.email, u.password);
     expect((await me(cookie)).status).toBe(200);
     const admin = await signInAs("admin");
-    const off = await api().patch(`/api/users/${u.id}`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: u.version, disabled: true });
+    const off = await api()
+      .patch(`/api/users/${u.id}`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: u.version, disabled: true });
     expect(off.status).toBe(200);
     const mark = await auditMark();
     expect((await me(cookie)).status).toBe(401);

@@ -28,13 +28,19 @@ const orderNumber = (mark: string, i: number) => `${mark}-${String(i).padStart(5
 function orderSheet(mark: string): Buffer {
   const rows = [ORDER_HEADER.join(",")];
   for (let i = 0; i < ORDERS; i++) {
-    for (let l = 1; l <= LINES_PER_ORDER; l++) rows.push([orderNumber(mark, i), l, skus[(i + l) % skus.length], 1 + ((i + l) % 5), "", 3, ""].join(","));
+    for (let l = 1; l <= LINES_PER_ORDER; l++)
+      rows.push([orderNumber(mark, i), l, skus[(i + l) % skus.length], 1 + ((i + l) % 5), "", 3, ""].join(","));
   }
   return Buffer.from(rows.join("\n") + "\n");
 }
 
 const importOrders = (file: Buffer, name: string) =>
-  api().post("/api/imports/orders").set("Cookie", planner).set("Origin", ORIGIN).field("layoutVersionId", "1").attach("file", file, name);
+  api()
+    .post("/api/imports/orders")
+    .set("Cookie", planner)
+    .set("Origin", ORIGIN)
+    .field("layoutVersionId", "1")
+    .attach("file", file, name);
 
 type Killed = { id: number; info: string };
 
@@ -72,7 +78,10 @@ beforeAll(async () => {
   planner = await signInAs("planner");
   const items = await api().get("/api/items").set("Cookie", planner);
   expect(items.status).toBe(200);
-  skus = items.body.items.filter((i: { bins: string[] }) => i.bins.length > 0).map((i: { sku: string }) => i.sku).slice(0, 20);
+  skus = items.body.items
+    .filter((i: { bins: string[] }) => i.bins.length > 0)
+    .map((i: { sku: string }) => i.sku)
+    .slice(0, 20);
   expect(skus.length).toBeGreaterThan(5);
   watcher = await appUserConnection();
 });
@@ -80,10 +89,25 @@ beforeAll(async () => {
 afterAll(async () => {
   // The orders this test put in are its own: take them out so later tests plan waves of the usual size.
   for (const mark of marks) {
-    const ids = (await db()("orders").where("order_number", "like", `${mark}-%`).select("id", "import_file_id")) as { id: number; import_file_id: number }[];
+    const ids = (await db()("orders").where("order_number", "like", `${mark}-%`).select("id", "import_file_id")) as {
+      id: number;
+      import_file_id: number;
+    }[];
     const fileIds = [...new Set(ids.map((o) => o.import_file_id))];
-    for (let i = 0; i < ids.length; i += 500) await db()("order_lines").whereIn("order_id", ids.slice(i, i + 500).map((o) => o.id)).delete();
-    for (let i = 0; i < ids.length; i += 500) await db()("orders").whereIn("id", ids.slice(i, i + 500).map((o) => o.id)).delete();
+    for (let i = 0; i < ids.length; i += 500)
+      await db()("order_lines")
+        .whereIn(
+          "order_id",
+          ids.slice(i, i + 500).map((o) => o.id),
+        )
+        .delete();
+    for (let i = 0; i < ids.length; i += 500)
+      await db()("orders")
+        .whereIn(
+          "id",
+          ids.slice(i, i + 500).map((o) => o.id),
+        )
+        .delete();
     if (fileIds.length) await db()("import_files").whereIn("id", fileIds).delete();
   }
   await watcher?.end();
@@ -110,7 +134,11 @@ describe("the database connection killed in the middle of an order import", () =
       });
       killed = await killDuringInsert(mark, () => done);
       answer = await request;
-      if (!killed) expect(answer.status, `attempt ${attempt} was not killed, so it must have gone in: ${JSON.stringify(answer.body)}`).toBe(201);
+      if (!killed)
+        expect(
+          answer.status,
+          `attempt ${attempt} was not killed, so it must have gone in: ${JSON.stringify(answer.body)}`,
+        ).toBe(201);
     }
     expect(killed, `the import's INSERT was not caught in ${ATTEMPTS} attempts`).not.toBeNull();
 
@@ -121,7 +149,10 @@ describe("the database connection killed in the middle of an order import", () =
     // The killed thread stays listed (as Killed) while the server rolls its transaction back.
     let listed: RowDataPacket[] = [];
     for (let i = 0; i < 100; i++) {
-      [listed] = await watcher.query<RowDataPacket[]>("SELECT ID, COMMAND FROM information_schema.PROCESSLIST WHERE ID = ?", [killed!.id]);
+      [listed] = await watcher.query<RowDataPacket[]>(
+        "SELECT ID, COMMAND FROM information_schema.PROCESSLIST WHERE ID = ?",
+        [killed!.id],
+      );
       if (listed.length === 0) break;
       await new Promise((r) => setTimeout(r, 100));
     }
@@ -139,12 +170,18 @@ describe("the database connection killed in the middle of an order import", () =
     // The same file again: every order and line once.
     const retry = await importOrders(file, `${mark}.csv`);
     expect(retry.status, JSON.stringify(retry.body)).toBe(201);
-    expect(retry.body.counts).toEqual({ rows: ORDERS * LINES_PER_ORDER, orders: ORDERS, lines: ORDERS * LINES_PER_ORDER });
+    expect(retry.body.counts).toEqual({
+      rows: ORDERS * LINES_PER_ORDER,
+      orders: ORDERS,
+      lines: ORDERS * LINES_PER_ORDER,
+    });
     const stored = await rowsOfImport(mark, sha256);
     expect(stored.files).toHaveLength(1);
     expect(new Set(stored.orders.map((o: { order_number: string }) => o.order_number)).size).toBe(ORDERS);
     expect(stored.orders).toHaveLength(ORDERS);
-    expect(new Set(stored.lines.map((l: { order_id: number; line_no: number }) => `${l.order_id}/${l.line_no}`)).size).toBe(ORDERS * LINES_PER_ORDER);
+    expect(
+      new Set(stored.lines.map((l: { order_id: number; line_no: number }) => `${l.order_id}/${l.line_no}`)).size,
+    ).toBe(ORDERS * LINES_PER_ORDER);
     expect(stored.lines).toHaveLength(ORDERS * LINES_PER_ORDER);
     expect(await totalLines()).toBe(linesBefore + ORDERS * LINES_PER_ORDER);
 

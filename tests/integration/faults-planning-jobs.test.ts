@@ -26,16 +26,36 @@ afterAll(closeDb);
 beforeAll(async () => {
   planner = await signInAs("planner");
   const items = await api().get("/api/items").set("Cookie", planner);
-  const skus: string[] = items.body.items.filter((i: { bins: string[] }) => i.bins.length > 0).map((i: { sku: string }) => i.sku).slice(0, 12);
+  const skus: string[] = items.body.items
+    .filter((i: { bins: string[] }) => i.bins.length > 0)
+    .map((i: { sku: string }) => i.sku)
+    .slice(0, 12);
   const rows = [ORDER_HEADER.join(",")];
   for (let i = 0; i < 12; i++) rows.push([`${RUN}-${i}`, 1, skus[i % skus.length], 1, CUTOFF, 2, ""].join(","));
-  const imported = await api().post("/api/imports/orders").set("Cookie", planner).set("Origin", ORIGIN).field("layoutVersionId", "1").attach("file", Buffer.from(rows.join("\n") + "\n"), `${RUN}.csv`);
+  const imported = await api()
+    .post("/api/imports/orders")
+    .set("Cookie", planner)
+    .set("Origin", ORIGIN)
+    .field("layoutVersionId", "1")
+    .attach("file", Buffer.from(rows.join("\n") + "\n"), `${RUN}.csv`);
   expect(imported.status, JSON.stringify(imported.body)).toBe(201);
   const wave = await api()
     .post("/api/waves")
     .set("Cookie", planner)
     .set("Origin", ORIGIN)
-    .send({ name: `Fault wave ${RUN}`, layoutVersionId: 1, settings: { totesPerCart: 4, maxLines: 12, maxWeightG: 60_000, depotId: "D1", dropoffId: "P1", method: "savings" }, cutoffBefore: CUTOFF_BEFORE });
+    .send({
+      name: `Fault wave ${RUN}`,
+      layoutVersionId: 1,
+      settings: {
+        totesPerCart: 4,
+        maxLines: 12,
+        maxWeightG: 60_000,
+        depotId: "D1",
+        dropoffId: "P1",
+        method: "savings",
+      },
+      cutoffBefore: CUTOFF_BEFORE,
+    });
   expect(wave.status, JSON.stringify(wave.body)).toBe(201);
   expect(wave.body.orders).toBe(12);
   waveId = wave.body.id;
@@ -45,7 +65,10 @@ async function signInOn(s: SecondServer): Promise<string> {
   const a = demoAccount("planner");
   const res = await s.api().post("/api/session").set("Origin", s.origin).send({ email: a.email, password: a.password });
   expect(res.status).toBe(200);
-  return [res.headers["set-cookie"]].flat().find((c): c is string => typeof c === "string" && c.startsWith("trailbin_session="))!.split(";")[0]!;
+  return [res.headers["set-cookie"]]
+    .flat()
+    .find((c): c is string => typeof c === "string" && c.startsWith("trailbin_session="))!
+    .split(";")[0]!;
 }
 
 async function waveNow(cookie: string, on = api) {
@@ -57,12 +80,18 @@ async function waveNow(cookie: string, on = api) {
 /** Plans the wave on `s` and follows the job through GET /api/jobs/[id] until it ends. */
 async function planOn(s: SecondServer, cookie: string) {
   const before = await waveNow(cookie, s.api);
-  const start = await s.api().post(`/api/waves/${waveId}/plan`).set("Cookie", cookie).set("Origin", s.origin).send({ version: before.wave.version });
+  const start = await s
+    .api()
+    .post(`/api/waves/${waveId}/plan`)
+    .set("Cookie", cookie)
+    .set("Origin", s.origin)
+    .send({ version: before.wave.version });
   expect(start.status, JSON.stringify(start.body)).toBe(202);
   for (let i = 0; i < 600; i++) {
     const res = await s.api().get(`/api/jobs/${start.body.jobId}`).set("Cookie", cookie);
     expect(res.status).toBe(200);
-    if (["done", "failed", "cancelled"].includes(res.body.job.status)) return { before, job: res.body.job as { status: string; message: string } };
+    if (["done", "failed", "cancelled"].includes(res.body.job.status))
+      return { before, job: res.body.job as { status: string; message: string } };
     await new Promise((r) => setTimeout(r, 100));
   }
   throw new Error("the planning job did not end");
@@ -83,7 +112,9 @@ describe("a planning job that fails in its worker", () => {
     const cookie = await signInOn(server);
     const { before, job } = await planOn(server, cookie);
     expect(job.status).toBe("failed");
-    expect(job.message).toMatch(/^Planning failed: the planning worker stopped unexpectedly because it ran out of memory\. The wave is unchanged and can be planned again\. .*smaller wave/);
+    expect(job.message).toMatch(
+      /^Planning failed: the planning worker stopped unexpectedly because it ran out of memory\. The wave is unchanged and can be planned again\. .*smaller wave/,
+    );
     const after = await waveNow(cookie, server.api);
     expect(after.wave).toEqual(before.wave);
     expect(after.batches).toEqual(before.batches);
@@ -95,7 +126,9 @@ describe("a planning job that fails in its worker", () => {
     const cookie = await signInOn(server);
     const { before, job } = await planOn(server, cookie);
     expect(job.status).toBe("failed");
-    expect(job.message).toMatch(/^Planning failed: it took longer than the time limit of 50 ms and was stopped\. The wave is unchanged and can be planned again\./);
+    expect(job.message).toMatch(
+      /^Planning failed: it took longer than the time limit of 50 ms and was stopped\. The wave is unchanged and can be planned again\./,
+    );
     const after = await waveNow(cookie, server.api);
     expect(after.wave).toEqual(before.wave);
     await stillServing(server, cookie);
@@ -104,7 +137,11 @@ describe("a planning job that fails in its worker", () => {
   it("the same wave then plans on the usual server: the failures left nothing in the way", async () => {
     const before = await waveNow(planner);
     expect(before.wave.status).toBe("draft");
-    const start = await api().post(`/api/waves/${waveId}/plan`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: before.wave.version });
+    const start = await api()
+      .post(`/api/waves/${waveId}/plan`)
+      .set("Cookie", planner)
+      .set("Origin", ORIGIN)
+      .send({ version: before.wave.version });
     expect(start.status, JSON.stringify(start.body)).toBe(202);
     let job: { status: string; message: string } = { status: "", message: "" };
     for (let i = 0; i < 600 && !["done", "failed", "cancelled"].includes(job.status); i++) {

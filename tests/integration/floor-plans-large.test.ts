@@ -12,9 +12,17 @@ afterAll(closeDb);
 
 let n = 0;
 async function planWith(cookie: string, document: EditorDocument): Promise<{ id: number; version: number }> {
-  const made = await api().post("/api/floor-plans").set("Cookie", cookie).set("Origin", ORIGIN).send({ name: `Large floor ${Date.now()}-${++n}`, widthM: 12, heightM: 7, cellMm: 1000 });
+  const made = await api()
+    .post("/api/floor-plans")
+    .set("Cookie", cookie)
+    .set("Origin", ORIGIN)
+    .send({ name: `Large floor ${Date.now()}-${++n}`, widthM: 12, heightM: 7, cellMm: 1000 });
   expect(made.status).toBe(201);
-  const saved = await api().put(`/api/floor-plans/${made.body.id}/draft`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version: 1, document });
+  const saved = await api()
+    .put(`/api/floor-plans/${made.body.id}/draft`)
+    .set("Cookie", cookie)
+    .set("Origin", ORIGIN)
+    .send({ version: 1, document });
   expect(saved.status, JSON.stringify(saved.body).slice(0, 300)).toBe(200);
   return { id: made.body.id, version: saved.body.version };
 }
@@ -37,7 +45,11 @@ function columnHall(): EditorDocument {
   const h = 80;
   const d = blankDocument(w, h, 1000);
   const ground: string[] = [];
-  for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) ground.push(y >= h - 2 ? GROUND.blocked : y < h - 3 && x % 2 === 1 && y % 2 === 1 ? GROUND.blocked : GROUND.floor);
+  for (let y = 0; y < h; y++)
+    for (let x = 0; x < w; x++)
+      ground.push(
+        y >= h - 2 ? GROUND.blocked : y < h - 3 && x % 2 === 1 && y % 2 === 1 ? GROUND.blocked : GROUND.floor,
+      );
   d.ground = ground.join("");
   d.rackRuns = [run({ id: "R1", x: 2, y: h - 2, length: 70, facing: "N", aisle: 1 })];
   d.depots = [{ id: "D1", x: 0, y: h - 3, name: "Carts" }];
@@ -50,7 +62,11 @@ describe("publishing a large floor plan", () => {
     const admin = await signInAs("admin");
     const doc = columnHall();
     const { id, version } = await planWith(admin, doc);
-    const start = await api().post(`/api/floor-plans/${id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version });
+    const start = await api()
+      .post(`/api/floor-plans/${id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version });
     expect(start.status, JSON.stringify(start.body).slice(0, 500)).toBe(202);
     const job = await jobOutcome(admin, start.body.jobId, 200);
     expect(job.message).not.toMatch(/insert into|select |`/i);
@@ -63,7 +79,10 @@ describe("publishing a large floor plan", () => {
     // dist and next are each n² Int32s: together they would not fit in one packet.
     expect(8 * junctions ** 2).toBeGreaterThan(packet);
     expect(stored.matrix.dist.length).toBe(junctions ** 2);
-    const [pieces] = await db().raw("SELECT COUNT(*) AS n, MAX(LENGTH(bytes)) AS largest FROM layout_matrix_chunks WHERE layout_version_id = ?", [job.result.layoutVersionId]);
+    const [pieces] = await db().raw(
+      "SELECT COUNT(*) AS n, MAX(LENGTH(bytes)) AS largest FROM layout_matrix_chunks WHERE layout_version_id = ?",
+      [job.result.layoutVersionId],
+    );
     expect(Number(pieces[0].n)).toBeGreaterThan(2);
     // Sent as hex, a piece's statement is about twice its bytes: it must fit in a packet with room to spare.
     expect(2 * Number(pieces[0].largest)).toBeLessThan(packet / 2);
@@ -74,10 +93,13 @@ describe("publishing a large floor plan", () => {
     const cell = (node: number) => String(stored.graph.nodes[node]!.y * drawing.width + stored.graph.nodes[node]!.x);
     for (const from of [0, Math.floor(junctions / 3), junctions - 1]) {
       const lengths = dijkstraLengths(raw, cell(from));
-      for (let to = 0; to < junctions; to += 37) expect(stored.matrix.dist[from * junctions + to]).toBe(lengths.get(cell(to)) ?? UNREACHABLE);
+      for (let to = 0; to < junctions; to += 37)
+        expect(stored.matrix.dist[from * junctions + to]).toBe(lengths.get(cell(to)) ?? UNREACHABLE);
     }
 
-    const d = await api().get(`/api/layout-versions/${job.result.layoutVersionId}/distance?from=01-01-1&to=01-70-2`).set("Cookie", admin);
+    const d = await api()
+      .get(`/api/layout-versions/${job.result.layoutVersionId}/distance?from=01-01-1&to=01-70-2`)
+      .set("Cookie", admin);
     expect(d.status).toBe(200);
     expect(d.body.distanceMm).toBe(69_000);
   }, 300_000);
@@ -93,7 +115,11 @@ describe("location codes too long for the database", () => {
     doc.depots = [{ id: "D1", x: 0, y: 6, name: "Carts" }];
     doc.dropoffs = [{ id: "P1", x: 11, y: 6, name: "Packing" }];
     const { id, version } = await planWith(admin, doc);
-    const res = await api().post(`/api/floor-plans/${id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version });
+    const res = await api()
+      .post(`/api/floor-plans/${id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version });
     const answer = res.status === 202 ? await jobOutcome(admin, res.body.jobId, 60) : res.body;
     expect(JSON.stringify(answer)).not.toMatch(/insert into|layout_bins|`/i);
     expect(res.status).toBe(422);

@@ -13,13 +13,21 @@ afterAll(closeDb);
 
 let n = 0;
 async function newPlan(cookie: string) {
-  const res = await api().post("/api/floor-plans").set("Cookie", cookie).set("Origin", ORIGIN).send({ name: `Test floor ${Date.now()}-${++n}`, widthM: 12, heightM: 7, cellMm: 1000 });
+  const res = await api()
+    .post("/api/floor-plans")
+    .set("Cookie", cookie)
+    .set("Origin", ORIGIN)
+    .send({ name: `Test floor ${Date.now()}-${++n}`, widthM: 12, heightM: 7, cellMm: 1000 });
   expect(res.status).toBe(201);
   return res.body.id as number;
 }
 
 async function saveSmall(cookie: string, id: number, version = 1) {
-  const res = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version, document: smallDocument() });
+  const res = await api()
+    .put(`/api/floor-plans/${id}/draft`)
+    .set("Cookie", cookie)
+    .set("Origin", ORIGIN)
+    .send({ version, document: smallDocument() });
   expect(res.status).toBe(200);
   return res.body.version as number;
 }
@@ -32,7 +40,11 @@ describe("drafts", () => {
     expect(v2).toBe(2);
     const other = smallDocument();
     other.depots[0]!.name = "Somebody else's";
-    const stale = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document: other });
+    const stale = await api()
+      .put(`/api/floor-plans/${id}/draft`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 1, document: other });
     expect(stale.status).toBe(409);
     expect(stale.body.error).toMatch(/Reload/);
     expect(stale.body.current.version).toBe(2);
@@ -44,7 +56,11 @@ describe("drafts", () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
     await saveSmall(admin, id, 1);
-    const again = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document: smallDocument() });
+    const again = await api()
+      .put(`/api/floor-plans/${id}/draft`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 1, document: smallDocument() });
     expect(again.status).toBe(200);
     expect(again.body.version).toBe(2);
   });
@@ -53,7 +69,11 @@ describe("drafts", () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
     const bad = { ...smallDocument(), ground: "fff" };
-    const res = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document: bad });
+    const res = await api()
+      .put(`/api/floor-plans/${id}/draft`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 1, document: bad });
     expect(res.status).toBe(400);
     expect(JSON.stringify(res.body.issues)).toMatch(/one entry per cell/);
   });
@@ -63,7 +83,11 @@ describe("drafts", () => {
     const planner = await signInAs("planner");
     const id = await newPlan(admin);
     expect((await api().get(`/api/floor-plans/${id}/draft`).set("Cookie", planner)).status).toBe(200);
-    const res = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: 1, document: smallDocument() });
+    const res = await api()
+      .put(`/api/floor-plans/${id}/draft`)
+      .set("Cookie", planner)
+      .set("Origin", ORIGIN)
+      .send({ version: 1, document: smallDocument() });
     expect(res.status).toBe(403);
   });
 });
@@ -73,10 +97,18 @@ describe("publishing", () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
     const version = await saveSmall(admin, id, 1);
-    const start = await api().post(`/api/floor-plans/${id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version });
+    const start = await api()
+      .post(`/api/floor-plans/${id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version });
     expect(start.status).toBe(202);
     // A second click joins the same job instead of publishing twice.
-    const again = await api().post(`/api/floor-plans/${id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version });
+    const again = await api()
+      .post(`/api/floor-plans/${id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version });
     expect(again.body.jobId).toBe(start.body.jobId);
     const job = await waitForJob(admin, start.body.jobId);
     expect(job.status).toBe("done");
@@ -84,7 +116,12 @@ describe("publishing", () => {
 
     const fresh = await buildLayout(smallDocument());
     const rows = await countLayoutRows(job.result.layoutVersionId);
-    expect(rows).toEqual({ nodes: fresh.graph.nodes.length, edges: fresh.graph.edges.length, accessPoints: fresh.graph.accessPoints.length, bins: fresh.graph.bins.length });
+    expect(rows).toEqual({
+      nodes: fresh.graph.nodes.length,
+      edges: fresh.graph.edges.length,
+      accessPoints: fresh.graph.accessPoints.length,
+      bins: fresh.graph.bins.length,
+    });
     expect(rows.bins).toBe(2 * 10 * 2);
     const stored = await loadLayoutGraph(job.result.layoutVersionId);
     expect(stored.checksumOk).toBe(true);
@@ -96,8 +133,15 @@ describe("publishing", () => {
     // The distance the app answers is the engine's on the fresh graph.
     const a = findBin(fresh.graph, "01-01-1")!;
     const b = findBin(fresh.graph, "01-20-2")!;
-    const expected = accessDistance(fresh.graph, fresh.matrix, fresh.graph.accessPoints[a.accessPoint]!, fresh.graph.accessPoints[b.accessPoint]!);
-    const d = await api().get(`/api/layout-versions/${job.result.layoutVersionId}/distance?from=01-01-1&to=01-20-2`).set("Cookie", admin);
+    const expected = accessDistance(
+      fresh.graph,
+      fresh.matrix,
+      fresh.graph.accessPoints[a.accessPoint]!,
+      fresh.graph.accessPoints[b.accessPoint]!,
+    );
+    const d = await api()
+      .get(`/api/layout-versions/${job.result.layoutVersionId}/distance?from=01-01-1&to=01-20-2`)
+      .set("Cookie", admin);
     expect(d.status).toBe(200);
     expect(d.body.distanceMm).toBe(expected);
     expect(d.body.cells.length).toBeGreaterThan(1);
@@ -109,14 +153,19 @@ describe("publishing", () => {
     const otherCookie = await signIn(other.email, other.password);
     const id = await newPlan(admin);
     const version = await saveSmall(admin, id, 1);
-    const publish = (cookie: string) => api().post(`/api/floor-plans/${id}/publish`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version });
+    const publish = (cookie: string) =>
+      api().post(`/api/floor-plans/${id}/publish`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version });
     const answers = await Promise.all([publish(admin), publish(otherCookie)]);
     expect(answers.map((a) => a.status).sort()).toEqual([202, 409]);
     const winner = answers.find((a) => a.status === 202)!;
     const loser = answers.find((a) => a.status === 409)!;
     expect(loser.body.error).toMatch(/is publishing this save|has already published this save/);
     expect(loser.body.jobId).toBe(winner.body.jobId);
-    const winnerName = (await api().get("/api/session").set("Cookie", winner === answers[0] ? admin : otherCookie)).body.user.displayName;
+    const winnerName = (
+      await api()
+        .get("/api/session")
+        .set("Cookie", winner === answers[0] ? admin : otherCookie)
+    ).body.user.displayName;
     expect(loser.body.error).toContain(winnerName);
     const job = await waitForJob(admin, winner.body.jobId);
     expect(job.status).toBe("done");
@@ -134,9 +183,17 @@ describe("publishing", () => {
     const id = await newPlan(admin);
     const doc = smallDocument();
     doc.dropoffs = [];
-    const saved = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document: doc });
+    const saved = await api()
+      .put(`/api/floor-plans/${id}/draft`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 1, document: doc });
     expect(saved.status).toBe(200);
-    const res = await api().post(`/api/floor-plans/${id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 2 });
+    const res = await api()
+      .post(`/api/floor-plans/${id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 2 });
     expect(res.status).toBe(422);
     expect(res.body.problems.length).toBeGreaterThan(0);
   });
@@ -145,7 +202,11 @@ describe("publishing", () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
     await saveSmall(admin, id, 1);
-    const res = await api().post(`/api/floor-plans/${id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1 });
+    const res = await api()
+      .post(`/api/floor-plans/${id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 1 });
     expect(res.status).toBe(409);
   });
 });
@@ -161,7 +222,10 @@ describe("rack run bins from a spreadsheet", () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
     await saveSmall(admin, id, 1);
-    const exported = await api().get(`/api/floor-plans/${id}/rack-runs/R1/bins?format=csv`).set("Cookie", admin).buffer(true);
+    const exported = await api()
+      .get(`/api/floor-plans/${id}/rack-runs/R1/bins?format=csv`)
+      .set("Cookie", admin)
+      .buffer(true);
     expect(exported.status).toBe(200);
     const lines = exported.text.trim().split(/\r\n/);
     expect(lines[0]).toBe("Location code,Aisle,Bay,Level");
@@ -170,7 +234,15 @@ describe("rack run bins from a spreadsheet", () => {
       .post(`/api/floor-plans/${id}/rack-runs/R1/bins`)
       .set("Cookie", admin)
       .set("Origin", ORIGIN)
-      .attach("file", sheet([["Location code", "Bay", "Level"], ["SPECIAL-1", 1, 1], ["01-02-1", 2, 1]]), "bins.xlsx");
+      .attach(
+        "file",
+        sheet([
+          ["Location code", "Bay", "Level"],
+          ["SPECIAL-1", 1, 1],
+          ["01-02-1", 2, 1],
+        ]),
+        "bins.xlsx",
+      );
     expect(res.status).toBe(200);
     expect(res.body.customCodes).toEqual([{ bay: 1, level: 1, code: "SPECIAL-1" }]);
   });
@@ -183,7 +255,18 @@ describe("rack run bins from a spreadsheet", () => {
       .post(`/api/floor-plans/${id}/rack-runs/R1/bins`)
       .set("Cookie", admin)
       .set("Origin", ORIGIN)
-      .attach("file", sheet([["Location code", "Bay", "Level"], ["OK-1", 1, 1], ["X", 99, 1], ["Y", 2, 7], ["OK-1", 3, 1], ["01-11-1", 4, 1]]), "bins.xlsx");
+      .attach(
+        "file",
+        sheet([
+          ["Location code", "Bay", "Level"],
+          ["OK-1", 1, 1],
+          ["X", 99, 1],
+          ["Y", 2, 7],
+          ["OK-1", 3, 1],
+          ["01-11-1", 4, 1],
+        ]),
+        "bins.xlsx",
+      );
     expect(res.status).toBe(400);
     expect(res.body.rows.map((r: { row: number }) => r.row)).toEqual([3, 4, 5, 6]);
     expect(res.body.rows[3].message).toMatch(/another rack run/);
@@ -193,21 +276,35 @@ describe("rack run bins from a spreadsheet", () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
     await saveSmall(admin, id, 1);
-    const res = await api().post(`/api/floor-plans/${id}/rack-runs/R1/bins`).set("Cookie", admin).set("Origin", ORIGIN).attach("file", Buffer.from([0, 1, 2, 3, 0, 9]), "bins.xlsx");
+    const res = await api()
+      .post(`/api/floor-plans/${id}/rack-runs/R1/bins`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .attach("file", Buffer.from([0, 1, 2, 3, 0, 9]), "bins.xlsx");
     expect(res.status).toBe(415);
   });
 });
 
 describe("background picture", () => {
-  const PNG = Buffer.from("89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082", "hex");
+  const PNG = Buffer.from(
+    "89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c4890000000d49444154789c6360000002000154a24f5d0000000049454e44ae426082",
+    "hex",
+  );
 
   it("stores a PNG under a random name and serves it back to the site", async () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
-    const up = await api().post(`/api/floor-plans/${id}/background`).set("Cookie", admin).set("Origin", ORIGIN).attach("file", PNG, "../../etc/passwd.png");
+    const up = await api()
+      .post(`/api/floor-plans/${id}/background`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .attach("file", PNG, "../../etc/passwd.png");
     expect(up.status).toBe(201);
     expect(up.body.fileId).toMatch(/^[a-f0-9]{32}$/);
-    const got = await api().get(`/api/floor-plans/${id}/background/${up.body.fileId}`).set("Cookie", admin).buffer(true);
+    const got = await api()
+      .get(`/api/floor-plans/${id}/background/${up.body.fileId}`)
+      .set("Cookie", admin)
+      .buffer(true);
     expect(got.status).toBe(200);
     expect(got.headers["content-type"]).toBe("image/png");
   });
@@ -215,7 +312,11 @@ describe("background picture", () => {
   it("refuses something that is not a PNG or JPEG", async () => {
     const admin = await signInAs("admin");
     const id = await newPlan(admin);
-    const up = await api().post(`/api/floor-plans/${id}/background`).set("Cookie", admin).set("Origin", ORIGIN).attach("file", Buffer.from("<svg onload=alert(1)>"), "x.png");
+    const up = await api()
+      .post(`/api/floor-plans/${id}/background`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .attach("file", Buffer.from("<svg onload=alert(1)>"), "x.png");
     expect(up.status).toBe(415);
   });
 });

@@ -16,7 +16,7 @@ afterAll(async () => {
 });
 
 describe("health with the database down", () => {
-  it("tells an anonymous caller only \"database unavailable\" and logs the details on the server", async () => {
+  it('tells an anonymous caller only "database unavailable" and logs the details on the server', async () => {
     const logBefore = serverLog().length;
     await testService("mariadb", "stop");
     try {

@@ -1,7 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as XLSX from "xlsx";
 import { api, ORIGIN } from "../support/app";
-import { buildHostileScenario, HOSTILE, HOSTILE_DEPOT, HOSTILE_DROPOFF, hostileCode, type HostileScenario } from "../support/hostile";
+import {
+  buildHostileScenario,
+  HOSTILE,
+  HOSTILE_DEPOT,
+  HOSTILE_DROPOFF,
+  hostileCode,
+  type HostileScenario,
+} from "../support/hostile";
 import { closeDb, db } from "@/db/knex";
 
 afterAll(closeDb);
@@ -32,7 +39,13 @@ describe("hostile text is stored exactly and comes back the same through the JSO
     const res = await api().get(`/api/floor-plans/${s.planId}/versions/1`).set("Cookie", s.admin);
     expect(res.status).toBe(200);
     const codes = new Set(res.body.bins.map((b: { code: string }) => b.code));
-    for (const code of [hostileCode("R1", 1, 1), hostileCode("R1", 10, 2), hostileCode("R2", 11, 1), hostileCode("R2", 20, 2)]) expect(codes).toContain(code);
+    for (const code of [
+      hostileCode("R1", 1, 1),
+      hostileCode("R1", 10, 2),
+      hostileCode("R2", 11, 1),
+      hostileCode("R2", 20, 2),
+    ])
+      expect(codes).toContain(code);
     expect(res.body.version.document.depots[0].name).toBe(HOSTILE_DEPOT);
     expect(res.body.version.document.dropoffs[0].name).toBe(HOSTILE_DROPOFF);
   });
@@ -40,13 +53,20 @@ describe("hostile text is stored exactly and comes back the same through the JSO
   it("items from the item master import: SKU, description, unit and bin exactly as in the sheet", async () => {
     const res = await api().get("/api/items").set("Cookie", s.planner);
     const bySku = new Map(res.body.items.map((i: { sku: string }) => [i.sku, i]));
-    for (const it of s.items) expect(bySku.get(it.sku)).toMatchObject({ sku: it.sku, description: it.description, uom: it.uom, bins: [it.bin] });
+    for (const it of s.items)
+      expect(bySku.get(it.sku)).toMatchObject({
+        sku: it.sku,
+        description: it.description,
+        uom: it.uom,
+        bins: [it.bin],
+      });
   });
 
   it("orders from the order import: order number and customer reference exactly as in the sheet", async () => {
     const res = await api().get("/api/orders?status=all").set("Cookie", s.planner);
     const byNumber = new Map(res.body.orders.map((o: { orderNumber: string }) => [o.orderNumber, o]));
-    for (const o of s.orders) expect(byNumber.get(o.orderNumber)).toMatchObject({ orderNumber: o.orderNumber, customerRef: o.customerRef });
+    for (const o of s.orders)
+      expect(byNumber.get(o.orderNumber)).toMatchObject({ orderNumber: o.orderNumber, customerRef: o.customerRef });
   });
 
   it("the wave's name, its short-pick list and the handheld's batch", async () => {
@@ -61,7 +81,9 @@ describe("hostile text is stored exactly and comes back the same through the JSO
 
     const pick = await api().get(`/api/batches/${s.batchIds[0]}/pick`).set("Cookie", s.pickerCookie);
     expect(pick.status).toBe(200);
-    const lines = pick.body.stops.flatMap((st: { lines: { sku: string; description: string; binCode: string }[] }) => st.lines);
+    const lines = pick.body.stops.flatMap(
+      (st: { lines: { sku: string; description: string; binCode: string }[] }) => st.lines,
+    );
     expect(lines.length).toBe(HOSTILE.length);
     for (const l of lines) {
       const it = s.items.find((i) => i.sku === l.sku)!;
@@ -71,17 +93,29 @@ describe("hostile text is stored exactly and comes back the same through the JSO
 
   it("a short-pick reason is one of the handheld's fixed choices: free text is refused and nothing is recorded", async () => {
     const batchId = s.batchIds[0]!;
-    const line = await db()("batch_lines").where({ batch_id: batchId }).whereNot({ order_line_id: s.shortLineId }).first("order_line_id", "pick_status", "bin_code");
+    const line = await db()("batch_lines")
+      .where({ batch_id: batchId })
+      .whereNot({ order_line_id: s.shortLineId })
+      .first("order_line_id", "pick_status", "bin_code");
     const { version: batchVersion } = await db()("batches").where({ id: batchId }).first("version");
     for (const reason of HOSTILE) {
       const res = await api()
         .post(`/api/batches/${batchId}/confirm`)
         .set("Cookie", s.pickerCookie)
         .set("Origin", ORIGIN)
-        .send({ idempotencyKey: `${s.tag}-reason-${HOSTILE.indexOf(reason)}`, orderLineId: line.order_line_id, quantity: 0, short: { reason }, binCode: line.bin_code, batchVersion });
+        .send({
+          idempotencyKey: `${s.tag}-reason-${HOSTILE.indexOf(reason)}`,
+          orderLineId: line.order_line_id,
+          quantity: 0,
+          short: { reason },
+          binCode: line.bin_code,
+          batchVersion,
+        });
       expect(res.status).toBe(400);
     }
-    expect(await db()("batch_lines").where({ order_line_id: line.order_line_id }).first("pick_status", "short_reason")).toEqual({ pick_status: line.pick_status, short_reason: null });
+    expect(
+      await db()("batch_lines").where({ order_line_id: line.order_line_id }).first("pick_status", "short_reason"),
+    ).toEqual({ pick_status: line.pick_status, short_reason: null });
   });
 
   it("the SQL-looking text did nothing to the tables", async () => {
@@ -92,11 +126,15 @@ describe("hostile text is stored exactly and comes back the same through the JSO
 
 describe("exported spreadsheets keep hostile text inert", () => {
   it("the item master export has every description as text; one that looks like a formula is escaped, and no cell is a formula", async () => {
-    const res = await api().get("/api/items/export").set("Cookie", s.planner).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on("data", (c: Buffer) => chunks.push(c));
-      r.on("end", () => done(null, Buffer.concat(chunks)));
-    });
+    const res = await api()
+      .get("/api/items/export")
+      .set("Cookie", s.planner)
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on("data", (c: Buffer) => chunks.push(c));
+        r.on("end", () => done(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     const book = XLSX.read(res.body as Buffer, { type: "buffer", cellFormula: true });
     const sheet = book.Sheets[book.SheetNames[0]!]!;

@@ -20,26 +20,33 @@ function streamUntilAnswered(method: string, url: string, headers: Record<string
   return new Promise((resolve, reject) => {
     let sent = 0;
     let answered = false;
-    const req = http.request(new URL(url, APP_URL), { method, headers: { "Content-Type": "application/json", Origin: ORIGIN, ...headers } }, (res) => {
-      answered = true;
-      const sentWhenAnswered = sent;
-      let text = "";
-      res.setEncoding("utf8");
-      res.on("data", (c: string) => (text += c));
-      res.on("end", () => {
-        req.destroy();
-        let body: Outcome["body"] = {};
-        try {
-          body = JSON.parse(text);
-        } catch {
-          body = { error: `not JSON: ${text.slice(0, 200)}` };
-        }
-        resolve({ status: res.statusCode ?? 0, body, sentWhenAnswered });
-      });
-    });
+    const req = http.request(
+      new URL(url, APP_URL),
+      { method, headers: { "Content-Type": "application/json", Origin: ORIGIN, ...headers } },
+      (res) => {
+        answered = true;
+        const sentWhenAnswered = sent;
+        let text = "";
+        res.setEncoding("utf8");
+        res.on("data", (c: string) => (text += c));
+        res.on("end", () => {
+          req.destroy();
+          let body: Outcome["body"] = {};
+          try {
+            body = JSON.parse(text);
+          } catch {
+            body = { error: `not JSON: ${text.slice(0, 200)}` };
+          }
+          resolve({ status: res.statusCode ?? 0, body, sentWhenAnswered });
+        });
+      },
+    );
     req.on("error", (e) => {
       // Once the answer is in, the server may close the connection on the rest of the body.
-      if (!answered) reject(new Error(`${method} ${url}: the connection failed before any answer, after ${sent} bytes: ${e.message}`));
+      if (!answered)
+        reject(
+          new Error(`${method} ${url}: the connection failed before any answer, after ${sent} bytes: ${e.message}`),
+        );
     });
     const pump = () => {
       while (!answered && sent < TOTAL) {
@@ -82,7 +89,9 @@ describe("request bodies are read only up to their cap", () => {
     } finally {
       clearInterval(sampler);
     }
-    console.info(`server RSS: ${before} MiB before, ${peak} MiB at most while 4 × ${TOTAL / 1024 / 1024} MiB chunked bodies came in, ${serverRssMiB()} MiB after; bytes sent before each answer: ${outcomes.map((o) => o.sentWhenAnswered).join(", ")}`);
+    console.info(
+      `server RSS: ${before} MiB before, ${peak} MiB at most while 4 × ${TOTAL / 1024 / 1024} MiB chunked bodies came in, ${serverRssMiB()} MiB after; bytes sent before each answer: ${outcomes.map((o) => o.sentWhenAnswered).join(", ")}`,
+    );
     for (const o of outcomes) {
       expect(o.status, JSON.stringify(o.body)).toBe(413);
       expect(o.body.error).toMatch(/larger than 256 KiB/);
@@ -100,12 +109,16 @@ describe("request bodies are read only up to their cap", () => {
   it("a body within the cap, chunked, is still read whole", async () => {
     // Wrong password on purpose: the point is that the JSON arrived and was validated.
     const res = await new Promise<{ status: number; text: string }>((resolve, reject) => {
-      const req = http.request(new URL("/api/session", APP_URL), { method: "POST", headers: { "Content-Type": "application/json", Origin: ORIGIN } }, (r) => {
-        let text = "";
-        r.setEncoding("utf8");
-        r.on("data", (c: string) => (text += c));
-        r.on("end", () => resolve({ status: r.statusCode ?? 0, text }));
-      });
+      const req = http.request(
+        new URL("/api/session", APP_URL),
+        { method: "POST", headers: { "Content-Type": "application/json", Origin: ORIGIN } },
+        (r) => {
+          let text = "";
+          r.setEncoding("utf8");
+          r.on("data", (c: string) => (text += c));
+          r.on("end", () => resolve({ status: r.statusCode ?? 0, text }));
+        },
+      );
       req.on("error", reject);
       req.write('{"email":"not-an-address",');
       req.end(`"password":"${"p".repeat(1000)}"}`);

@@ -24,7 +24,12 @@ function xlsx(rows: (string | number)[][], sheetName = "Sheet1"): Buffer {
   XLSX.utils.book_append_sheet(book, XLSX.utils.aoa_to_sheet(rows), sheetName);
   return XLSX.write(book, { type: "buffer", bookType: "xlsx" }) as Buffer;
 }
-const csv = (rows: (string | number)[][]) => Buffer.from(rows.map((r) => r.map((c) => (/[",\n]/.test(String(c)) ? `"${String(c).replace(/"/g, '""')}"` : String(c))).join(",")).join("\n") + "\n");
+const csv = (rows: (string | number)[][]) =>
+  Buffer.from(
+    rows
+      .map((r) => r.map((c) => (/[",\n]/.test(String(c)) ? `"${String(c).replace(/"/g, '""')}"` : String(c))).join(","))
+      .join("\n") + "\n",
+  );
 
 let planner = "";
 let versionId = 0;
@@ -35,10 +40,14 @@ function send(url: string, file: Buffer, name: string, fields: Record<string, st
   for (const [k, v] of Object.entries({ layoutVersionId: String(versionId), ...fields })) req = req.field(k, v);
   return req.attach("file", file, name);
 }
-const preview = (kind: string, file: Buffer, name: string, fields?: Record<string, string>) => send(`/api/imports/${kind}/preview`, file, name, fields);
-const importFile = (kind: string, file: Buffer, name: string, fields?: Record<string, string>) => send(`/api/imports/${kind}`, file, name, fields);
+const preview = (kind: string, file: Buffer, name: string, fields?: Record<string, string>) =>
+  send(`/api/imports/${kind}/preview`, file, name, fields);
+const importFile = (kind: string, file: Buffer, name: string, fields?: Record<string, string>) =>
+  send(`/api/imports/${kind}`, file, name, fields);
 
-async function itemsBySku(): Promise<Map<string, { sku: string; description: string; uom: string; unitWeightG: number; bins: string[] }>> {
+async function itemsBySku(): Promise<
+  Map<string, { sku: string; description: string; uom: string; unitWeightG: number; bins: string[] }>
+> {
   const res = await api().get("/api/items").set("Cookie", planner);
   expect(res.status).toBe(200);
   return new Map(res.body.items.map((i: { sku: string }) => [i.sku, i]));
@@ -61,11 +70,15 @@ beforeAll(async () => {
 
 describe("item master import", () => {
   it("template round trip: download, fill in, import, listed; a second import updates and replaces bins", async () => {
-    const t = await api().get("/api/imports/items/template").set("Cookie", planner).buffer(true).parse((res, cb) => {
-      const chunks: Buffer[] = [];
-      res.on("data", (c: Buffer) => chunks.push(c));
-      res.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+    const t = await api()
+      .get("/api/imports/items/template")
+      .set("Cookie", planner)
+      .buffer(true)
+      .parse((res, cb) => {
+        const chunks: Buffer[] = [];
+        res.on("data", (c: Buffer) => chunks.push(c));
+        res.on("end", () => cb(null, Buffer.concat(chunks)));
+      });
     expect(t.status).toBe(200);
     const book = XLSX.read(t.body as Buffer, { type: "buffer" });
     expect(book.SheetNames).toEqual(["Items", "How to fill in"]);
@@ -73,12 +86,22 @@ describe("item master import", () => {
     expect(header).toEqual(ITEM_HEADER);
     const a = fresh("BOLT");
     const b = fresh("NUT");
-    const filled = xlsx([header, [a, "=1+1 hex bolt", "BOX", 2750, `${bins[0]}; ${bins[1]}`], [b, "Hex nut", "EA", 12, bins[2]!]]);
+    const filled = xlsx([
+      header,
+      [a, "=1+1 hex bolt", "BOX", 2750, `${bins[0]}; ${bins[1]}`],
+      [b, "Hex nut", "EA", 12, bins[2]!],
+    ]);
     const res = await importFile("items", filled, "items.xlsx");
     expect(res.status).toBe(201);
     expect(res.body.counts).toMatchObject({ rows: 2, items: 2, inserted: 2, updated: 0 });
     const listed = await itemsBySku();
-    expect(listed.get(a)).toEqual({ sku: a, description: "=1+1 hex bolt", uom: "BOX", unitWeightG: 2750, bins: [bins[0], bins[1]] });
+    expect(listed.get(a)).toEqual({
+      sku: a,
+      description: "=1+1 hex bolt",
+      uom: "BOX",
+      unitWeightG: 2750,
+      bins: [bins[0], bins[1]],
+    });
     expect(listed.get(b)?.bins).toEqual([bins[2]]);
 
     const again = await importFile("items", xlsx([header, [a, "Hex bolt", "BOX", 2800, bins[3]!]]), "items-2.xlsx");
@@ -91,20 +114,29 @@ describe("item master import", () => {
 
   it("exports the item master as .xlsx with formula-like text escaped", async () => {
     const sku = fresh("EXP");
-    expect((await importFile("items", csv([ITEM_HEADER, [sku, "=HYPERLINK(\"http://x\")", "EA", 5, bins[0]!]]), "exp.csv")).status).toBe(201);
-    const res = await api().get("/api/items/export").set("Cookie", planner).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on("data", (c: Buffer) => chunks.push(c));
-      r.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+    expect(
+      (await importFile("items", csv([ITEM_HEADER, [sku, '=HYPERLINK("http://x")', "EA", 5, bins[0]!]]), "exp.csv"))
+        .status,
+    ).toBe(201);
+    const res = await api()
+      .get("/api/items/export")
+      .set("Cookie", planner)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on("data", (c: Buffer) => chunks.push(c));
+        r.on("end", () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers["content-type"]).toContain("spreadsheetml");
     const sheet = XLSX.read(res.body as Buffer, { type: "buffer" });
     const rows = XLSX.utils.sheet_to_json<string[]>(sheet.Sheets[sheet.SheetNames[0]!]!, { header: 1 });
     expect(rows[0]).toEqual(ITEM_HEADER);
     const row = rows.find((r) => r[0] === sku)!;
-    expect(row[1]).toBe("'=HYPERLINK(\"http://x\")");
-    expect(Object.values(sheet.Sheets[sheet.SheetNames[0]!]!).some((c) => typeof c === "object" && c && "f" in c)).toBe(false);
+    expect(row[1]).toBe('\'=HYPERLINK("http://x")');
+    expect(Object.values(sheet.Sheets[sheet.SheetNames[0]!]!).some((c) => typeof c === "object" && c && "f" in c)).toBe(
+      false,
+    );
   });
 
   it("an unchanged export imports back to exactly the same item master", async () => {
@@ -117,31 +149,59 @@ describe("item master import", () => {
       { sku: fresh("WIDE"), description: "＝SUM(A1) ＋ －20 ＠x" },
       { sku: fresh("TAB"), description: "\tstarts with a tab" },
       { sku: fresh("ESC"), description: "_x0041_ is not an A" },
-    ].map((i, k) => ({ row: k + 2, ...i, uom: k % 2 ? "-EA" : "EA", unitWeightG: 10 + k, bins: [bins[k % bins.length]!] }));
+    ].map((i, k) => ({
+      row: k + 2,
+      ...i,
+      uom: k % 2 ? "-EA" : "EA",
+      unitWeightG: 10 + k,
+      bins: [bins[k % bins.length]!],
+    }));
     await db().transaction((trx) => upsertItems(trx, 1, stored));
     const before = await itemsBySku();
 
-    const exported = await api().get("/api/items/export").set("Cookie", planner).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on("data", (c: Buffer) => chunks.push(c));
-      r.on("end", () => cb(null, Buffer.concat(chunks)));
-    });
+    const exported = await api()
+      .get("/api/items/export")
+      .set("Cookie", planner)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on("data", (c: Buffer) => chunks.push(c));
+        r.on("end", () => cb(null, Buffer.concat(chunks)));
+      });
     expect(exported.status).toBe(200);
     const book = XLSX.read(exported.body as Buffer, { type: "buffer" });
-    const cells = XLSX.utils.sheet_to_json<string[]>(book.Sheets[book.SheetNames[0]!]!, { header: 1, raw: false }).flat();
-    expect(cells.filter((c) => /^[=+\-@\t\r\uFF1D\uFF0B\uFF0D\uFF20]/.test(c)), "formula-like cells in the export").toEqual([]);
+    const cells = XLSX.utils
+      .sheet_to_json<string[]>(book.Sheets[book.SheetNames[0]!]!, { header: 1, raw: false })
+      .flat();
+    expect(
+      cells.filter((c) => /^[=+\-@\t\r\uFF1D\uFF0B\uFF0D\uFF20]/.test(c)),
+      "formula-like cells in the export",
+    ).toEqual([]);
 
     const res = await importFile("items", exported.body as Buffer, "item-master.xlsx");
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const after = await itemsBySku();
-    for (const i of stored) expect(after.get(i.sku), i.sku).toEqual({ sku: i.sku, description: i.description, uom: i.uom, unitWeightG: i.unitWeightG, bins: i.bins });
-    expect([...after.keys()].filter((sku) => sku.startsWith("'=") || sku.startsWith("'+")), "SKUs the import made up").toEqual([]);
+    for (const i of stored)
+      expect(after.get(i.sku), i.sku).toEqual({
+        sku: i.sku,
+        description: i.description,
+        uom: i.uom,
+        unitWeightG: i.unitWeightG,
+        bins: i.bins,
+      });
+    expect(
+      [...after.keys()].filter((sku) => sku.startsWith("'=") || sku.startsWith("'+")),
+      "SKUs the import made up",
+    ).toEqual([]);
     expect(after).toEqual(before);
   });
 
   it("maps columns whose headers differ from the template", async () => {
     const sku = fresh("MAP");
-    const file = csv([["Artikel", "Text", "ME", "Gewicht", "Platz"], [sku, "Wall plug", "PK", 60, bins[0]!]]);
+    const file = csv([
+      ["Artikel", "Text", "ME", "Gewicht", "Platz"],
+      [sku, "Wall plug", "PK", 60, bins[0]!],
+    ]);
     const guessed = await preview("items", file, "other.csv");
     expect(guessed.status).toBe(200);
     expect(guessed.body.headers).toEqual(["Artikel", "Text", "ME", "Gewicht", "Platz"]);
@@ -193,13 +253,37 @@ describe("order lines import", () => {
   const skuElsewhere = fresh("OTHERPLAN");
 
   beforeAll(async () => {
-    expect((await importFile("items", csv([ITEM_HEADER, [skuA, "Item A", "EA", 100, bins[0]!], [skuB, "Item B", "BOX", 2500, `${bins[1]};${bins[2]}`]]), "ab.csv")).status).toBe(201);
+    expect(
+      (
+        await importFile(
+          "items",
+          csv([
+            ITEM_HEADER,
+            [skuA, "Item A", "EA", 100, bins[0]!],
+            [skuB, "Item B", "BOX", 2500, `${bins[1]};${bins[2]}`],
+          ]),
+          "ab.csv",
+        )
+      ).status,
+    ).toBe(201);
     // An item whose only bin is in another floor plan's layout version: it has no bin in Bramblegate's.
     const admin = await signInAs("admin");
-    const plan = await api().post("/api/floor-plans").set("Cookie", admin).set("Origin", ORIGIN).send({ name: `Imports test ${RUN}`, widthM: 12, heightM: 7, cellMm: 1000 });
+    const plan = await api()
+      .post("/api/floor-plans")
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ name: `Imports test ${RUN}`, widthM: 12, heightM: 7, cellMm: 1000 });
     expect(plan.status).toBe(201);
-    const saved = await api().put(`/api/floor-plans/${plan.body.id}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document: smallDocument() });
-    const start = await api().post(`/api/floor-plans/${plan.body.id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: saved.body.version });
+    const saved = await api()
+      .put(`/api/floor-plans/${plan.body.id}/draft`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: 1, document: smallDocument() });
+    const start = await api()
+      .post(`/api/floor-plans/${plan.body.id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: saved.body.version });
     expect(start.status).toBe(202);
     let job: { status: string; result: { layoutVersionId: number } } | undefined;
     for (let i = 0; i < 200 && !["done", "failed", "cancelled"].includes(job?.status ?? ""); i++) {
@@ -207,7 +291,12 @@ describe("order lines import", () => {
       job = (await api().get(`/api/jobs/${start.body.jobId}`).set("Cookie", admin)).body.job;
     }
     expect(job?.status).toBe("done");
-    const other = await importFile("items", csv([ITEM_HEADER, [skuElsewhere, "Elsewhere", "EA", 1, "01-01-1"]]), "other.csv", { layoutVersionId: String(job!.result.layoutVersionId) });
+    const other = await importFile(
+      "items",
+      csv([ITEM_HEADER, [skuElsewhere, "Elsewhere", "EA", 1, "01-01-1"]]),
+      "other.csv",
+      { layoutVersionId: String(job!.result.layoutVersionId) },
+    );
     expect(other.status).toBe(201);
   });
 
@@ -230,12 +319,26 @@ describe("order lines import", () => {
     const open = await api().get("/api/orders?status=open").set("Cookie", planner);
     const first = open.body.orders.find((o: { orderNumber: string }) => o.orderNumber === o1);
     // Europe/London is on summer time (UTC+1) on 1 July.
-    expect(first).toMatchObject({ customerRef: "PO-1", priority: 1, cutoffAt: "2026-07-01T08:05:00.000Z", status: "open", lineCount: 2 });
-    expect(open.body.orders.find((o: { orderNumber: string }) => o.orderNumber === o2)).toMatchObject({ priority: 2, cutoffAt: null, customerRef: null });
+    expect(first).toMatchObject({
+      customerRef: "PO-1",
+      priority: 1,
+      cutoffAt: "2026-07-01T08:05:00.000Z",
+      status: "open",
+      lineCount: 2,
+    });
+    expect(open.body.orders.find((o: { orderNumber: string }) => o.orderNumber === o2)).toMatchObject({
+      priority: 2,
+      cutoffAt: null,
+      customerRef: null,
+    });
 
     const retry = await importFile("orders", file, "orders (1).xlsx");
     expect(retry.status).toBe(200);
-    expect(retry.body).toMatchObject({ alreadyImported: true, filename: "orders.xlsx", counts: { rows: 3, orders: 2, lines: 3 } });
+    expect(retry.body).toMatchObject({
+      alreadyImported: true,
+      filename: "orders.xlsx",
+      counts: { rows: 3, orders: 2, lines: 3 },
+    });
     expect(typeof retry.body.importedAt).toBe("string");
     const numbers = await orderNumbers();
     expect(numbers.filter((n) => n === o1 || n === o2)).toHaveLength(2);
@@ -249,14 +352,23 @@ describe("order lines import", () => {
     expect(mine).toMatchObject({ cutoffAt: "2026-07-01T08:05:00.000Z", priority: 1, customerRef: "PO-1" });
     expect(mine.lines).toEqual([
       { lineId: expect.any(Number), lineNo: 1, sku: skuA, quantity: 3, unitWeightG: 100, binCodes: [bins[0]] },
-      { lineId: expect.any(Number), lineNo: 2, sku: skuB, quantity: 1, unitWeightG: 2500, binCodes: [bins[1], bins[2]] },
+      {
+        lineId: expect.any(Number),
+        lineNo: 2,
+        sku: skuB,
+        quantity: 1,
+        unitWeightG: 2500,
+        binCodes: [bins[1], bins[2]],
+      },
     ]);
     expect(planning.some((o) => o.orderNumber === o2)).toBe(false);
   });
 
   it("reports every kind of bad row with its row number; one bad row writes nothing", async () => {
     const taken = fresh("SO");
-    expect((await importFile("orders", csv([ORDER_HEADER, [taken, 1, skuA, 1, "", "", ""]]), "taken.csv")).status).toBe(201);
+    expect((await importFile("orders", csv([ORDER_HEADER, [taken, 1, skuA, 1, "", "", ""]]), "taken.csv")).status).toBe(
+      201,
+    );
     const ok = fresh("SO");
     const mixed = fresh("SO");
     const file = csv([
@@ -301,17 +413,31 @@ describe("order lines import", () => {
  */
 function postEarlyAnswered(url: string, file: Buffer): Promise<{ status: number; text: string }> {
   const boundary = "----trailbin-test";
-  const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="layoutVersionId"\r\n\r\n${versionId}\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big.csv"\r\nContent-Type: text/csv\r\n\r\n`);
+  const head = Buffer.from(
+    `--${boundary}\r\nContent-Disposition: form-data; name="layoutVersionId"\r\n\r\n${versionId}\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big.csv"\r\nContent-Type: text/csv\r\n\r\n`,
+  );
   const body = Buffer.concat([head, file, Buffer.from(`\r\n--${boundary}--\r\n`)]);
   return new Promise((resolve, reject) => {
     let answered = false;
-    const req = http.request(new URL(url, ORIGIN), { method: "POST", headers: { cookie: planner, origin: ORIGIN, "content-type": `multipart/form-data; boundary=${boundary}`, "content-length": body.length } }, (res) => {
-      answered = true;
-      let text = "";
-      res.setEncoding("utf8");
-      res.on("data", (c: string) => (text += c));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, text }));
-    });
+    const req = http.request(
+      new URL(url, ORIGIN),
+      {
+        method: "POST",
+        headers: {
+          cookie: planner,
+          origin: ORIGIN,
+          "content-type": `multipart/form-data; boundary=${boundary}`,
+          "content-length": body.length,
+        },
+      },
+      (res) => {
+        answered = true;
+        let text = "";
+        res.setEncoding("utf8");
+        res.on("data", (c: string) => (text += c));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, text }));
+      },
+    );
     req.on("error", (e) => {
       if (!answered) reject(e);
     });
@@ -325,15 +451,23 @@ describe("crafted and wrong files", () => {
   it("prototype-pollution headers and cells, in CSV and .xlsx, change nothing and the server answers normally", async () => {
     const before = protoKeys();
     const sku = fresh("PROTO");
-    const csvFile = Buffer.from(readFileSync(path.join(import.meta.dirname, "../fixtures/sheets/prototype-pollution.csv"), "utf8").replaceAll("SKU_PLACEHOLDER", sku).replaceAll("BIN_PLACEHOLDER", bins[0]!));
+    const csvFile = Buffer.from(
+      readFileSync(path.join(import.meta.dirname, "../fixtures/sheets/prototype-pollution.csv"), "utf8")
+        .replaceAll("SKU_PLACEHOLDER", sku)
+        .replaceAll("BIN_PLACEHOLDER", bins[0]!),
+    );
     const rows = [
       ["__proto__", "constructor", "prototype", ...ITEM_HEADER],
       ["__proto__", "constructor", "prototype", `${sku}-X`, "__proto__", "EA", 1, bins[0]!],
       ["prototype", "__proto__", "constructor", `${sku}-Y`, "constructor", "prototype", 2, bins[0]!],
     ];
     // Written as text: an object literal's __proto__ would set its prototype instead of a key.
-    const mapping = '{"__proto__":{"polluted":true},"constructor":1,"prototype":2,"sku":3,"description":4,"uom":5,"unitWeightG":6,"bins":7}';
-    for (const [file, name] of [[csvFile, "proto.csv"], [xlsx(rows), "proto.xlsx"]] as const) {
+    const mapping =
+      '{"__proto__":{"polluted":true},"constructor":1,"prototype":2,"sku":3,"description":4,"uom":5,"unitWeightG":6,"bins":7}';
+    for (const [file, name] of [
+      [csvFile, "proto.csv"],
+      [xlsx(rows), "proto.xlsx"],
+    ] as const) {
       const p = await preview("items", file, name, { mapping });
       expect(p.status).toBe(200);
       expect(p.body.headers.slice(0, 3)).toEqual(["__proto__", "constructor", "prototype"]);
@@ -351,7 +485,11 @@ describe("crafted and wrong files", () => {
     expect(protoKeys()).toEqual(before);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
     expect((await api().get("/api/health")).status).toBe(200);
-    const normal = await preview("items", csv([ITEM_HEADER, [fresh("AFTER"), "Normal", "EA", 1, bins[0]!]]), "after.csv");
+    const normal = await preview(
+      "items",
+      csv([ITEM_HEADER, [fresh("AFTER"), "Normal", "EA", 1, bins[0]!]]),
+      "after.csv",
+    );
     expect(normal.status).toBe(200);
     expect(normal.body.problems).toEqual([]);
   });
@@ -364,7 +502,11 @@ describe("crafted and wrong files", () => {
     const binary = await importFile("items", Buffer.from([0x7f, 0x45, 0x4c, 0x46, 0, 1, 2, 0]), "items.xlsx");
     expect(binary.status).toBe(415);
     expect(binary.body.error).toMatch(/not a spreadsheet/);
-    const noVersion = await api().post("/api/imports/items/preview").set("Cookie", planner).set("Origin", ORIGIN).attach("file", csv([ITEM_HEADER]), "x.csv");
+    const noVersion = await api()
+      .post("/api/imports/items/preview")
+      .set("Cookie", planner)
+      .set("Origin", ORIGIN)
+      .attach("file", csv([ITEM_HEADER]), "x.csv");
     expect(noVersion.status).toBe(400);
     expect(JSON.stringify(noVersion.body)).toMatch(/layout version/);
   });

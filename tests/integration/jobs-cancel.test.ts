@@ -45,20 +45,30 @@ async function holdRow(table: string, id: number) {
   return {
     release: () => trx.rollback(),
     // Queued behind the job's own FOR UPDATE on the row, so this returns once the job's transaction has ended.
-    afterJobsTransaction: async () => db().transaction(async (t) => void (await t(table).where({ id }).forUpdate().first("id"))),
+    afterJobsTransaction: async () =>
+      db().transaction(async (t) => void (await t(table).where({ id }).forUpdate().first("id"))),
   };
 }
 
 let n = 0;
 async function savedFloorPlan() {
-  const res = await api().post("/api/floor-plans").set("Cookie", admin).set("Origin", ORIGIN).send({ name: `Cancel test ${Date.now()}-${++n}`, widthM: 12, heightM: 7, cellMm: 1000 });
+  const res = await api()
+    .post("/api/floor-plans")
+    .set("Cookie", admin)
+    .set("Origin", ORIGIN)
+    .send({ name: `Cancel test ${Date.now()}-${++n}`, widthM: 12, heightM: 7, cellMm: 1000 });
   expect(res.status).toBe(201);
   const id = res.body.id as number;
-  const saved = await api().put(`/api/floor-plans/${id}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document: smallDocument() });
+  const saved = await api()
+    .put(`/api/floor-plans/${id}/draft`)
+    .set("Cookie", admin)
+    .set("Origin", ORIGIN)
+    .send({ version: 1, document: smallDocument() });
   expect(saved.status).toBe(200);
   return { id, version: saved.body.version as number };
 }
-const versionsOf = async (floorPlanId: number) => Number((await db()("layout_versions").where({ floor_plan_id: floorPlanId }).count({ n: "*" }).first())?.n);
+const versionsOf = async (floorPlanId: number) =>
+  Number((await db()("layout_versions").where({ floor_plan_id: floorPlanId }).count({ n: "*" }).first())?.n);
 
 describe("cancelling a publish", () => {
   it("a cancel that arrives first wins: 202 cancelled, the job stays cancelled and no layout version is made", async () => {
@@ -66,7 +76,11 @@ describe("cancelling a publish", () => {
     const lock = await holdRow("floor_plans", plan.id);
     let jobId = "";
     try {
-      const start = await api().post(`/api/floor-plans/${plan.id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: plan.version });
+      const start = await api()
+        .post(`/api/floor-plans/${plan.id}/publish`)
+        .set("Cookie", admin)
+        .set("Origin", ORIGIN)
+        .send({ version: plan.version });
       expect(start.status).toBe(202);
       jobId = start.body.jobId;
       // The job has computed the layout and waits to store it.
@@ -87,7 +101,11 @@ describe("cancelling a publish", () => {
 
   it("a cancel after the job finished gets 409 and the job stays done", async () => {
     const plan = await savedFloorPlan();
-    const start = await api().post(`/api/floor-plans/${plan.id}/publish`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: plan.version });
+    const start = await api()
+      .post(`/api/floor-plans/${plan.id}/publish`)
+      .set("Cookie", admin)
+      .set("Origin", ORIGIN)
+      .send({ version: plan.version });
     const done = await waitForJob(admin, start.body.jobId);
     expect(done.status).toBe("done");
     const cancel = await api().delete(`/api/jobs/${start.body.jobId}`).set("Cookie", admin).set("Origin", ORIGIN);
@@ -102,24 +120,55 @@ describe("cancelling a publish", () => {
 describe("cancelling a wave plan", () => {
   it("a cancel while the plan is being stored wins: the wave stays a draft without batches", async () => {
     // Order lines of this test only, with a cut-off before anything else's, so the wave holds just these.
-    const items = (await api().get("/api/items").set("Cookie", planner)).body.items as { sku: string; bins: string[] }[];
-    const skus = items.filter((i) => i.bins.length > 0).slice(0, 3).map((i) => i.sku);
+    const items = (await api().get("/api/items").set("Cookie", planner)).body.items as {
+      sku: string;
+      bins: string[];
+    }[];
+    const skus = items
+      .filter((i) => i.bins.length > 0)
+      .slice(0, 3)
+      .map((i) => i.sku);
     const run = `CANCEL-${Date.now().toString(36).toUpperCase()}`;
-    const csv = ["Order number,Line,SKU,Quantity,Cut-off", ...skus.map((sku, k) => `${run}-${k},1,${sku},1,2001-01-01 10:00`)].join("\n") + "\n";
-    const imported = await api().post("/api/imports/orders").set("Cookie", planner).set("Origin", ORIGIN).field("layoutVersionId", "1").attach("file", Buffer.from(csv), "orders.csv");
+    const csv =
+      [
+        "Order number,Line,SKU,Quantity,Cut-off",
+        ...skus.map((sku, k) => `${run}-${k},1,${sku},1,2001-01-01 10:00`),
+      ].join("\n") + "\n";
+    const imported = await api()
+      .post("/api/imports/orders")
+      .set("Cookie", planner)
+      .set("Origin", ORIGIN)
+      .field("layoutVersionId", "1")
+      .attach("file", Buffer.from(csv), "orders.csv");
     expect(imported.status, JSON.stringify(imported.body)).toBe(201);
     const created = await api()
       .post("/api/waves")
       .set("Cookie", planner)
       .set("Origin", ORIGIN)
-      .send({ name: `Cancel test ${run}`, layoutVersionId: 1, settings: { totesPerCart: 4, maxLines: 12, maxWeightG: 60_000, depotId: "D1", dropoffId: "P1", method: "first-come" }, cutoffBefore: "2001-01-02T00:00:00Z" });
+      .send({
+        name: `Cancel test ${run}`,
+        layoutVersionId: 1,
+        settings: {
+          totesPerCart: 4,
+          maxLines: 12,
+          maxWeightG: 60_000,
+          depotId: "D1",
+          dropoffId: "P1",
+          method: "first-come",
+        },
+        cutoffBefore: "2001-01-02T00:00:00Z",
+      });
     expect(created.status, JSON.stringify(created.body)).toBe(201);
     const waveId = created.body.id as number;
 
     const lock = await holdRow("waves", waveId);
     let jobId = "";
     try {
-      const start = await api().post(`/api/waves/${waveId}/plan`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: 1 });
+      const start = await api()
+        .post(`/api/waves/${waveId}/plan`)
+        .set("Cookie", planner)
+        .set("Origin", ORIGIN)
+        .send({ version: 1 });
       expect(start.status, JSON.stringify(start.body)).toBe(202);
       jobId = start.body.jobId;
       await waitForBlockedQuery("%waves%for update%");
@@ -153,7 +202,9 @@ describe("the job's own finish and a cancel at the same moment", () => {
     }
     expect(await cancel).toBe(false);
     expect((await getJob(1, job.id))?.status).toBe("done");
-    expect(await updateJob(job.id, { status: "running", progress: 0.5 }), "a finished job never runs again").toBe(false);
+    expect(await updateJob(job.id, { status: "running", progress: 0.5 }), "a finished job never runs again").toBe(
+      false,
+    );
     expect((await getJob(1, job.id))?.status).toBe("done");
   });
 });

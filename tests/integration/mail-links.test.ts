@@ -16,7 +16,11 @@ describe("set-password links on the mail page", () => {
   it("an invitation to someone else: the admin sees the mail but not its token, anywhere in the answer", async () => {
     const admin = await signInAs("admin");
     const email = uniqueAddress("masked-invite");
-    const res = await api().post("/api/users").set("Origin", ORIGIN).set("Cookie", admin).send({ email, displayName: "Mae Masked", role: "picker" });
+    const res = await api()
+      .post("/api/users")
+      .set("Origin", ORIGIN)
+      .set("Cookie", admin)
+      .send({ email, displayName: "Mae Masked", role: "picker" });
     expect(res.status).toBe(201);
     const [mail] = await waitForMail(email);
     const token = tokenOf(linkIn(mail!.text));
@@ -37,7 +41,10 @@ describe("set-password links on the mail page", () => {
     expect(page.text).not.toContain(token);
 
     // The link still works for its addressee.
-    const set = await api().post("/api/password/set").set("Origin", ORIGIN).send({ token, password: "copper lantern by the weir" });
+    const set = await api()
+      .post("/api/password/set")
+      .set("Origin", ORIGIN)
+      .send({ token, password: "copper lantern by the weir" });
     expect(set.status, JSON.stringify(set.body)).toBe(200);
   });
 

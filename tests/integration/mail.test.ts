@@ -18,8 +18,10 @@ afterAll(async () => {
   await db().destroy();
 });
 
-const setPassword = (token: string, password: string) => api().post("/api/password/set").set("Origin", ORIGIN).send({ token, password });
-const signInStatus = async (email: string, password: string) => (await api().post("/api/session").set("Origin", ORIGIN).send({ email, password })).status;
+const setPassword = (token: string, password: string) =>
+  api().post("/api/password/set").set("Origin", ORIGIN).send({ token, password });
+const signInStatus = async (email: string, password: string) =>
+  (await api().post("/api/session").set("Origin", ORIGIN).send({ email, password })).status;
 
 /** A port on loopback where nothing listens: an SMTP server that is down. */
 async function closedPort(): Promise<number> {
@@ -34,7 +36,11 @@ describe("invitation", () => {
   it("an admin adds a user without a password; the mail's link sets it once, then is dead", async () => {
     const admin = await signInAs("admin");
     const email = uniqueAddress("invitee");
-    const res = await api().post("/api/users").set("Origin", ORIGIN).set("Cookie", admin).send({ email, displayName: "Ife Invited", role: "picker" });
+    const res = await api()
+      .post("/api/users")
+      .set("Origin", ORIGIN)
+      .set("Cookie", admin)
+      .send({ email, displayName: "Ife Invited", role: "picker" });
     expect(res.status).toBe(201);
     expect(res.body.invited).toBe(true);
 
@@ -79,10 +85,14 @@ describe("invitation", () => {
     const malformed = await setPassword("not a token", "long enough password");
     let token = "";
     const email = uniqueAddress("expired");
-    await createInvitedUser({ id: newId(), siteId: 1, email, displayName: "Old Invite", role: "picker" }, (t) => {
-      token = t;
-      return { to: email, subject: "test invitation", text: "x" };
-    }, new Date(Date.now() - 73 * 60 * 60 * 1000));
+    await createInvitedUser(
+      { id: newId(), siteId: 1, email, displayName: "Old Invite", role: "picker" },
+      (t) => {
+        token = t;
+        return { to: email, subject: "test invitation", text: "x" };
+      },
+      new Date(Date.now() - 73 * 60 * 60 * 1000),
+    );
     const expired = await setPassword(token, "long enough password");
     for (const r of [unknown, malformed, expired]) {
       expect(r.status).toBe(400);
@@ -96,7 +106,10 @@ describe("password reset", () => {
   it("works for an existing account, ends its sessions, and the old password stops working", async () => {
     const u = await makeUser("picker");
     const oldCookie = await signIn(u.email, u.password);
-    const res = await api().post("/api/password/reset-request").set("Origin", ORIGIN).send({ email: u.email.toUpperCase() });
+    const res = await api()
+      .post("/api/password/reset-request")
+      .set("Origin", ORIGIN)
+      .send({ email: u.email.toUpperCase() });
     expect(res.status).toBe(200);
     expect(res.body.message).toBe(RESET_ANSWER);
 
@@ -142,8 +155,12 @@ describe("outbox", () => {
     const key = `test:retry:${to}`;
     const t0 = later(0);
     const at = (ms: number) => new Date(t0.getTime() + ms);
-    const queued = await db().transaction((trx) => enqueueMail(trx, { dedupeKey: key, to, subject: "Retry me", text: "hello", notBefore: t0 }));
-    const twice = await db().transaction((trx) => enqueueMail(trx, { dedupeKey: key, to, subject: "Retry me", text: "hello", notBefore: t0 }));
+    const queued = await db().transaction((trx) =>
+      enqueueMail(trx, { dedupeKey: key, to, subject: "Retry me", text: "hello", notBefore: t0 }),
+    );
+    const twice = await db().transaction((trx) =>
+      enqueueMail(trx, { dedupeKey: key, to, subject: "Retry me", text: "hello", notBefore: t0 }),
+    );
     expect([queued, twice]).toEqual([true, false]);
     const id = (await getOutboxMailByKey(key))!.id;
 
@@ -179,7 +196,9 @@ describe("outbox", () => {
   it("two senders racing for the same row send it once", async () => {
     const to = uniqueAddress("race");
     const t0 = later(0);
-    await db().transaction((trx) => enqueueMail(trx, { dedupeKey: `test:race:${to}`, to, subject: "Once", text: "only once", notBefore: t0 }));
+    await db().transaction((trx) =>
+      enqueueMail(trx, { dedupeKey: `test:race:${to}`, to, subject: "Once", text: "only once", notBefore: t0 }),
+    );
     const id = (await getOutboxMailByKey(`test:race:${to}`))!.id;
     const [a, b] = await Promise.all([sendDueMail({ now: t0, ids: [id] }), sendDueMail({ now: t0, ids: [id] })]);
     expect([...a.sent, ...b.sent]).toEqual([id]);
@@ -223,7 +242,16 @@ describe("header injection", () => {
     const evil = uniqueAddress("evil");
     const t0 = new Date(Date.now() + 60 * 60 * 1000);
     const key = `test:inject:${to}`;
-    await db().transaction((trx) => enqueueMail(trx, { dedupeKey: key, to, toName: `a\r\nBcc: ${evil}`, subject: `Hi\r\nBcc: ${evil}`, text: "x", notBefore: t0 }));
+    await db().transaction((trx) =>
+      enqueueMail(trx, {
+        dedupeKey: key,
+        to,
+        toName: `a\r\nBcc: ${evil}`,
+        subject: `Hi\r\nBcc: ${evil}`,
+        text: "x",
+        notBefore: t0,
+      }),
+    );
     const row = (await getOutboxMailByKey(key))!;
     expect(row.toName).toBe(`a Bcc: ${evil}`);
     expect(row.subject).toBe(`Hi Bcc: ${evil}`);
@@ -235,7 +263,9 @@ describe("header injection", () => {
     expect(await sinkMessagesTo(evil)).toEqual([]);
 
     await expect(
-      db().transaction((trx) => enqueueMail(trx, { dedupeKey: `test:inject2:${to}`, to: `${to}\r\nBcc: ${evil}`, subject: "x", text: "x" })),
+      db().transaction((trx) =>
+        enqueueMail(trx, { dedupeKey: `test:inject2:${to}`, to: `${to}\r\nBcc: ${evil}`, subject: "x", text: "x" }),
+      ),
     ).rejects.toBeInstanceOf(InvalidAddressError);
   });
 });
@@ -249,6 +279,12 @@ describe("mail page", () => {
     expect(ids.length).toBeGreaterThan(0);
     expect([...ids].sort((a: number, b: number) => b - a)).toEqual(ids);
     expect((await api().get("/admin/mail").set("Cookie", admin)).status).toBe(200);
-    expect((await api().get("/api/mail").set("Cookie", await signInAs("planner"))).status).toBe(403);
+    expect(
+      (
+        await api()
+          .get("/api/mail")
+          .set("Cookie", await signInAs("planner"))
+      ).status,
+    ).toBe(403);
   });
 });

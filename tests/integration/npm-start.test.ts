@@ -2,7 +2,19 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { rmSync } from "node:fs";
 import path from "node:path";
 import { DEMO_ACCOUNTS } from "@/db/seeds/demo/accounts";
-import { freePort, npmStart, portAnswers, processesOf, startFileExists, START_DIR, stillRunning, until, type NpmStart, type Ports, type Proc } from "../support/npm-start";
+import {
+  freePort,
+  npmStart,
+  portAnswers,
+  processesOf,
+  startFileExists,
+  START_DIR,
+  stillRunning,
+  until,
+  type NpmStart,
+  type Ports,
+  type Proc,
+} from "../support/npm-start";
 
 // `npm start` for real, stopped the ways a person or a service manager stops it. npm itself passes
 // only some signals on, and only to its direct child, so each way must end with the web server, the
@@ -45,10 +57,17 @@ async function started(): Promise<NpmStart> {
 }
 
 async function expectAllStopped(s: NpmStart, procs: Proc[]) {
-  await until("npm to exit", 90_000, async () => (await Promise.race([s.exited.then(() => true), new Promise((r) => setTimeout(() => r(false), 200))])) as boolean);
+  await until(
+    "npm to exit",
+    90_000,
+    async () =>
+      (await Promise.race([s.exited.then(() => true), new Promise((r) => setTimeout(() => r(false), 200))])) as boolean,
+  );
   // The script stops everything before it exits, but a signal npm does not pass on (HUP) ends npm
   // at once and the script notices a moment later: give it the time a clean MariaDB shutdown takes.
-  await until("every process of npm start to end", 60_000, () => stillRunning(procs).length === 0).catch(() => undefined);
+  await until("every process of npm start to end", 60_000, () => stillRunning(procs).length === 0).catch(
+    () => undefined,
+  );
   expect(stillRunning(procs).map((p) => `${p.pid} ${p.cmd}`)).toEqual([]);
   expect(await portAnswers(ports.app)).toBe(false);
   expect(await portAnswers(ports.mail)).toBe(false);
@@ -90,9 +109,13 @@ describe("npm start stopped by a signal", () => {
   }, 300_000);
 
   // INT to the script is what npm passes on, above.
-  it.each([["SIGTERM"], ["SIGHUP"]] as const)("%s to the start script's pid stops all of it", async (signal) => {
-    await stopAndCheck(signal, "script");
-  }, 300_000);
+  it.each([["SIGTERM"], ["SIGHUP"]] as const)(
+    "%s to the start script's pid stops all of it",
+    async (signal) => {
+      await stopAndCheck(signal, "script");
+    },
+    300_000,
+  );
 });
 
 describe("MariaDB dies under npm start", () => {
@@ -129,7 +152,9 @@ describe("MariaDB dies under npm start", () => {
     } finally {
       process.kill(script, "SIGCONT");
     }
-    await until("a log line about restarting MariaDB", 30_000, () => /MariaDB \(pid \d+\) stopped unexpectedly.*restarting it/.test(s.log()));
+    await until("a log line about restarting MariaDB", 30_000, () =>
+      /MariaDB \(pid \d+\) stopped unexpectedly.*restarting it/.test(s.log()),
+    );
     await until("health to answer 200 again", 90_000, async () => (await s.health()) === 200);
     await until("the log to say MariaDB is back", 10_000, () => /MariaDB is back/.test(s.log()));
     expect(statuses.filter((x) => x !== 200 && x !== 503)).toEqual([]);

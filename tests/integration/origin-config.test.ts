@@ -47,7 +47,9 @@ describe("Origin against APP_ORIGIN", () => {
   });
 
   it("a production server without APP_ORIGIN does not start, and says what to set", async () => {
-    await expect(startSecondServer({ APP_ORIGIN: "" }, "no-origin").then((s) => (server = s))).rejects.toThrow(/exited before answering/);
+    await expect(startSecondServer({ APP_ORIGIN: "" }, "no-origin").then((s) => (server = s))).rejects.toThrow(
+      /exited before answering/,
+    );
     const log = readFileSync(path.resolve(process.cwd(), ".data/test/second-app-no-origin.log"), "utf8");
     expect(log).toMatch(/APP_ORIGIN is not set/);
     expect(log).toMatch(/http:\/\/127\.0\.0\.1:3000/);

@@ -3,7 +3,9 @@ import { api, signInAs } from "../support/app";
 import { concrete, discoverRoutes } from "../support/app-routes";
 import { latestAudit } from "@/db/audit";
 
-const mutations = discoverRoutes().handlers.flatMap((h) => h.methods.filter((m) => m !== "GET").map((method) => ({ url: h.url, method })));
+const mutations = discoverRoutes().handlers.flatMap((h) =>
+  h.methods.filter((m) => m !== "GET").map((method) => ({ url: h.url, method })),
+);
 
 describe("state-changing requests must come from our own origin", () => {
   it("there are mutating routes to check", () => expect(mutations.length).toBeGreaterThan(0));

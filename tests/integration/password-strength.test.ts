@@ -8,24 +8,37 @@ afterAll(async () => {
 });
 
 const addUser = async (body: object) =>
-  api().post("/api/users").set("Origin", ORIGIN).set("Cookie", await signInAs("admin")).send({ role: "picker", ...body });
-const setPassword = (token: string, password: string) => api().post("/api/password/set").set("Origin", ORIGIN).send({ token, password });
-const passwordIssue = (body: { issues?: { path: string; message: string }[] }) => body.issues?.find((i) => i.path === "password")?.message ?? "";
+  api()
+    .post("/api/users")
+    .set("Origin", ORIGIN)
+    .set("Cookie", await signInAs("admin"))
+    .send({ role: "picker", ...body });
+const setPassword = (token: string, password: string) =>
+  api().post("/api/password/set").set("Origin", ORIGIN).send({ token, password });
+const passwordIssue = (body: { issues?: { path: string; message: string }[] }) =>
+  body.issues?.find((i) => i.path === "password")?.message ?? "";
 
 describe("weak passwords are refused, with what to do instead", () => {
-  it.each(["111111111111", "password1234", "qwertyuiopas", "abcdefghijkl", "Password123!"])("a first password of %s", async (password) => {
-    const res = await addUser({ email: uniqueAddress("weak"), displayName: "Wes Weak", password });
-    expect(res.status, JSON.stringify(res.body)).toBe(400);
-    expect(passwordIssue(res.body)).toMatch(/easy to guess/);
-    expect(passwordIssue(res.body)).toMatch(/a few unrelated words/);
-  });
+  it.each(["111111111111", "password1234", "qwertyuiopas", "abcdefghijkl", "Password123!"])(
+    "a first password of %s",
+    async (password) => {
+      const res = await addUser({ email: uniqueAddress("weak"), displayName: "Wes Weak", password });
+      expect(res.status, JSON.stringify(res.body)).toBe(400);
+      expect(passwordIssue(res.body)).toMatch(/easy to guess/);
+      expect(passwordIssue(res.body)).toMatch(/a few unrelated words/);
+    },
+  );
 
   it("a first password made of the person's own e-mail address or name", async () => {
     const email = uniqueAddress("zebulonardwick");
     const byEmail = await addUser({ email, displayName: "Zeb Ardwick", password: `${email.split("@")[0]}!` });
     expect(byEmail.status).toBe(400);
     expect(passwordIssue(byEmail.body)).toMatch(/e-mail address or name/);
-    const byName = await addUser({ email: uniqueAddress("name"), displayName: "Marguerite Quillfeather", password: "marguerite quillfeather 7" });
+    const byName = await addUser({
+      email: uniqueAddress("name"),
+      displayName: "Marguerite Quillfeather",
+      password: "marguerite quillfeather 7",
+    });
     expect(byName.status).toBe(400);
     expect(passwordIssue(byName.body)).toMatch(/e-mail address or name/);
     // Nothing was created by the refused requests.

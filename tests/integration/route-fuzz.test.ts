@@ -2,7 +2,15 @@ import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, makeUser, ORIGIN, signInAs } from "../support/app";
 import { discoverRoutes } from "../support/app-routes";
-import { badArbitrary, badValues, constructorKeyed, protoKeyed, toJsonText, withField, type FieldKind } from "../support/fuzz-values";
+import {
+  badArbitrary,
+  badValues,
+  constructorKeyed,
+  protoKeyed,
+  toJsonText,
+  withField,
+  type FieldKind,
+} from "../support/fuzz-values";
 import { API_ACCESS } from "@/lib/auth/access-table";
 import { ROLES, roleMay, type Access, type Role } from "@/lib/auth/permissions";
 import { SHORT_REASONS } from "@/lib/picking/rules";
@@ -61,7 +69,11 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
     POST: {
       body: {
         example: () => ({ email: "nobody-fuzz@tests.example", password: "not the password", next: "/waves" }),
-        fields: { email: { kind: "email" }, password: { kind: "string", min: 1, max: 1024 }, next: { kind: "string", max: 512 } },
+        fields: {
+          email: { kind: "email" },
+          password: { kind: "string", min: 1, max: 1024 },
+          next: { kind: "string", max: 512 },
+        },
         probe: { status: 401 },
       },
     },
@@ -70,14 +82,27 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
     GET: {},
     POST: {
       body: {
-        example: () => ({ email: "fuzz-new@tests.example", displayName: "Fuzz Person", role: "picker", password: "correct horse battery" }),
+        example: () => ({
+          email: "fuzz-new@tests.example",
+          displayName: "Fuzz Person",
+          role: "picker",
+          password: "correct horse battery",
+        }),
         fields: {
           email: { kind: "email" },
           displayName: { kind: "string", min: 1, max: 120, trimmed: true },
           role: { kind: "enum", values: ROLES },
           password: { kind: "string", min: 12, max: 1024 },
         },
-        probe: { body: (f) => ({ email: f.target.email, displayName: "Fuzz Person", role: "picker", password: "correct horse battery" }), status: 409 },
+        probe: {
+          body: (f) => ({
+            email: f.target.email,
+            displayName: "Fuzz Person",
+            role: "picker",
+            password: "correct horse battery",
+          }),
+          status: 409,
+        },
       },
     },
   },
@@ -86,14 +111,25 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
       params: (f) => ({ id: f.target.id }),
       body: {
         example: (f) => ({ version: f.target.version, role: "planner", disabled: false, displayName: "Fuzz Renamed" }),
-        fields: { version: id, role: { kind: "enum", values: ROLES }, disabled: { kind: "bool" }, displayName: { kind: "string", min: 1, max: 120, trimmed: true } },
+        fields: {
+          version: id,
+          role: { kind: "enum", values: ROLES },
+          disabled: { kind: "bool" },
+          displayName: { kind: "string", min: 1, max: 120, trimmed: true },
+        },
         probe: { params: { id: "no-such-user" }, status: 404 },
       },
     },
   },
   "/api/mail": { GET: {} },
   "/api/password/reset-request": {
-    POST: { body: { example: () => ({ email: "nobody-fuzz-reset@tests.example" }), fields: { email: { kind: "email" } }, probe: { status: 200 } } },
+    POST: {
+      body: {
+        example: () => ({ email: "nobody-fuzz-reset@tests.example" }),
+        fields: { email: { kind: "email" } },
+        probe: { status: 200 },
+      },
+    },
   },
   "/api/password/set": {
     POST: {
@@ -149,20 +185,36 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
     },
   },
   "/api/floor-plans/[id]/publish": {
-    POST: { params: () => ({ id: "1" }), body: { example: (f) => ({ version: f.draft.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
+    POST: {
+      params: () => ({ id: "1" }),
+      body: {
+        example: (f) => ({ version: f.draft.version }),
+        fields: { version: id },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
   },
   "/api/floor-plans/[id]/versions": { GET: { params: () => ({ id: "1" }) } },
   "/api/floor-plans/[id]/versions/[number]": { GET: { params: () => ({ id: "1", number: "1" }) } },
   "/api/floor-plans/[id]/background": { POST: { params: () => ({ id: "1" }), upload: true } },
-  "/api/floor-plans/[id]/background/[fileId]": { GET: { params: () => ({ id: "1", fileId: "0123456789abcdef0123456789abcdef" }) } },
+  "/api/floor-plans/[id]/background/[fileId]": {
+    GET: { params: () => ({ id: "1", fileId: "0123456789abcdef0123456789abcdef" }) },
+  },
   "/api/floor-plans/[id]/rack-runs/[runId]/bins": {
     GET: { params: (f) => ({ id: "1", runId: f.draft.runId }) },
     POST: { params: (f) => ({ id: "1", runId: f.draft.runId }), upload: true },
   },
   "/api/layout-versions/[id]/distance": {
-    GET: { params: (f) => ({ id: String(f.layoutVersionId) }), validQuery: "?from=D1&to=D2", query: { from: ["", "NO-SUCH-BIN", "x".repeat(5000)], to: ["", "NO-SUCH-BIN"] } },
+    GET: {
+      params: (f) => ({ id: String(f.layoutVersionId) }),
+      validQuery: "?from=D1&to=D2",
+      query: { from: ["", "NO-SUCH-BIN", "x".repeat(5000)], to: ["", "NO-SUCH-BIN"] },
+    },
   },
-  "/api/jobs/[id]": { GET: { params: () => ({ id: "no-such-job" }) }, DELETE: { params: () => ({ id: "no-such-job" }) } },
+  "/api/jobs/[id]": {
+    GET: { params: () => ({ id: "no-such-job" }) },
+    DELETE: { params: () => ({ id: "no-such-job" }) },
+  },
   "/api/items": { GET: {} },
   "/api/items/export": { GET: {} },
   "/api/orders": { GET: { query: { status: ["zzz", "", "OPEN ", "__proto__", "x".repeat(5000)] } } },
@@ -171,17 +223,39 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
   "/api/imports/[kind]/template": { GET: { params: () => ({ kind: "orders" }) } },
   "/api/my-batches": { GET: {} },
   "/api/batches/[batchId]/take": {
-    POST: { params: (f) => ({ batchId: String(f.pickerBatch.id) }), body: { example: (f) => ({ version: f.pickerBatch.version }), fields: { version: id }, probe: { params: { batchId: "999999" }, status: 404 } } },
+    POST: {
+      params: (f) => ({ batchId: String(f.pickerBatch.id) }),
+      body: {
+        example: (f) => ({ version: f.pickerBatch.version }),
+        fields: { version: id },
+        probe: { params: { batchId: "999999" }, status: 404 },
+      },
+    },
   },
   "/api/batches/[batchId]/give-back": {
-    POST: { params: (f) => ({ batchId: String(f.pickerBatch.id) }), body: { example: (f) => ({ version: f.pickerBatch.version }), fields: { version: id }, probe: { params: { batchId: "999999" }, status: 404 } } },
+    POST: {
+      params: (f) => ({ batchId: String(f.pickerBatch.id) }),
+      body: {
+        example: (f) => ({ version: f.pickerBatch.version }),
+        fields: { version: id },
+        probe: { params: { batchId: "999999" }, status: 404 },
+      },
+    },
   },
   "/api/batches/[batchId]/pick": { GET: { params: (f) => ({ batchId: String(f.pickerBatch.id) }) } },
   "/api/batches/[batchId]/confirm": {
     POST: {
       params: (f) => ({ batchId: String(f.pickerBatch.id) }),
       body: {
-        example: () => ({ idempotencyKey: "fuzz-key-000001", orderLineId: 1, scan: "A-01-1", quantity: 2, short: { reason: SHORT_REASONS[0] }, binCode: "A-01-1", batchVersion: 1 }),
+        example: () => ({
+          idempotencyKey: "fuzz-key-000001",
+          orderLineId: 1,
+          scan: "A-01-1",
+          quantity: 2,
+          short: { reason: SHORT_REASONS[0] },
+          binCode: "A-01-1",
+          batchVersion: 1,
+        }),
         fields: {
           idempotencyKey: { kind: "string", min: 8, max: 64, trimmed: true },
           orderLineId: id,
@@ -203,7 +277,14 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
         example: (f) => ({
           name: "Fuzz wave",
           layoutVersionId: f.layoutVersionId,
-          settings: { totesPerCart: 6, maxLines: 40, maxWeightG: 100_000, depotId: f.depotId, dropoffId: f.dropoffId, method: "first-come" },
+          settings: {
+            totesPerCart: 6,
+            maxLines: 40,
+            maxWeightG: 100_000,
+            depotId: f.depotId,
+            dropoffId: f.dropoffId,
+            method: "first-come",
+          },
           cutoffBefore: "2026-12-01T10:00:00Z",
           priorities: [1, 2],
         }),
@@ -221,29 +302,62 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
           priorities: { kind: "array", max: 3, element: 1 },
           "priorities.0": { kind: "int", min: 1, max: 3 },
         },
-        probe: { body: (f) => ({ ...SPECS["/api/waves"]!.POST!.body!.example(f), layoutVersionId: 999999 }), status: 404 },
+        probe: {
+          body: (f) => ({ ...SPECS["/api/waves"]!.POST!.body!.example(f), layoutVersionId: 999999 }),
+          status: 404,
+        },
       },
     },
   },
   "/api/waves/preview": {
-    GET: { query: { layoutVersionId: ["", "0", "abc", "1.5", "9".repeat(30)], cutoffBefore: ["yesterday", "2026-13-40T99:00:00Z"], priorities: ["4", "a", "1,,2", "0"] } },
+    GET: {
+      query: {
+        layoutVersionId: ["", "0", "abc", "1.5", "9".repeat(30)],
+        cutoffBefore: ["yesterday", "2026-13-40T99:00:00Z"],
+        priorities: ["4", "a", "1,,2", "0"],
+      },
+    },
   },
   "/api/waves/[id]": { GET: { params: (f) => ({ id: String(f.wave.id) }) } },
   "/api/waves/[id]/plan": {
-    POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
+    POST: {
+      params: (f) => ({ id: String(f.wave.id) }),
+      body: {
+        example: (f) => ({ version: f.wave.version }),
+        fields: { version: id },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
   },
   "/api/waves/[id]/release": {
-    POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
+    POST: {
+      params: (f) => ({ id: String(f.wave.id) }),
+      body: {
+        example: (f) => ({ version: f.wave.version }),
+        fields: { version: id },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
   },
   "/api/waves/[id]/discard": {
-    POST: { params: (f) => ({ id: String(f.wave.id) }), body: { example: (f) => ({ version: f.wave.version }), fields: { version: id }, probe: { params: { id: "999999" }, status: 404 } } },
+    POST: {
+      params: (f) => ({ id: String(f.wave.id) }),
+      body: {
+        example: (f) => ({ version: f.wave.version }),
+        fields: { version: id },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
   },
   "/api/waves/[id]/printed": {
     POST: {
       params: (f) => ({ id: String(f.wave.id) }),
       body: {
         example: () => ({ numbers: [1, 2] }),
-        fields: { numbers: { kind: "array", min: 1, max: 2000, element: 1 }, "numbers.0": { kind: "int", min: 1, max: 10_000 } },
+        fields: {
+          numbers: { kind: "array", min: 1, max: 2000, element: 1 },
+          "numbers.0": { kind: "int", min: 1, max: 10_000 },
+        },
         probe: { params: { id: "999999" }, status: 404 },
       },
     },
@@ -251,26 +365,53 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
 };
 
 const BAD_PARAMS = ["abc", "-1", "0", "1.5", "1e999", "1e3", "0x10", " 1", "9".repeat(30), "x".repeat(10 * 1024)];
-const BAD_QUERIES = ["?__proto__[polluted]=1&constructor[prototype][polluted]=1", "?a=1&a=2&a=3", `?q=${"x".repeat(10 * 1024)}`, "?%E2%82=1", "?=&&="];
-const INVALID_JSON = ["{", '{"version": }', "{'version': 1}", '{"version": 1,}', "NaN", "undefined", '{"version": NaN}', "\u0000", "[1, 2"];
+const BAD_QUERIES = [
+  "?__proto__[polluted]=1&constructor[prototype][polluted]=1",
+  "?a=1&a=2&a=3",
+  `?q=${"x".repeat(10 * 1024)}`,
+  "?%E2%82=1",
+  "?=&&=",
+];
+const INVALID_JSON = [
+  "{",
+  '{"version": }',
+  "{'version': 1}",
+  '{"version": 1,}',
+  "NaN",
+  "undefined",
+  '{"version": NaN}',
+  "\u0000",
+  "[1, 2",
+];
 const NOT_OBJECTS = ["null", "[]", '"text"', "42", "true", "{}"];
 const CONTENT_TYPES: [string, string][] = [
   ["text/plain", "version=1"],
   ["application/x-www-form-urlencoded", "version=1&document=x"],
-  ["multipart/form-data; boundary=x", "--x\r\nContent-Disposition: form-data; name=\"version\"\r\n\r\n1\r\n--x--\r\n"],
+  ["multipart/form-data; boundary=x", '--x\r\nContent-Disposition: form-data; name="version"\r\n\r\n1\r\n--x--\r\n'],
   ["application/xml", "<version>1</version>"],
 ];
 
-const fill = (pattern: string, params: Record<string, string>) => pattern.replace(/\[([^\]]+)\]/g, (_, name: string) => encodeURIComponent(params[name] ?? "no-such-id"));
-const firstRoleFor = (access: Access): Role | null => (access === "public" ? null : ROLES.find((r) => roleMay(r, access)) ?? null);
+const fill = (pattern: string, params: Record<string, string>) =>
+  pattern.replace(/\[([^\]]+)\]/g, (_, name: string) => encodeURIComponent(params[name] ?? "no-such-id"));
+const firstRoleFor = (access: Access): Role | null =>
+  access === "public" ? null : (ROLES.find((r) => roleMay(r, access)) ?? null);
 
 type Answer = { status: number; body: Record<string, unknown>; type: string };
-async function send(method: Method, url: string, cookie: string | null, payload?: { text: string; type?: string }): Promise<Answer> {
+async function send(
+  method: Method,
+  url: string,
+  cookie: string | null,
+  payload?: { text: string; type?: string },
+): Promise<Answer> {
   let req = api()[method.toLowerCase() as "get"](url).set("Origin", ORIGIN);
   if (cookie) req = req.set("Cookie", cookie);
   if (payload) req = req.set("Content-Type", payload.type ?? "application/json").send(payload.text);
   const res = await req;
-  return { status: res.status, body: (res.body ?? {}) as Record<string, unknown>, type: String(res.headers["content-type"] ?? "") };
+  return {
+    status: res.status,
+    body: (res.body ?? {}) as Record<string, unknown>,
+    type: String(res.headers["content-type"] ?? ""),
+  };
 }
 
 /** A refusal a person can act on: 4xx, JSON, an error sentence, nothing of the server's insides. */
@@ -281,32 +422,47 @@ function expectReadableRefusal(a: Answer, what: string) {
   const error = a.body.error;
   expect.soft(typeof error, what).toBe("string");
   expect.soft((error as string).length, what).toBeGreaterThan(10);
-  expect.soft(error as string, what).not.toMatch(/\bat .*\(.*:\d+:\d+\)|ER_[A-Z_]+|SQL|undefined|\[object Object\]|TypeError|Cannot read/);
+  expect
+    .soft(error as string, what)
+    .not.toMatch(/\bat .*\(.*:\d+:\d+\)|ER_[A-Z_]+|SQL|undefined|\[object Object\]|TypeError|Cannot read/);
   for (const i of (a.body.issues as { path: string; message: string }[] | undefined) ?? []) {
     expect.soft(typeof i.message, what).toBe("string");
-    expect.soft(i.message, what).not.toMatch(/\[object Object\]|undefined|^Invalid input|^Too (big|small):|must match pattern/);
+    expect
+      .soft(i.message, what)
+      .not.toMatch(/\[object Object\]|undefined|^Invalid input|^Too (big|small):|must match pattern/);
   }
 }
-const isFieldRefusal = (a: Answer) => (a.status === 400 && Array.isArray(a.body.issues) && (a.body.issues as unknown[]).length > 0) || a.status === 413;
+const isFieldRefusal = (a: Answer) =>
+  (a.status === 400 && Array.isArray(a.body.issues) && (a.body.issues as unknown[]).length > 0) || a.status === 413;
 
 const { handlers } = discoverRoutes();
-const cases = handlers.flatMap((h) => h.methods.map((m) => ({ url: h.url, method: m as Method, access: API_ACCESS[h.url]?.[m as Method] as Access })));
+const cases = handlers.flatMap((h) =>
+  h.methods.map((m) => ({ url: h.url, method: m as Method, access: API_ACCESS[h.url]?.[m as Method] as Access })),
+);
 const tried: Record<string, number> = {};
 let fixtures: Fixtures;
 
 beforeAll(async () => {
-  const cookies = Object.fromEntries(await Promise.all(ROLES.map(async (r) => [r, await signInAs(r)] as const))) as Record<Role, string>;
+  const cookies = Object.fromEntries(
+    await Promise.all(ROLES.map(async (r) => [r, await signInAs(r)] as const)),
+  ) as Record<Role, string>;
   const draft = await api().get("/api/floor-plans/1/draft").set("Cookie", cookies.admin);
   const version = await api().get("/api/floor-plans/1/versions/1").set("Cookie", cookies.admin);
   const mine = await api().get("/api/my-batches").set("Cookie", cookies.picker);
   const waves = await api().get("/api/waves").set("Cookie", cookies.planner);
   const target = await makeUser("picker");
   const doc = version.body.version.document ?? draft.body.draft.document;
-  const wave = (waves.body.waves as { id: number; version: number; status: string }[]).find((w) => w.status !== "draft")!;
+  const wave = (waves.body.waves as { id: number; version: number; status: string }[]).find(
+    (w) => w.status !== "draft",
+  )!;
   fixtures = {
     cookies,
     pickerBatch: { id: mine.body.batches[0].id, version: mine.body.batches[0].version },
-    draft: { version: draft.body.draft.version, document: draft.body.draft.document, runId: draft.body.draft.document.rackRuns[0].id },
+    draft: {
+      version: draft.body.draft.version,
+      document: draft.body.draft.document,
+      runId: draft.body.draft.document.rackRuns[0].id,
+    },
     layoutVersionId: version.body.version.id,
     depotId: doc.depots[0].id,
     dropoffId: (doc.dropoffs[0] ?? doc.depots[0]).id,
@@ -322,119 +478,155 @@ afterAll(() => {
 
 describe("every route handler and method has a fuzz spec", () => {
   it("found the handlers", () => expect(cases.length).toBeGreaterThan(30));
-  it.each(cases)("$method $url is described here", ({ url, method }) => expect(SPECS[url]?.[method], `add ${method} ${url} to SPECS`).toBeDefined());
+  it.each(cases)("$method $url is described here", ({ url, method }) =>
+    expect(SPECS[url]?.[method], `add ${method} ${url} to SPECS`).toBeDefined(),
+  );
 });
 
 describe("hostile input to every route handler: 4xx with a readable error, never 500, nothing written", () => {
-  it.each(cases)("$method $url", async ({ url, method, access }) => {
-    const spec = SPECS[url]![method]!;
-    const f = fixtures;
-    const role = firstRoleFor(access) ?? (access === "public" ? null : "admin");
-    // Signing out ends the session it is sent with, so that route gets one of its own.
-    // Sessions are made before the snapshot: signing in writes the user's last sign-in time.
-    const spareSessions = spec.signsOut ? await Promise.all(BAD_QUERIES.map(() => signInAs("picker"))) : [];
-    const cookie = spec.signsOut ? await signInAs("picker") : role ? f.cookies[role] : null;
-    const params = spec.params?.(f) ?? {};
-    const at = fill(url, params);
-    const before = await databaseSnapshot();
-    let n = 0;
-    const count = () => (tried[`${method} ${url}`] = ++n);
+  it.each(cases)(
+    "$method $url",
+    async ({ url, method, access }) => {
+      const spec = SPECS[url]![method]!;
+      const f = fixtures;
+      const role = firstRoleFor(access) ?? (access === "public" ? null : "admin");
+      // Signing out ends the session it is sent with, so that route gets one of its own.
+      // Sessions are made before the snapshot: signing in writes the user's last sign-in time.
+      const spareSessions = spec.signsOut ? await Promise.all(BAD_QUERIES.map(() => signInAs("picker"))) : [];
+      const cookie = spec.signsOut ? await signInAs("picker") : role ? f.cookies[role] : null;
+      const params = spec.params?.(f) ?? {};
+      const at = fill(url, params);
+      const before = await databaseSnapshot();
+      let n = 0;
+      const count = () => (tried[`${method} ${url}`] = ++n);
 
-    // Each dynamic segment in turn gets a value that names nothing; the rest stay real, the body valid.
-    for (const name of Object.keys(params)) {
-      for (const bad of BAD_PARAMS) {
-        const a = await send(method, fill(url, { ...params, [name]: bad }) + (spec.validQuery ?? ""), cookie, spec.body ? { text: toJsonText(spec.body.example(f)) } : undefined);
-        count();
-        expectReadableRefusal(a, `${method} ${url} with ${name}=${bad.slice(0, 40)}`);
-        expect.soft(a.status, `${name}=${bad.slice(0, 40)}`).toBe(404);
-      }
-    }
-
-    if (method === "GET" || spec.signsOut) {
-      for (const q of BAD_QUERIES) {
-        const a = await send(method, at + q, spec.signsOut ? spareSessions.pop()! : cookie);
-        count();
-        expect.soft(a.status, `${url}${q.slice(0, 40)}`).toBeLessThan(500);
-        if (a.status >= 400) expectReadableRefusal(a, `${url}${q.slice(0, 40)}`);
-      }
-      for (const [name, values] of Object.entries(spec.query ?? {})) {
-        for (const v of values) {
-          const others = Object.keys(spec.query ?? {}).filter((k) => k !== name).map((k) => `&${k}=A-01-1`).join("");
-          const a = await send(method, `${at}?${name}=${encodeURIComponent(v)}${others}`, cookie);
+      // Each dynamic segment in turn gets a value that names nothing; the rest stay real, the body valid.
+      for (const name of Object.keys(params)) {
+        for (const bad of BAD_PARAMS) {
+          const a = await send(
+            method,
+            fill(url, { ...params, [name]: bad }) + (spec.validQuery ?? ""),
+            cookie,
+            spec.body ? { text: toJsonText(spec.body.example(f)) } : undefined,
+          );
           count();
-          expectReadableRefusal(a, `${url}?${name}=${v.slice(0, 40)}`);
+          expectReadableRefusal(a, `${method} ${url} with ${name}=${bad.slice(0, 40)}`);
+          expect.soft(a.status, `${name}=${bad.slice(0, 40)}`).toBe(404);
         }
       }
-    }
 
-    if (spec.upload) {
-      // JSON where a form upload belongs, and nothing at all: refused before any of it is read.
-      for (const payload of [{ text: toJsonText({ file: "x" }) }, { text: "", type: "text/plain" }]) {
-        const a = await send(method, at, cookie, payload);
-        count();
-        expectReadableRefusal(a, `${url} with ${payload.type ?? "JSON"}`);
+      if (method === "GET" || spec.signsOut) {
+        for (const q of BAD_QUERIES) {
+          const a = await send(method, at + q, spec.signsOut ? spareSessions.pop()! : cookie);
+          count();
+          expect.soft(a.status, `${url}${q.slice(0, 40)}`).toBeLessThan(500);
+          if (a.status >= 400) expectReadableRefusal(a, `${url}${q.slice(0, 40)}`);
+        }
+        for (const [name, values] of Object.entries(spec.query ?? {})) {
+          for (const v of values) {
+            const others = Object.keys(spec.query ?? {})
+              .filter((k) => k !== name)
+              .map((k) => `&${k}=A-01-1`)
+              .join("");
+            const a = await send(method, `${at}?${name}=${encodeURIComponent(v)}${others}`, cookie);
+            count();
+            expectReadableRefusal(a, `${url}?${name}=${v.slice(0, 40)}`);
+          }
+        }
       }
-    }
 
-    if (spec.body) {
-      const b = spec.body;
-      const example = b.example(f);
-      // The example passes the schema: sent where it cannot write, the handler itself answers.
-      const probeAt = fill(url, { ...params, ...b.probe.params });
-      const probe = await send(method, probeAt, cookie, { text: toJsonText(b.probe.body?.(f) ?? example) });
-      count();
-      expect.soft(probe.status, `probe ${JSON.stringify(probe.body).slice(0, 300)}`).toBe(b.probe.status);
-      expect.soft(probe.body.issues, "the example body must pass the schema").toBeUndefined();
+      if (spec.upload) {
+        // JSON where a form upload belongs, and nothing at all: refused before any of it is read.
+        for (const payload of [{ text: toJsonText({ file: "x" }) }, { text: "", type: "text/plain" }]) {
+          const a = await send(method, at, cookie, payload);
+          count();
+          expectReadableRefusal(a, `${url} with ${payload.type ?? "JSON"}`);
+        }
+      }
 
-      const expectFieldRefusal = async (body: unknown, what: string) => {
-        const a = await send(method, at, cookie, { text: toJsonText(body) });
+      if (spec.body) {
+        const b = spec.body;
+        const example = b.example(f);
+        // The example passes the schema: sent where it cannot write, the handler itself answers.
+        const probeAt = fill(url, { ...params, ...b.probe.params });
+        const probe = await send(method, probeAt, cookie, { text: toJsonText(b.probe.body?.(f) ?? example) });
         count();
-        expectReadableRefusal(a, what);
-        expect.soft(isFieldRefusal(a), `${what}: not refused by the schema: ${a.status} ${JSON.stringify(a.body).slice(0, 300)}`).toBe(true);
-      };
-      for (const [path, kind] of Object.entries(b.fields)) {
-        for (const v of badValues(kind)) await expectFieldRefusal(withField(example, path, v), `${method} ${url} ${path}=${toJsonText(v)?.slice(0, 60)}`);
-      }
-      // Huge strings: one past the request cap (413), whatever the field.
-      await expectFieldRefusal(withField(example, Object.keys(b.fields)[0]!, "x".repeat(300 * 1024)), `${url} 300 KiB field`);
-      // The whole body moved under __proto__ or constructor.prototype: if either merged, the fields would appear.
-      await expectFieldRefusal(protoKeyed(example), `${url} body under __proto__`);
-      await expectFieldRefusal(constructorKeyed(example), `${url} body under constructor.prototype`);
-      for (const text of NOT_OBJECTS) {
-        const a = await send(method, at, cookie, { text });
-        count();
-        expectReadableRefusal(a, `${url} body ${text}`);
-        expect.soft(a.status).toBe(400);
-      }
-      for (const text of INVALID_JSON) {
-        const a = await send(method, at, cookie, { text });
-        count();
-        expectReadableRefusal(a, `${url} body ${JSON.stringify(text)}`);
-        expect.soft(a.status).toBe(400);
-      }
-      for (const [type, text] of CONTENT_TYPES) {
-        const a = await send(method, at, cookie, { text, type });
-        count();
-        expectReadableRefusal(a, `${url} as ${type}`);
-      }
-      // Even a body the schema would pass is refused when it does not say it is JSON.
-      const asText = await send(method, probeAt, cookie, { text: toJsonText(b.probe.body?.(f) ?? example)!, type: "text/plain" });
-      count();
-      expectReadableRefusal(asText, `${url} valid body as text/plain`);
-      expect.soft(asText.status, `${url} valid body as text/plain`).toBe(415);
-      // Random bad values, one field at a time (seeded).
-      const fields = Object.entries(b.fields);
-      await fc.assert(
-        fc.asyncProperty(
-          fc.integer({ min: 0, max: fields.length - 1 }).chain((i) => fc.tuple(fc.constant(fields[i]![0]), badArbitrary(fields[i]![1]))),
-          async ([path, v]) => expectFieldRefusal(withField(example, path, v), `${method} ${url} ${path}=${toJsonText(v)?.slice(0, 60)} (random)`),
-        ),
-        { seed: SEED, numRuns: RANDOM_RUNS },
-      );
-    }
+        expect.soft(probe.status, `probe ${JSON.stringify(probe.body).slice(0, 300)}`).toBe(b.probe.status);
+        expect.soft(probe.body.issues, "the example body must pass the schema").toBeUndefined();
 
-    expect(await databaseSnapshot(), `${method} ${url} wrote to the database`).toEqual(before);
-    console.log(`fuzz ${method} ${url}: ${n} requests`);
-    if (!spec.signsOut && Object.keys(params).length === 0 && !spec.body && method !== "GET") throw new Error(`${method} ${url}: nothing was sent`);
-  }, 180_000);
+        const expectFieldRefusal = async (body: unknown, what: string) => {
+          const a = await send(method, at, cookie, { text: toJsonText(body) });
+          count();
+          expectReadableRefusal(a, what);
+          expect
+            .soft(
+              isFieldRefusal(a),
+              `${what}: not refused by the schema: ${a.status} ${JSON.stringify(a.body).slice(0, 300)}`,
+            )
+            .toBe(true);
+        };
+        for (const [path, kind] of Object.entries(b.fields)) {
+          for (const v of badValues(kind))
+            await expectFieldRefusal(
+              withField(example, path, v),
+              `${method} ${url} ${path}=${toJsonText(v)?.slice(0, 60)}`,
+            );
+        }
+        // Huge strings: one past the request cap (413), whatever the field.
+        await expectFieldRefusal(
+          withField(example, Object.keys(b.fields)[0]!, "x".repeat(300 * 1024)),
+          `${url} 300 KiB field`,
+        );
+        // The whole body moved under __proto__ or constructor.prototype: if either merged, the fields would appear.
+        await expectFieldRefusal(protoKeyed(example), `${url} body under __proto__`);
+        await expectFieldRefusal(constructorKeyed(example), `${url} body under constructor.prototype`);
+        for (const text of NOT_OBJECTS) {
+          const a = await send(method, at, cookie, { text });
+          count();
+          expectReadableRefusal(a, `${url} body ${text}`);
+          expect.soft(a.status).toBe(400);
+        }
+        for (const text of INVALID_JSON) {
+          const a = await send(method, at, cookie, { text });
+          count();
+          expectReadableRefusal(a, `${url} body ${JSON.stringify(text)}`);
+          expect.soft(a.status).toBe(400);
+        }
+        for (const [type, text] of CONTENT_TYPES) {
+          const a = await send(method, at, cookie, { text, type });
+          count();
+          expectReadableRefusal(a, `${url} as ${type}`);
+        }
+        // Even a body the schema would pass is refused when it does not say it is JSON.
+        const asText = await send(method, probeAt, cookie, {
+          text: toJsonText(b.probe.body?.(f) ?? example)!,
+          type: "text/plain",
+        });
+        count();
+        expectReadableRefusal(asText, `${url} valid body as text/plain`);
+        expect.soft(asText.status, `${url} valid body as text/plain`).toBe(415);
+        // Random bad values, one field at a time (seeded).
+        const fields = Object.entries(b.fields);
+        await fc.assert(
+          fc.asyncProperty(
+            fc
+              .integer({ min: 0, max: fields.length - 1 })
+              .chain((i) => fc.tuple(fc.constant(fields[i]![0]), badArbitrary(fields[i]![1]))),
+            async ([path, v]) =>
+              expectFieldRefusal(
+                withField(example, path, v),
+                `${method} ${url} ${path}=${toJsonText(v)?.slice(0, 60)} (random)`,
+              ),
+          ),
+          { seed: SEED, numRuns: RANDOM_RUNS },
+        );
+      }
+
+      expect(await databaseSnapshot(), `${method} ${url} wrote to the database`).toEqual(before);
+      console.log(`fuzz ${method} ${url}: ${n} requests`);
+      if (!spec.signsOut && Object.keys(params).length === 0 && !spec.body && method !== "GET")
+        throw new Error(`${method} ${url}: nothing was sent`);
+    },
+    180_000,
+  );
 });

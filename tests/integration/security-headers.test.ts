@@ -50,7 +50,8 @@ function expectNoncedScripts(res: Response, nonce: string, { stylesheet = true }
   for (const tag of tags) expect(tag).toContain(` nonce="${nonce}"`);
   // Next's stylesheet links carry it too, so the style-src nonce is not decoration. (The 403/404
   // shells load the stylesheet from the page's data instead, with the same nonce.)
-  if (stylesheet) expect(res.text).toMatch(new RegExp(`<link rel="stylesheet" [^>]*nonce="${nonce.replace(/[+/=]/g, "\\$&")}"`));
+  if (stylesheet)
+    expect(res.text).toMatch(new RegExp(`<link rel="stylesheet" [^>]*nonce="${nonce.replace(/[+/=]/g, "\\$&")}"`));
 }
 
 describe("anonymous visitors", () => {
@@ -73,7 +74,10 @@ describe("anonymous visitors", () => {
   });
 
   it("a policy sent by the browser does not choose the nonce", async () => {
-    const res = await api().get("/sign-in").set("Content-Security-Policy", "script-src 'nonce-AAAAAAAAAAAAAAAAAAAAAA=='").redirects(0);
+    const res = await api()
+      .get("/sign-in")
+      .set("Content-Security-Policy", "script-src 'nonce-AAAAAAAAAAAAAAAAAAAAAA=='")
+      .redirects(0);
     const nonce = expectPagePolicy(res);
     expect(nonce).not.toBe("AAAAAAAAAAAAAAAAAAAAAA==");
     expect(res.text).not.toContain("AAAAAAAAAAAAAAAAAAAAAA==");
@@ -132,7 +136,9 @@ describe("route handlers and static files", () => {
 
   it("Next's script chunks get the common headers", async () => {
     const page = await api().get("/sign-in");
-    const src = scriptTags(page.text).map((t) => t.match(/src="([^"]+)"/)?.[1]).find(Boolean);
+    const src = scriptTags(page.text)
+      .map((t) => t.match(/src="([^"]+)"/)?.[1])
+      .find(Boolean);
     expect(src).toMatch(/^\/_next\/static\//);
     const res = await api().get(src!);
     expect(res.status).toBe(200);

@@ -25,17 +25,33 @@ async function siteWithTwoAdmins() {
     ["a", "b"].map(async (who) => {
       const id = newId();
       const email = `last-admin-${who}-${code.toLowerCase()}@tests.example`;
-      await db()("users").insert({ id, site_id: siteId, email, display_name: `Admin ${who.toUpperCase()}`, role: "admin", password_hash: await passwordHash });
+      await db()("users").insert({
+        id,
+        site_id: siteId,
+        email,
+        display_name: `Admin ${who.toUpperCase()}`,
+        role: "admin",
+        password_hash: await passwordHash,
+      });
       return { id, email, cookie: await signIn(email, PASSWORD) };
     }),
   );
   return { siteId: Number(siteId), a: admins[0]!, b: admins[1]! };
 }
 
-const patch = (cookie: string, id: string, body: object) => api().patch(`/api/users/${id}`).set("Origin", ORIGIN).set("Cookie", cookie).send({ version: 1, ...body });
+const patch = (cookie: string, id: string, body: object) =>
+  api()
+    .patch(`/api/users/${id}`)
+    .set("Origin", ORIGIN)
+    .set("Cookie", cookie)
+    .send({ version: 1, ...body });
 
 async function activeAdmins(siteId: number): Promise<number> {
-  const r = await db()("users").where({ site_id: siteId, role: "admin" }).whereNull("disabled_at").count({ n: "*" }).first();
+  const r = await db()("users")
+    .where({ site_id: siteId, role: "admin" })
+    .whereNull("disabled_at")
+    .count({ n: "*" })
+    .first();
   return Number(r?.n ?? 0);
 }
 

@@ -22,14 +22,24 @@ async function newWave(cutoffBefore: string) {
     .post("/api/waves")
     .set("Cookie", planner)
     .set("Origin", ORIGIN)
-    .send({ name: `Unbatched test ${TAG} ${cutoffBefore}`, layoutVersionId: 1, settings: { ...LIMITS, depotId: "D1", dropoffId: "P1", method: "first-come" }, cutoffBefore, priorities: [1, 2, 3] });
+    .send({
+      name: `Unbatched test ${TAG} ${cutoffBefore}`,
+      layoutVersionId: 1,
+      settings: { ...LIMITS, depotId: "D1", dropoffId: "P1", method: "first-come" },
+      cutoffBefore,
+      priorities: [1, 2, 3],
+    });
   if (res.status === 201) waveIds.push(res.body.id);
   return res;
 }
 
 async function plan(id: number) {
   const wave = (await api().get(`/api/waves/${id}`).set("Cookie", planner)).body.wave;
-  const start = await api().post(`/api/waves/${id}/plan`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: wave.version });
+  const start = await api()
+    .post(`/api/waves/${id}/plan`)
+    .set("Cookie", planner)
+    .set("Origin", ORIGIN)
+    .send({ version: wave.version });
   expect(start.status, JSON.stringify(start.body)).toBe(202);
   const job = await waitForJob(planner, start.body.jobId);
   expect(job.status, job.message).toBe("done");
@@ -62,8 +72,12 @@ describe("orders no batch holds", () => {
       offLayout.push(await addOrder(`${TAG}-OFF-${i + 1}`, "2026-01-05T09:00:00Z", [onLayout!, item]));
     }
     noBin = await addOrder(`${TAG}-NOBIN`, "2026-01-05T10:00:00Z", [await addItem(`${TAG}-NOBIN`, [])]);
-    preview = await api().get("/api/waves/preview?layoutVersionId=1&cutoffBefore=2026-01-06T00:00:00Z&priorities=1,2,3").set("Cookie", planner);
-    narrow = await api().get("/api/waves/preview?layoutVersionId=1&cutoffBefore=2026-01-05T08:30:00Z&priorities=1,2,3").set("Cookie", planner);
+    preview = await api()
+      .get("/api/waves/preview?layoutVersionId=1&cutoffBefore=2026-01-06T00:00:00Z&priorities=1,2,3")
+      .set("Cookie", planner);
+    narrow = await api()
+      .get("/api/waves/preview?layoutVersionId=1&cutoffBefore=2026-01-05T08:30:00Z&priorities=1,2,3")
+      .set("Cookie", planner);
     created = await newWave("2026-01-06T00:00:00Z");
     expect(created.status, JSON.stringify(created.body)).toBe(201);
     waveId = created.body.id;
@@ -72,7 +86,11 @@ describe("orders no batch holds", () => {
   it("the new-wave preview says how many orders the filter takes and warns of lines whose bins are not on the layout version", async () => {
     expect(preview.status, JSON.stringify(preview.body)).toBe(200);
     expect(preview.body).toMatchObject({ orders: 25, lines: 1 + 23 * 2 + 1, offLayout: { lines: 24, orders: 24 } });
-    expect(preview.body.offLayout.examples[0]).toMatchObject({ orderNumber: `${TAG}-OFF-1`, sku: `${TAG}-OFF-1`, binCodes: [OFF_LAYOUT[0], `${OFF_LAYOUT[0]}B`] });
+    expect(preview.body.offLayout.examples[0]).toMatchObject({
+      orderNumber: `${TAG}-OFF-1`,
+      sku: `${TAG}-OFF-1`,
+      binCodes: [OFF_LAYOUT[0], `${OFF_LAYOUT[0]}B`],
+    });
     // What the preview counted is what starting the wave took.
     expect(created.body.orders).toBe(preview.body.orders);
     // A narrower filter follows: only the first order's cut-off.
@@ -85,7 +103,8 @@ describe("orders no batch holds", () => {
   it("the reason names the bins that are not on the layout version and the item without any bin", async () => {
     const { wave, batches } = await plan(waveId);
     expect(batches.length).toBe(1);
-    const reasonOf = (id: number) => wave.unbatchable.find((u: { orderId: number }) => u.orderId === id)?.reason as string;
+    const reasonOf = (id: number) =>
+      wave.unbatchable.find((u: { orderId: number }) => u.orderId === id)?.reason as string;
     expect(wave.unbatchable).toHaveLength(24);
     const off = reasonOf(offLayout[0]!);
     expect(off).toContain(OFF_LAYOUT[0]);
@@ -106,13 +125,25 @@ describe("orders no batch holds", () => {
 
   it("release sends them back to open with the reason kept, releases only the batched one, and a new wave can take them", async () => {
     const before = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.wave;
-    const res = await api().post(`/api/waves/${waveId}/release`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: before.version });
+    const res = await api()
+      .post(`/api/waves/${waveId}/release`)
+      .set("Cookie", planner)
+      .set("Origin", ORIGIN)
+      .send({ version: before.version });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    const statuses = Object.fromEntries((await db()("orders").whereIn("id", orderIds).select("id", "status")).map((o: { id: number; status: string }) => [o.id, o.status]));
+    const statuses = Object.fromEntries(
+      (await db()("orders").whereIn("id", orderIds).select("id", "status")).map((o: { id: number; status: string }) => [
+        o.id,
+        o.status,
+      ]),
+    );
     expect(statuses[good]).toBe("released");
     for (const id of [...offLayout, noBin]) expect(statuses[id]).toBe("open");
 
-    const open = (await api().get("/api/orders?status=open").set("Cookie", planner)).body.orders as { id: number; note: string | null }[];
+    const open = (await api().get("/api/orders?status=open").set("Cookie", planner)).body.orders as {
+      id: number;
+      note: string | null;
+    }[];
     const back = open.find((o) => o.id === offLayout[0]);
     expect(back?.note).toContain(OFF_LAYOUT[0]);
     expect(back?.note).toContain(before.name);
@@ -140,21 +171,34 @@ describe("a wave none of whose orders could be batched", () => {
     const { wave, batches } = await plan(created.body.id);
     expect(batches).toEqual([]);
     expect(wave.unbatchable).toHaveLength(2);
-    const res = await api().post(`/api/waves/${wave.id}/release`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: wave.version });
+    const res = await api()
+      .post(`/api/waves/${wave.id}/release`)
+      .set("Cookie", planner)
+      .set("Origin", ORIGIN)
+      .send({ version: wave.version });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     expect(await db()("orders").whereIn("id", ids).pluck("status")).toEqual(["open", "open"]);
     expect(await db()("wave_orders").whereIn("order_id", ids).count({ n: "*" }).first()).toEqual({ n: 0 });
-    expect(await db()("outbox").where({ dedupe_key: `wave-released:${wave.id}` }).count({ n: "*" }).first()).toEqual({ n: 0 });
+    expect(
+      await db()("outbox")
+        .where({ dedupe_key: `wave-released:${wave.id}` })
+        .count({ n: "*" })
+        .first(),
+    ).toEqual({ n: 0 });
   });
 });
 
 describe("a wave that cannot or should not be released", () => {
   it("can be discarded before release: its orders are open again and a new wave can take them; a released wave cannot be", async () => {
     const [item] = await itemsOnLayout(1);
-    const ids = [await addOrder(`${TAG}-DROP-1`, "2026-01-01T08:00:00Z", [item!]), await addOrder(`${TAG}-DROP-2`, "2026-01-01T09:00:00Z", [item!])];
+    const ids = [
+      await addOrder(`${TAG}-DROP-1`, "2026-01-01T08:00:00Z", [item!]),
+      await addOrder(`${TAG}-DROP-2`, "2026-01-01T09:00:00Z", [item!]),
+    ];
     const draft = await newWave("2026-01-01T12:00:00Z");
     expect(draft.status, JSON.stringify(draft.body)).toBe(201);
-    const discard = (id: number, version: number) => api().post(`/api/waves/${id}/discard`).set("Cookie", planner).set("Origin", ORIGIN).send({ version });
+    const discard = (id: number, version: number) =>
+      api().post(`/api/waves/${id}/discard`).set("Cookie", planner).set("Origin", ORIGIN).send({ version });
     expect((await discard(draft.body.id, 2)).status).toBe(409);
     const res = await discard(draft.body.id, 1);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
@@ -168,7 +212,15 @@ describe("a wave that cannot or should not be released", () => {
     const next = await newWave("2026-01-01T12:00:00Z");
     expect(next.body.orders).toBe(2);
     const { wave } = await plan(next.body.id);
-    expect((await api().post(`/api/waves/${wave.id}/release`).set("Cookie", planner).set("Origin", ORIGIN).send({ version: wave.version })).status).toBe(200);
+    expect(
+      (
+        await api()
+          .post(`/api/waves/${wave.id}/release`)
+          .set("Cookie", planner)
+          .set("Origin", ORIGIN)
+          .send({ version: wave.version })
+      ).status,
+    ).toBe(200);
     const late = await discard(wave.id, wave.version + 1);
     expect(late.status).toBe(409);
     expect(late.body.error).toMatch(/released/);
@@ -189,7 +241,8 @@ describe("print history across re-planning", () => {
     expect(batches.length).toBe(3);
   });
 
-  const printed = (numbers: unknown[]) => api().post(`/api/waves/${waveId}/printed`).set("Cookie", planner).set("Origin", ORIGIN).send({ numbers });
+  const printed = (numbers: unknown[]) =>
+    api().post(`/api/waves/${waveId}/printed`).set("Cookie", planner).set("Origin", ORIGIN).send({ numbers });
 
   it("counts distinct batches of the wave and refuses numbers the wave has no batch for", async () => {
     const unknown = await printed([1, 1, 2, 9999]);

@@ -3,8 +3,21 @@ import { baselineOrder, buildGraph, floydWarshall, generateWarehouse, planPick, 
 
 describe("baseline walk", () => {
   it("sorts by aisle, bays ascending in odd aisles and descending in even ones", () => {
-    const line = (stop: number, aisle: number, bay: number) => ({ stop, code: `A${aisle}-${bay}`, aisle, bay, level: 1 });
-    const order = baselineOrder([line(1, 2, 3), line(2, 1, 9), line(3, 3, 5), line(4, 2, 8), line(5, 1, 2), line(6, 3, 1)]);
+    const line = (stop: number, aisle: number, bay: number) => ({
+      stop,
+      code: `A${aisle}-${bay}`,
+      aisle,
+      bay,
+      level: 1,
+    });
+    const order = baselineOrder([
+      line(1, 2, 3),
+      line(2, 1, 9),
+      line(3, 3, 5),
+      line(4, 2, 8),
+      line(5, 1, 2),
+      line(6, 3, 1),
+    ]);
     expect(order).toEqual([5, 2, 4, 1, 6, 3]);
   });
 
@@ -23,7 +36,11 @@ describe("planPick on a generated warehouse", () => {
   const dm = floydWarshall(graph);
 
   it("collapses levels of a bay and facing bays into one stop", () => {
-    const plan = planPick(graph, dm, { from: "D1", to: "P1", binCodes: ["A03-005-1", "A03-005-3", "A03-006-2", "A03-005-1"] });
+    const plan = planPick(graph, dm, {
+      from: "D1",
+      to: "P1",
+      binCodes: ["A03-005-1", "A03-005-3", "A03-006-2", "A03-005-1"],
+    });
     expect(plan.stops).toHaveLength(1);
     expect(plan.stops[0]!.codes).toEqual(["A03-005-1", "A03-005-3", "A03-006-2"]);
   });

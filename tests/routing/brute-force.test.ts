@@ -60,6 +60,8 @@ describe("local search", () => {
     const r = sequenceStops(cm, { start: 0, end: 1, stops });
     expect(r.optimal).toBe(false);
     expect(r.method).toBe("local-search");
-    expect(sequenceStops(cm, { start: 0, end: 1, stops, heuristic: { seed: 3 } })).toEqual(sequenceStops(cm, { start: 0, end: 1, stops, heuristic: { seed: 3 } }));
+    expect(sequenceStops(cm, { start: 0, end: 1, stops, heuristic: { seed: 3 } })).toEqual(
+      sequenceStops(cm, { start: 0, end: 1, stops, heuristic: { seed: 3 } }),
+    );
   });
 });

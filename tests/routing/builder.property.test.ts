@@ -22,7 +22,10 @@ const drawingArb = fc
   .record({
     w: fc.integer({ min: 2, max: 8 }),
     h: fc.integer({ min: 2, max: 8 }),
-    kinds: fc.array(fc.constantFrom<CellKind>("floor", "floor", "floor", "rack", "blocked"), { minLength: MAX, maxLength: MAX }),
+    kinds: fc.array(fc.constantFrom<CellKind>("floor", "floor", "floor", "rack", "blocked"), {
+      minLength: MAX,
+      maxLength: MAX,
+    }),
     facing: fc.array(SIDE, { minLength: MAX, maxLength: MAX }),
     marks: fc.array(fc.option(SIDE, { freq: 3 }), { minLength: MAX, maxLength: MAX }),
     depot: fc.nat(),
@@ -33,7 +36,7 @@ const drawingArb = fc
     for (let c = 0; c < w * h; c++) {
       d.cells[c] = kinds[c]!;
       d.facing[c] = d.cells[c] === "rack" ? facing[c]! : null;
-      d.oneWay[c] = d.cells[c] === "floor" ? marks[c] ?? null : null;
+      d.oneWay[c] = d.cells[c] === "floor" ? (marks[c] ?? null) : null;
     }
     d.cells[0] = "floor";
     const floor = d.cells.flatMap((k, c) => (k === "floor" ? [c] : []));
@@ -43,7 +46,9 @@ const drawingArb = fc
     };
     d.depots = [{ id: "D1", ...at(depot) }];
     d.dropoffs = [{ id: "P1", ...at(dropoff) }];
-    d.bins = d.cells.flatMap((k, c) => (k === "rack" ? [{ code: `R${c}`, aisle: 1, bay: c, level: 1, x: c % w, y: Math.floor(c / w) }] : []));
+    d.bins = d.cells.flatMap((k, c) =>
+      k === "rack" ? [{ code: `R${c}`, aisle: 1, bay: c, level: 1, x: c % w, y: Math.floor(c / w) }] : [],
+    );
     return d;
   });
 
@@ -112,11 +117,21 @@ describe("grid → graph builder properties", () => {
         }
         const floor = d.cells.flatMap((k, c) => (k === "floor" ? [c] : []));
         expect([...used].sort((a, b) => a - b)).toEqual(floor);
-        const isFloor = (x: number, y: number) => x >= 0 && y >= 0 && x < d.width && y < d.height && d.cells[y * d.width + x] === "floor";
+        const isFloor = (x: number, y: number) =>
+          x >= 0 && y >= 0 && x < d.width && y < d.height && d.cells[y * d.width + x] === "floor";
         for (const n of graph.nodes) {
           if (n.kind !== "junction") continue;
-          const ns = isFloor(n.x, n.y - 1), s = isFloor(n.x, n.y + 1), e = isFloor(n.x + 1, n.y), w = isFloor(n.x - 1, n.y);
-          const unmarked = [[0, 0], [0, -1], [0, 1], [1, 0], [-1, 0]].every(([dx, dy]) => d.oneWay[(n.y + dy!) * d.width + n.x + dx!] == null || !isFloor(n.x + dx!, n.y + dy!));
+          const ns = isFloor(n.x, n.y - 1),
+            s = isFloor(n.x, n.y + 1),
+            e = isFloor(n.x + 1, n.y),
+            w = isFloor(n.x - 1, n.y);
+          const unmarked = [
+            [0, 0],
+            [0, -1],
+            [0, 1],
+            [1, 0],
+            [-1, 0],
+          ].every(([dx, dy]) => d.oneWay[(n.y + dy!) * d.width + n.x + dx!] == null || !isFloor(n.x + dx!, n.y + dy!));
           const straight = (ns && s && !e && !w) || (e && w && !ns && !s);
           expect(straight && unmarked).toBe(false);
         }

@@ -4,7 +4,9 @@ import { emptyDrawing, generateWarehouse, validateDrawing } from "../../lib/rout
 describe("validateDrawing", () => {
   it("passes a generated warehouse, with and without one-way aisles", () => {
     expect(validateDrawing(generateWarehouse({ aisles: 4, positions: 6, levels: 2, crossAisles: 2 }))).toEqual([]);
-    expect(validateDrawing(generateWarehouse({ aisles: 4, positions: 6, levels: 2, crossAisles: 3, oneWayAisles: true }))).toEqual([]);
+    expect(
+      validateDrawing(generateWarehouse({ aisles: 4, positions: 6, levels: 2, crossAisles: 3, oneWayAisles: true })),
+    ).toEqual([]);
   });
 
   it("reports missing depot and drop-off", () => {
@@ -46,7 +48,11 @@ describe("validateDrawing", () => {
     const issues = validateDrawing(d);
     const trap = issues.find((i) => i.code === "one-way-trap");
     // The marked cell itself is already past the point of no return.
-    expect(trap?.cells).toEqual([{ x: 2, y: 0 }, { x: 3, y: 0 }, { x: 3, y: 1 }]);
+    expect(trap?.cells).toEqual([
+      { x: 2, y: 0 },
+      { x: 3, y: 0 },
+      { x: 3, y: 1 },
+    ]);
     expect(issues.find((i) => i.code === "bin-unreachable")?.bins).toEqual(["B1"]);
   });
 });

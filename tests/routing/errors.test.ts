@@ -69,7 +69,10 @@ describe("explicit errors", () => {
 
   it("costs that could overflow Int32 sums are refused", () => {
     const big = 400_000_000;
-    const cm = { n: 4, cost: Int32Array.from([0, big, big, big, big, 0, big, big, big, big, 0, big, big, big, big, 0]) };
+    const cm = {
+      n: 4,
+      cost: Int32Array.from([0, big, big, big, big, 0, big, big, big, big, 0, big, big, big, big, 0]),
+    };
     expect(() => sequenceStops(cm, { start: 0, end: 1, stops: [2, 3] })).toThrow(CostOverflowError);
   });
 

@@ -14,7 +14,8 @@ beforeAll(async () => {
 // MTZ integer program must agree with the DP on the optimum.
 describe("Held–Karp equals the HiGHS MILP optimum", () => {
   const cases: { m: number; seed: number; symmetric: boolean; closed: boolean }[] = [];
-  for (let k = 0; k < 10; k++) cases.push({ m: 6 + (k % 5), seed: 500 + k, symmetric: k % 2 === 0, closed: k % 3 === 0 });
+  for (let k = 0; k < 10; k++)
+    cases.push({ m: 6 + (k % 5), seed: 500 + k, symmetric: k % 2 === 0, closed: k % 3 === 0 });
   it.each(cases)("$m stops, seed $seed, symmetric $symmetric, closed $closed", ({ m, seed, symmetric, closed }) => {
     const cm = randomInstance(m + 2, seed, symmetric);
     const start = 0;

@@ -30,7 +30,8 @@ function randomFloor(seed: number): GridDrawing {
   const rect = (x0: number, y0: number, rw: number, rh: number, f: (c: number) => void) => {
     for (let y = y0; y < Math.min(h, y0 + rh); y++) for (let x = x0; x < Math.min(w, x0 + rw); x++) f(y * w + x);
   };
-  for (let k = int(0, 3); k > 0; k--) rect(int(0, w - 2), int(0, h - 2), int(1, 4), int(1, 4), (c) => (d.cells[c] = "blocked"));
+  for (let k = int(0, 3); k > 0; k--)
+    rect(int(0, w - 2), int(0, h - 2), int(1, 4), int(1, 4), (c) => (d.cells[c] = "blocked"));
   for (let k = int(1, 4); k > 0; k--) {
     const vertical = rand() < 0.5;
     const len = int(2, 7);
@@ -47,9 +48,17 @@ function randomFloor(seed: number): GridDrawing {
     const vertical = rand() < 0.5;
     const dir: Side = vertical ? (rand() < 0.5 ? "N" : "S") : rand() < 0.5 ? "E" : "W";
     const len = int(3, 10);
-    rect(int(0, w - 1), int(0, h - 1), vertical ? 1 : len, vertical ? len : 1, (c) => (d.oneWay[c] = d.cells[c] === "floor" ? dir : null));
+    rect(
+      int(0, w - 1),
+      int(0, h - 1),
+      vertical ? 1 : len,
+      vertical ? len : 1,
+      (c) => (d.oneWay[c] = d.cells[c] === "floor" ? dir : null),
+    );
   }
-  for (let c = 0; c < w * h; c++) if (d.cells[c] === "floor" && d.oneWay[c] == null && rand() < 0.015) d.oneWay[c] = (["N", "E", "S", "W"] as const)[int(0, 3)]!;
+  for (let c = 0; c < w * h; c++)
+    if (d.cells[c] === "floor" && d.oneWay[c] == null && rand() < 0.015)
+      d.oneWay[c] = (["N", "E", "S", "W"] as const)[int(0, 3)]!;
   const floor = d.cells.flatMap((k, c) => (k === "floor" ? [c] : []));
   const pick = () => {
     const c = floor[int(0, floor.length - 1)] ?? 0;
@@ -57,12 +66,18 @@ function randomFloor(seed: number): GridDrawing {
   };
   d.depots = [{ id: "D1", ...pick() }];
   d.dropoffs = [{ id: "P1", ...pick() }];
-  d.bins = d.cells.flatMap((k, c) => (k === "rack" ? [{ code: `B${c}`, aisle: 1, bay: c, level: 1, x: c % w, y: Math.floor(c / w) }] : []));
+  d.bins = d.cells.flatMap((k, c) =>
+    k === "rack" ? [{ code: `B${c}`, aisle: 1, bay: c, level: 1, x: c % w, y: Math.floor(c / w) }] : [],
+  );
   return d;
 }
 
 function pointsOf(graph: CompactGraph): AccessPoint[] {
-  return [...graph.depots.map((p) => nodeAccessPoint(graph, p.node)), ...graph.dropoffs.map((p) => nodeAccessPoint(graph, p.node)), ...graph.accessPoints];
+  return [
+    ...graph.depots.map((p) => nodeAccessPoint(graph, p.node)),
+    ...graph.dropoffs.map((p) => nodeAccessPoint(graph, p.node)),
+    ...graph.accessPoints,
+  ];
 }
 const cellOf = (w: number, p: AccessPoint) => p.y * w + p.x;
 
@@ -74,7 +89,16 @@ function expectWalkable(d: GridDrawing, cells: number[], lengthMm: number, from:
     const a = cells[i]!;
     const b = cells[i + 1]!;
     const [x, y, bx, by] = [a % d.width, Math.floor(a / d.width), b % d.width, Math.floor(b / d.width)];
-    const dir: Side | undefined = bx === x + 1 && by === y ? "E" : bx === x - 1 && by === y ? "W" : by === y + 1 && bx === x ? "S" : by === y - 1 && bx === x ? "N" : undefined;
+    const dir: Side | undefined =
+      bx === x + 1 && by === y
+        ? "E"
+        : bx === x - 1 && by === y
+          ? "W"
+          : by === y + 1 && bx === x
+            ? "S"
+            : by === y - 1 && bx === x
+              ? "N"
+              : undefined;
     expect(dir, `cells ${a} and ${b} are neighbours`).toBeDefined();
     expect(canStep(d, x, y, dir!)).toBe(true);
   }
@@ -83,62 +107,75 @@ function expectWalkable(d: GridDrawing, cells: number[], lengthMm: number, from:
 
 // Outside check: Dijkstra from graphology-shortest-path on the raw cell grid (tests/routing/helpers/raw-grid.ts).
 describe("open floor compression", () => {
-  it.each(Array.from({ length: 40 }, (_, i) => i + 1))("random floor %i: distances between depots, drop-offs and access points equal the uncompressed graph and raw-grid Dijkstra", (seed) => {
-    const d = randomFloor(seed);
-    const graph = buildGraph(d);
-    const full = buildGraph(d, { compress: false });
-    expect(graph.nodes.length).toBeLessThanOrEqual(full.nodes.length);
-    const dm = floydWarshall(graph);
-    const dmFull = floydWarshall(full);
-    const raw = rawGridGraph(d);
-    const points = pointsOf(graph);
-    const fullAt = new Map(pointsOf(full).map((p) => [cellOf(d.width, p), p]));
-    const byNumber = (a: number, b: number) => a - b;
-    expect([...new Set(points.map((p) => cellOf(d.width, p)))].sort(byNumber)).toEqual([...fullAt.keys()].sort(byNumber));
-    expect(graph.bins.map((b) => b.code)).toEqual(full.bins.map((b) => b.code));
-    let finite = 0;
-    for (const p of points) {
-      const lengths = dijkstraLengths(raw, String(cellOf(d.width, p)));
-      for (const q of points) {
-        const expected = lengths.get(String(cellOf(d.width, q))) ?? UNREACHABLE;
-        const got = accessDistance(graph, dm, p, q);
-        expect(got).toBe(expected);
-        expect(accessDistance(full, dmFull, fullAt.get(cellOf(d.width, p))!, fullAt.get(cellOf(d.width, q))!)).toBe(expected);
-        const route = accessRoute(graph, dm, p, q);
-        if (expected === UNREACHABLE) {
-          expect(route).toBeNull();
-          continue;
+  it.each(Array.from({ length: 40 }, (_, i) => i + 1))(
+    "random floor %i: distances between depots, drop-offs and access points equal the uncompressed graph and raw-grid Dijkstra",
+    (seed) => {
+      const d = randomFloor(seed);
+      const graph = buildGraph(d);
+      const full = buildGraph(d, { compress: false });
+      expect(graph.nodes.length).toBeLessThanOrEqual(full.nodes.length);
+      const dm = floydWarshall(graph);
+      const dmFull = floydWarshall(full);
+      const raw = rawGridGraph(d);
+      const points = pointsOf(graph);
+      const fullAt = new Map(pointsOf(full).map((p) => [cellOf(d.width, p), p]));
+      const byNumber = (a: number, b: number) => a - b;
+      expect([...new Set(points.map((p) => cellOf(d.width, p)))].sort(byNumber)).toEqual(
+        [...fullAt.keys()].sort(byNumber),
+      );
+      expect(graph.bins.map((b) => b.code)).toEqual(full.bins.map((b) => b.code));
+      let finite = 0;
+      for (const p of points) {
+        const lengths = dijkstraLengths(raw, String(cellOf(d.width, p)));
+        for (const q of points) {
+          const expected = lengths.get(String(cellOf(d.width, q))) ?? UNREACHABLE;
+          const got = accessDistance(graph, dm, p, q);
+          expect(got).toBe(expected);
+          expect(accessDistance(full, dmFull, fullAt.get(cellOf(d.width, p))!, fullAt.get(cellOf(d.width, q))!)).toBe(
+            expected,
+          );
+          const route = accessRoute(graph, dm, p, q);
+          if (expected === UNREACHABLE) {
+            expect(route).toBeNull();
+            continue;
+          }
+          finite++;
+          expectWalkable(d, routeCells(graph, route!), expected, cellOf(d.width, p), cellOf(d.width, q));
         }
-        finite++;
-        expectWalkable(d, routeCells(graph, route!), expected, cellOf(d.width, p), cellOf(d.width, q));
       }
-    }
-    expect(finite).toBeGreaterThan(0);
-  });
+      expect(finite).toBeGreaterThan(0);
+    },
+  );
 
-  it.each(Array.from({ length: 40 }, (_, i) => i + 1))("random floor %i: every compressed edge is a straight run of floor cells, and no cell lies inside two edges", (seed) => {
-    const d = randomFloor(seed);
-    const graph = buildGraph(d);
-    const inside = new Set<number>();
-    const nodeCells = new Set(graph.nodes.map((n) => n.y * d.width + n.x));
-    for (const e of graph.edges) {
-      expect(e.lengthMm).toBe((e.cells.length - 1) * d.cellMm);
-      const step = e.cells[1]! - e.cells[0]!;
-      expect([1, -1, d.width, -d.width]).toContain(step);
-      e.cells.forEach((c, i) => {
-        expect(d.cells[c]).toBe("floor");
-        if (i > 0) expect(c - e.cells[i - 1]!).toBe(step);
-        if (i === 0 || i === e.cells.length - 1) return expect(nodeCells.has(c)).toBe(true);
-        expect(nodeCells.has(c) || inside.has(c)).toBe(false);
-        inside.add(c);
-      });
-    }
-  });
+  it.each(Array.from({ length: 40 }, (_, i) => i + 1))(
+    "random floor %i: every compressed edge is a straight run of floor cells, and no cell lies inside two edges",
+    (seed) => {
+      const d = randomFloor(seed);
+      const graph = buildGraph(d);
+      const inside = new Set<number>();
+      const nodeCells = new Set(graph.nodes.map((n) => n.y * d.width + n.x));
+      for (const e of graph.edges) {
+        expect(e.lengthMm).toBe((e.cells.length - 1) * d.cellMm);
+        const step = e.cells[1]! - e.cells[0]!;
+        expect([1, -1, d.width, -d.width]).toContain(step);
+        e.cells.forEach((c, i) => {
+          expect(d.cells[c]).toBe("floor");
+          if (i > 0) expect(c - e.cells[i - 1]!).toBe(step);
+          if (i === 0 || i === e.cells.length - 1) return expect(nodeCells.has(c)).toBe(true);
+          expect(nodeCells.has(c) || inside.has(c)).toBe(false);
+          inside.add(c);
+        });
+      }
+    },
+  );
 
   it("an open hall several cells wide does not become one junction per cell", () => {
     // 60 × 40 cells, all floor: a depot and a drop-off at the front, two rack runs facing the hall.
     const d = emptyDrawing(60, 40, 1000);
-    for (const [x0, y, facing] of [[10, 10, "S"], [10, 30, "N"]] as const) {
+    for (const [x0, y, facing] of [
+      [10, 10, "S"],
+      [10, 30, "N"],
+    ] as const) {
       for (let x = x0; x < x0 + 40; x++) {
         d.cells[y * 60 + x] = "rack";
         d.facing[y * 60 + x] = facing;

@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { accessDistance, accessRoute, buildGraph, floydWarshall, nodeAccessPoint, UNREACHABLE } from "../../lib/routing";
+import {
+  accessDistance,
+  accessRoute,
+  buildGraph,
+  floydWarshall,
+  nodeAccessPoint,
+  UNREACHABLE,
+} from "../../lib/routing";
 import { obstructedWarehouse } from "./helpers/layouts";
 import { compactGraphology, dijkstraLengths, rawGridGraph } from "./helpers/raw-grid";
 

@@ -32,14 +32,18 @@ describe("TSPLIB published optima", () => {
   it("br17 is read as a directed matrix (FULL_MATRIX is not symmetrised)", () => {
     const inst = parseTsplib(fixture("br17.atsp"));
     let asymmetric = 0;
-    for (let i = 0; i < inst.n; i++) for (let j = 0; j < inst.n; j++) if (inst.cost[i * inst.n + j] !== inst.cost[j * inst.n + i]) asymmetric++;
+    for (let i = 0; i < inst.n; i++)
+      for (let j = 0; j < inst.n; j++) if (inst.cost[i * inst.n + j] !== inst.cost[j * inst.n + i]) asymmetric++;
     expect(inst.type).toBe("ATSP");
     expect(asymmetric).toBeGreaterThan(0);
   });
 
   it("GEO degrees are truncated: rounding them would not give the published burma14 optimum", () => {
     // TSPLIB README in the fixtures: rounded degrees give 3454 for burma14, not 3323.
-    const rounded = fixture("burma14.tsp").replace(/^(\d+) ([\d.]+) ([\d.]+)$/gm, (_, i, a, b) => `${i} ${Math.round(Number(a))}.00 ${Math.round(Number(b))}.00`);
+    const rounded = fixture("burma14.tsp").replace(
+      /^(\d+) ([\d.]+) ([\d.]+)$/gm,
+      (_, i, a, b) => `${i} ${Math.round(Number(a))}.00 ${Math.round(Number(b))}.00`,
+    );
     const inst = parseTsplib(rounded);
     const r = sequenceStops(inst, { start: 0, end: 0, stops: Array.from({ length: inst.n - 1 }, (_, i) => i + 1) });
     expect(r.length).not.toBe(3323);

@@ -5,7 +5,10 @@ const APP_DIR = path.resolve(process.cwd(), "app");
 
 /** URL pattern of a file under app/: route groups "(x)" vanish, [id] stays as written. */
 function urlOf(dir: string): string {
-  const parts = path.relative(APP_DIR, dir).split(path.sep).filter((p) => p && !/^\(.*\)$/.test(p));
+  const parts = path
+    .relative(APP_DIR, dir)
+    .split(path.sep)
+    .filter((p) => p && !/^\(.*\)$/.test(p));
   return "/" + parts.join("/");
 }
 
@@ -26,7 +29,9 @@ export function discoverRoutes() {
     .filter((f) => /\/route\.ts$/.test(f))
     .map((f) => {
       const src = readFileSync(f, "utf8");
-      const methods = [...src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1] as "GET" | "POST" | "PUT" | "PATCH" | "DELETE");
+      const methods = [...src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)].map(
+        (m) => m[1] as "GET" | "POST" | "PUT" | "PATCH" | "DELETE",
+      );
       return { url: urlOf(path.dirname(f)), methods };
     });
   return { pages: pages.sort(), handlers };

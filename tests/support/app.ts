@@ -18,7 +18,9 @@ export function demoAccount(role: Role) {
 export async function signIn(email: string, password: string): Promise<string> {
   const res = await api().post("/api/session").set("Origin", ORIGIN).send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
-  const cookie = [res.headers["set-cookie"]].flat().find((c): c is string => typeof c === "string" && c.startsWith("trailbin_session="));
+  const cookie = [res.headers["set-cookie"]]
+    .flat()
+    .find((c): c is string => typeof c === "string" && c.startsWith("trailbin_session="));
   if (!cookie) throw new Error("sign-in set no session cookie");
   return cookie.split(";")[0]!;
 }
@@ -27,10 +29,17 @@ export const signInAs = (role: Role) => signIn(demoAccount(role).email, demoAcco
 
 let counter = 0;
 /** A throwaway account made through the admin API, so tests never lock or alter the demo people. */
-export async function makeUser(role: Role, password = "correct horse battery"): Promise<{ id: string; email: string; password: string; version: number }> {
+export async function makeUser(
+  role: Role,
+  password = "correct horse battery",
+): Promise<{ id: string; email: string; password: string; version: number }> {
   const admin = await signInAs("admin");
   const email = `t${Date.now()}-${process.pid}-${++counter}@tests.example`;
-  const res = await api().post("/api/users").set("Origin", ORIGIN).set("Cookie", admin).send({ email, displayName: `Test ${counter}`, role, password });
+  const res = await api()
+    .post("/api/users")
+    .set("Origin", ORIGIN)
+    .set("Cookie", admin)
+    .send({ email, displayName: `Test ${counter}`, role, password });
   if (res.status !== 201) throw new Error(`could not create user: ${res.status} ${JSON.stringify(res.body)}`);
   return { id: res.body.user.id, email, password, version: res.body.user.version };
 }

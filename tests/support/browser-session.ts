@@ -12,7 +12,11 @@ export async function signInOnPage(page: Page, role: Role): Promise<void> {
 }
 
 /** A browser context signed in as a demo role through the sign-in page. */
-export async function signedInPage(browser: Browser, role: Role, viewport = { width: 1280, height: 900 }): Promise<{ context: BrowserContext; page: Page }> {
+export async function signedInPage(
+  browser: Browser,
+  role: Role,
+  viewport = { width: 1280, height: 900 },
+): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ viewport });
   const page = await context.newPage();
   await signInOnPage(page, role);

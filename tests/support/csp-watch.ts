@@ -15,12 +15,15 @@ export async function watchProblems(context: BrowserContext): Promise<PageProble
   await context.addInitScript(() => {
     document.addEventListener("securitypolicyviolation", (e) => {
       const report = (window as unknown as { __reportCspViolation: (t: string) => void }).__reportCspViolation;
-      report(`${e.violatedDirective} blocked ${e.blockedURI || "(inline)"} at ${e.sourceFile}:${e.lineNumber} on ${location.pathname}`);
+      report(
+        `${e.violatedDirective} blocked ${e.blockedURI || "(inline)"} at ${e.sourceFile}:${e.lineNumber} on ${location.pathname}`,
+      );
     });
   });
   const watch = (page: Page) => {
     page.on("console", (m) => {
-      if (/content.security.policy|refused to (load|execute|apply|connect|frame)/i.test(m.text())) problems.console.push(`${m.type()}: ${m.text()}`);
+      if (/content.security.policy|refused to (load|execute|apply|connect|frame)/i.test(m.text()))
+        problems.console.push(`${m.type()}: ${m.text()}`);
     });
     page.on("pageerror", (e) => problems.errors.push(`${page.url()}: ${e.message}`));
     page.on("dialog", (d) => {
@@ -42,9 +45,16 @@ export function clearProblems(problems: PageProblems) {
 export async function isHydrated(page: Page, selector = "main"): Promise<boolean> {
   // Hydration of a long page (a wave's pick lists) can finish after the network went idle: wait for it.
   return page
-    .waitForFunction((sel) => {
-      const el = document.querySelector(sel);
-      return !!el && Object.keys(el).some((k) => k.startsWith("__reactFiber$"));
-    }, selector, { timeout: 15_000 })
-    .then(() => true, () => false);
+    .waitForFunction(
+      (sel) => {
+        const el = document.querySelector(sel);
+        return !!el && Object.keys(el).some((k) => k.startsWith("__reactFiber$"));
+      },
+      selector,
+      { timeout: 15_000 },
+    )
+    .then(
+      () => true,
+      () => false,
+    );
 }

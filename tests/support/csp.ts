@@ -10,7 +10,9 @@ export function cspDirectives(header: string | undefined): Map<string, string[]>
 
 /** The nonce a policy's script-src allows, if any. */
 export function scriptNonce(header: string | undefined): string | undefined {
-  const source = cspDirectives(header).get("script-src")?.find((s) => /^'nonce-.+'$/.test(s));
+  const source = cspDirectives(header)
+    .get("script-src")
+    ?.find((s) => /^'nonce-.+'$/.test(s));
   return source?.slice("'nonce-".length, -1);
 }
 

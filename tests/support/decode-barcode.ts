@@ -1,5 +1,12 @@
 import { PNG } from "pngjs";
-import { BarcodeFormat, BinaryBitmap, DecodeHintType, HybridBinarizer, MultiFormatReader, RGBLuminanceSource } from "@zxing/library";
+import {
+  BarcodeFormat,
+  BinaryBitmap,
+  DecodeHintType,
+  HybridBinarizer,
+  MultiFormatReader,
+  RGBLuminanceSource,
+} from "@zxing/library";
 
 /** Reads the barcode in a PNG with ZXing (a reference reader this project did not write). */
 export function decodeBarcodePng(png: Buffer): string {

@@ -1,7 +1,18 @@
 import { blankDocument, GROUND, type EditorDocument, type RackRun } from "@/lib/floor-plan/document";
 
-export function run(partial: Partial<RackRun> & Pick<RackRun, "id" | "x" | "y" | "length" | "facing" | "aisle">): RackRun {
-  return { orientation: "h", firstBay: 1, bayStep: 1, bayDirection: "forward", levels: 2, pattern: "{aisle:2}-{bay:2}-{level}", customCodes: [], ...partial };
+export function run(
+  partial: Partial<RackRun> & Pick<RackRun, "id" | "x" | "y" | "length" | "facing" | "aisle">,
+): RackRun {
+  return {
+    orientation: "h",
+    firstBay: 1,
+    bayStep: 1,
+    bayDirection: "forward",
+    levels: 2,
+    pattern: "{aisle:2}-{bay:2}-{level}",
+    customCodes: [],
+    ...partial,
+  };
 }
 
 /**
@@ -11,7 +22,10 @@ export function run(partial: Partial<RackRun> & Pick<RackRun, "id" | "x" | "y" |
 export function smallDocument(): EditorDocument {
   const d = blankDocument(12, 7, 1000);
   d.ground = GROUND.floor.repeat(12 * 7);
-  d.rackRuns = [run({ id: "R1", x: 1, y: 2, length: 10, facing: "S", aisle: 1 }), run({ id: "R2", x: 1, y: 4, length: 10, facing: "N", aisle: 1, firstBay: 11 })];
+  d.rackRuns = [
+    run({ id: "R1", x: 1, y: 2, length: 10, facing: "S", aisle: 1 }),
+    run({ id: "R2", x: 1, y: 4, length: 10, facing: "N", aisle: 1, firstBay: 11 }),
+  ];
   d.depots = [{ id: "D1", x: 0, y: 6, name: "Carts" }];
   d.dropoffs = [{ id: "P1", x: 11, y: 6, name: "Packing" }];
   return d;

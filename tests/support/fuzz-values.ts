@@ -25,12 +25,39 @@ export class RawJson {
 export const toJsonText = (v: unknown) => JSON.stringify(v).replace(/"@@RAW:(.*?)@@"/g, "$1");
 
 /** An object whose own key is "__proto__" (JSON.parse makes one; an object literal would set the prototype). */
-export const protoKeyed = (inner: unknown) => JSON.parse(`{"__proto__": ${toJsonText(inner)}}`) as Record<string, unknown>;
+export const protoKeyed = (inner: unknown) =>
+  JSON.parse(`{"__proto__": ${toJsonText(inner)}}`) as Record<string, unknown>;
 export const constructorKeyed = (inner: unknown) => ({ constructor: { prototype: inner } });
 
 // Values of the wrong JSON type for every kind; null is wrong everywhere (no field here is nullable).
-const NOT_A_NUMBER = ["1", "NaN", "Infinity", "-1", "", true, false, null, [], [1], {}, protoKeyed({ polluted: 1 }), constructorKeyed({ polluted: 1 })];
-const NOT_A_STRING = [1, 0, -1, true, null, [], ["a"], {}, { toString: "x" }, protoKeyed({ polluted: 1 }), constructorKeyed({ polluted: 1 })];
+const NOT_A_NUMBER = [
+  "1",
+  "NaN",
+  "Infinity",
+  "-1",
+  "",
+  true,
+  false,
+  null,
+  [],
+  [1],
+  {},
+  protoKeyed({ polluted: 1 }),
+  constructorKeyed({ polluted: 1 }),
+];
+const NOT_A_STRING = [
+  1,
+  0,
+  -1,
+  true,
+  null,
+  [],
+  ["a"],
+  {},
+  { toString: "x" },
+  protoKeyed({ polluted: 1 }),
+  constructorKeyed({ polluted: 1 }),
+];
 const NOT_A_BOOL = ["true", "false", 1, 0, null, [], {}, protoKeyed({ polluted: 1 })];
 const NOT_AN_ARRAY = ["1,2", 1, true, null, {}, { 0: 1, length: 1 }, protoKeyed([1])];
 const BIG = [new RawJson("1e999"), new RawJson("-1e999"), 1e308, 2 ** 53, 2 ** 53 + 2, 1e20, 2 ** 31];
@@ -67,13 +94,36 @@ export function badValues(k: FieldKind): unknown[] {
       ];
     }
     case "enum":
-      return [...NOT_A_STRING.filter((v) => !k.values.includes(v as never)), "", "not-one-of-them", String(k.values[0]).toUpperCase() + "X", ` ${String(k.values[0])}`];
+      return [
+        ...NOT_A_STRING.filter((v) => !k.values.includes(v as never)),
+        "",
+        "not-one-of-them",
+        String(k.values[0]).toUpperCase() + "X",
+        ` ${String(k.values[0])}`,
+      ];
     case "bool":
       return NOT_A_BOOL;
     case "email":
-      return [...NOT_A_STRING, "", "not-an-email", "a@", "@b.example", "a b@c.example", `${word(250)}@tests.example`, "x@y.example\r\nBcc: z@y.example"];
+      return [
+        ...NOT_A_STRING,
+        "",
+        "not-an-email",
+        "a@",
+        "@b.example",
+        "a b@c.example",
+        `${word(250)}@tests.example`,
+        "x@y.example\r\nBcc: z@y.example",
+      ];
     case "datetime":
-      return [...NOT_A_STRING, "", "tomorrow", "2026-13-45T99:99:99Z", "2026-12-01", "2026-12-01T10:00:00", "0000-00-00T00:00:00Z"];
+      return [
+        ...NOT_A_STRING,
+        "",
+        "tomorrow",
+        "2026-13-45T99:99:99Z",
+        "2026-12-01",
+        "2026-12-01T10:00:00",
+        "0000-00-00T00:00:00Z",
+      ];
     case "array":
       return [
         ...NOT_AN_ARRAY,
@@ -86,8 +136,14 @@ export function badValues(k: FieldKind): unknown[] {
   }
 }
 
-const jsonJunk = fc.oneof(fc.boolean(), fc.constant(null), fc.array(fc.jsonValue(), { maxLength: 3 }), fc.dictionary(fc.string({ maxLength: 8 }), fc.jsonValue(), { maxKeys: 3 }));
-const noSpace = (n: { minLength: number; maxLength: number }) => fc.string({ unit: fc.constantFrom(..."abcXYZ019-_."), ...n });
+const jsonJunk = fc.oneof(
+  fc.boolean(),
+  fc.constant(null),
+  fc.array(fc.jsonValue(), { maxLength: 3 }),
+  fc.dictionary(fc.string({ maxLength: 8 }), fc.jsonValue(), { maxKeys: 3 }),
+);
+const noSpace = (n: { minLength: number; maxLength: number }) =>
+  fc.string({ unit: fc.constantFrom(..."abcXYZ019-_."), ...n });
 
 /** Random values outside the kind, for fast-check. */
 export function badArbitrary(k: FieldKind): fc.Arbitrary<unknown> {
@@ -103,7 +159,12 @@ export function badArbitrary(k: FieldKind): fc.Arbitrary<unknown> {
         jsonJunk,
       );
     case "number":
-      return fc.oneof(fc.double({ max: k.min, noNaN: true, maxExcluded: !k.above }), fc.double({ min: k.max, noNaN: true, minExcluded: true }), fc.string({ maxLength: 12 }), jsonJunk);
+      return fc.oneof(
+        fc.double({ max: k.min, noNaN: true, maxExcluded: !k.above }),
+        fc.double({ min: k.max, noNaN: true, minExcluded: true }),
+        fc.string({ maxLength: 12 }),
+        jsonJunk,
+      );
     case "string":
       return fc.oneof(
         noSpace({ minLength: k.max + 1, maxLength: k.max + 200 }),
@@ -114,15 +175,33 @@ export function badArbitrary(k: FieldKind): fc.Arbitrary<unknown> {
         jsonJunk,
       );
     case "enum":
-      return fc.oneof(fc.string({ maxLength: 20 }).filter((s) => !k.values.includes(s)), fc.integer().filter((n) => !k.values.includes(n)), jsonJunk);
+      return fc.oneof(
+        fc.string({ maxLength: 20 }).filter((s) => !k.values.includes(s)),
+        fc.integer().filter((n) => !k.values.includes(n)),
+        jsonJunk,
+      );
     case "bool":
       return fc.oneof(fc.string(), fc.integer(), fc.constant(null), fc.array(fc.boolean()));
     case "email":
-      return fc.oneof(fc.string({ maxLength: 40 }).filter((s) => !/^[^@\s]+@[^@\s]+\.[a-z]{2,}$/i.test(s.trim())), fc.integer(), jsonJunk);
+      return fc.oneof(
+        fc.string({ maxLength: 40 }).filter((s) => !/^[^@\s]+@[^@\s]+\.[a-z]{2,}$/i.test(s.trim())),
+        fc.integer(),
+        jsonJunk,
+      );
     case "datetime":
-      return fc.oneof(fc.string({ maxLength: 30 }).filter((s) => !/^\d{4}-\d\d-\d\dT\d\d:\d\d/.test(s)), fc.integer(), jsonJunk);
+      return fc.oneof(
+        fc.string({ maxLength: 30 }).filter((s) => !/^\d{4}-\d\d-\d\dT\d\d:\d\d/.test(s)),
+        fc.integer(),
+        jsonJunk,
+      );
     case "array":
-      return fc.oneof(fc.string(), fc.integer(), fc.constant(null), fc.dictionary(fc.string({ maxLength: 4 }), fc.jsonValue(), { maxKeys: 3 }), fc.array(jsonJunk, { minLength: 1, maxLength: 3 }));
+      return fc.oneof(
+        fc.string(),
+        fc.integer(),
+        fc.constant(null),
+        fc.dictionary(fc.string({ maxLength: 4 }), fc.jsonValue(), { maxKeys: 3 }),
+        fc.array(jsonJunk, { minLength: 1, maxLength: 3 }),
+      );
   }
 }
 

@@ -25,8 +25,12 @@ export const HOSTILE = [
 ] as const;
 
 /** Bin code patterns whose literal text is markup (the editor allows any literal text around {bay} and {level}). */
-export const HOSTILE_PATTERNS = { R1: "<img src onerror=alert(1)>{bay}-{level}", R2: "<script>{bay}</script>{level}" } as const;
-export const hostileCode = (runId: "R1" | "R2", bay: number, level: number) => HOSTILE_PATTERNS[runId].replace("{bay}", String(bay)).replace("{level}", String(level));
+export const HOSTILE_PATTERNS = {
+  R1: "<img src onerror=alert(1)>{bay}-{level}",
+  R2: "<script>{bay}</script>{level}",
+} as const;
+export const hostileCode = (runId: "R1" | "R2", bay: number, level: number) =>
+  HOSTILE_PATTERNS[runId].replace("{bay}", String(bay)).replace("{level}", String(level));
 export const HOSTILE_DEPOT = "<script>alert(1)</script>";
 export const HOSTILE_DROPOFF = '"><img src=x onerror=alert(1)>';
 
@@ -85,7 +89,11 @@ export async function buildHostileScenario() {
   ];
   document.depots = [{ ...document.depots[0]!, name: HOSTILE_DEPOT }];
   document.dropoffs = [{ ...document.dropoffs[0]!, name: HOSTILE_DROPOFF }];
-  const saved = await api().put(`/api/floor-plans/${planId}/draft`).set("Cookie", admin).set("Origin", ORIGIN).send({ version: 1, document });
+  const saved = await api()
+    .put(`/api/floor-plans/${planId}/draft`)
+    .set("Cookie", admin)
+    .set("Origin", ORIGIN)
+    .send({ version: 1, document });
   expect(saved.status, JSON.stringify(saved.body)).toBe(200);
   const publish = await post(`/api/floor-plans/${planId}/publish`, admin).send({ version: saved.body.version });
   expect(publish.status, JSON.stringify(publish.body)).toBe(202);
@@ -102,19 +110,30 @@ export async function buildHostileScenario() {
     bin: i % 2 === 0 ? hostileCode("R1", i + 1, 1) : hostileCode("R2", 11 + i, 2),
   }));
   const itemSheet = xlsx([ITEM_HEADER, ...items.map((it) => [it.sku, it.description, it.uom, 100, it.bin])]);
-  const importedItems = await post("/api/imports/items", planner).field("layoutVersionId", String(layoutVersionId)).attach("file", itemSheet, "hostile-items.xlsx");
+  const importedItems = await post("/api/imports/items", planner)
+    .field("layoutVersionId", String(layoutVersionId))
+    .attach("file", itemSheet, "hostile-items.xlsx");
   expect(importedItems.status, JSON.stringify(importedItems.body)).toBe(201);
 
   const orders = HOSTILE.map((h, i) => ({ orderNumber: `${tag}-${i}${h}`, customerRef: h, sku: items[i]!.sku }));
   const orderSheet = xlsx([ORDER_HEADER, ...orders.map((o) => [o.orderNumber, 1, o.sku, 1, CUTOFF, 1, o.customerRef])]);
-  const importedOrders = await post("/api/imports/orders", planner).field("layoutVersionId", String(layoutVersionId)).attach("file", orderSheet, "hostile-orders.xlsx");
+  const importedOrders = await post("/api/imports/orders", planner)
+    .field("layoutVersionId", String(layoutVersionId))
+    .attach("file", orderSheet, "hostile-orders.xlsx");
   expect(importedOrders.status, JSON.stringify(importedOrders.body)).toBe(201);
 
   const waveName = `${tag} <script>alert(1)</script> "><img src=x onerror=alert(1)> {{7*7}} \${7*7} '; DROP TABLE orders; --`;
   const wave = await post("/api/waves", planner).send({
     name: waveName,
     layoutVersionId,
-    settings: { totesPerCart: 20, maxLines: 50, maxWeightG: 100_000, depotId: "D1", dropoffId: "P1", method: "first-come" },
+    settings: {
+      totesPerCart: 20,
+      maxLines: 50,
+      maxWeightG: 100_000,
+      depotId: "D1",
+      dropoffId: "P1",
+      method: "first-come",
+    },
     cutoffBefore: CLAIM_BEFORE,
     priorities: [1, 2, 3],
   });
@@ -140,10 +159,37 @@ export async function buildHostileScenario() {
     expect(took.status, JSON.stringify(took.body)).toBe(200);
   }
   const batchId = batches[0]!.id as number;
-  const line = await db()("batch_lines").where({ batch_id: batchId }).orderBy("order_line_id").first("order_line_id", "bin_code");
+  const line = await db()("batch_lines")
+    .where({ batch_id: batchId })
+    .orderBy("order_line_id")
+    .first("order_line_id", "bin_code");
   const { version: batchVersion } = await db()("batches").where({ id: batchId }).first("version");
-  const short = await post(`/api/batches/${batchId}/confirm`, pickerCookie).send({ idempotencyKey: `${tag}-short`, orderLineId: line.order_line_id, quantity: 0, short: { reason: "other" }, binCode: line.bin_code, batchVersion });
+  const short = await post(`/api/batches/${batchId}/confirm`, pickerCookie).send({
+    idempotencyKey: `${tag}-short`,
+    orderLineId: line.order_line_id,
+    quantity: 0,
+    short: { reason: "other" },
+    binCode: line.bin_code,
+    batchVersion,
+  });
   expect(short.status, JSON.stringify(short.body)).toBeLessThan(300);
 
-  return { tag, admin, planner, users, picker, pickerCookie, planIds, planNames, planId, layoutVersionId, items, orders, waveId, waveName, batchIds: batches.map((b: { id: number }) => b.id), shortLineId: line.order_line_id as number };
+  return {
+    tag,
+    admin,
+    planner,
+    users,
+    picker,
+    pickerCookie,
+    planIds,
+    planNames,
+    planId,
+    layoutVersionId,
+    items,
+    orders,
+    waveId,
+    waveName,
+    batchIds: batches.map((b: { id: number }) => b.id),
+    shortLineId: line.order_line_id as number,
+  };
 }

@@ -17,7 +17,11 @@ export async function pickerWithBatch() {
   const cookie = await signIn(u.email, u.password);
   const next = (await api().get("/api/my-batches").set("Cookie", cookie)).body.next;
   expect(next, "a released batch nobody holds").toBeTruthy();
-  const take = await api().post(`/api/batches/${next.id}/take`).set("Cookie", cookie).set("Origin", ORIGIN).send({ version: next.version });
+  const take = await api()
+    .post(`/api/batches/${next.id}/take`)
+    .set("Cookie", cookie)
+    .set("Origin", ORIGIN)
+    .send({ version: next.version });
   expect(take.status, JSON.stringify(take.body)).toBe(200);
   return { user: u, cookie, batchId: next.id as number };
 }

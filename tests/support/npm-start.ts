@@ -37,7 +37,7 @@ export function processTree(roots: number[]): Proc[] {
   const procs = allProcs();
   const keep = new Map<number, Proc>();
   for (const p of procs) if (roots.includes(p.pid)) keep.set(p.pid, p);
-  for (let grew = true; grew; ) {
+  for (let grew = true; grew;) {
     grew = false;
     for (const p of procs) {
       if (!keep.has(p.pid) && keep.has(p.ppid)) {
@@ -76,7 +76,11 @@ export function portAnswers(port: number): Promise<boolean> {
   });
 }
 
-export async function until<T>(what: string, timeoutMs: number, probe: () => Promise<T | undefined | false> | T | undefined | false): Promise<T> {
+export async function until<T>(
+  what: string,
+  timeoutMs: number,
+  probe: () => Promise<T | undefined | false> | T | undefined | false,
+): Promise<T> {
   const end = Date.now() + timeoutMs;
   for (;;) {
     const v = await Promise.resolve(probe()).catch(() => undefined);
@@ -137,7 +141,11 @@ export async function npmStart(ports: Ports, name: string, timeoutMs: number): P
   );
   const url = `http://127.0.0.1:${ports.app}`;
   const log = () => readFileSync(logFile, "utf8");
-  const health = () => fetch(`${url}/api/health`).then((r) => r.status, () => 0);
+  const health = () =>
+    fetch(`${url}/api/health`).then(
+      (r) => r.status,
+      () => 0,
+    );
   const pidFile = (file: string) => Number(readFileSync(path.join(START_DIR, `${file}.pid`), "utf8").split("\n")[0]);
 
   const end = Date.now() + timeoutMs;

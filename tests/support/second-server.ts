@@ -3,7 +3,13 @@ import { mkdirSync, openSync, closeSync } from "node:fs";
 import path from "node:path";
 import request from "supertest";
 
-export type SecondServer = { url: string; origin: string; api: () => ReturnType<typeof request>; logFile: string; stop: () => Promise<void> };
+export type SecondServer = {
+  url: string;
+  origin: string;
+  api: () => ReturnType<typeof request>;
+  logFile: string;
+  stop: () => Promise<void>;
+};
 
 /**
  * A second `next start` from the test build (NEXT_DIST_DIR), on TEST_SECOND_APP_PORT, against the same
@@ -45,7 +51,10 @@ export async function startSecondServer(settings: Record<string, string>, name: 
 
   for (let i = 0; i < 600; i++) {
     if (exited) throw new Error(`the second server exited before answering; see ${logFile}`);
-    const ok = await fetch(`${url}/api/health`).then((r) => r.status === 200, () => false);
+    const ok = await fetch(`${url}/api/health`).then(
+      (r) => r.status === 200,
+      () => false,
+    );
     if (ok) return { url, origin: url, api: () => request(url), logFile, stop };
     await new Promise((r) => setTimeout(r, 100));
   }

@@ -10,21 +10,39 @@ export class TestOrders {
   readonly waveIds: number[] = [];
 
   async siteId(): Promise<number> {
-    const r = await db()("layout_versions as v").join("floor_plans as p", "p.id", "v.floor_plan_id").where("v.id", 1).first("p.site_id");
+    const r = await db()("layout_versions as v")
+      .join("floor_plans as p", "p.id", "v.floor_plan_id")
+      .where("v.id", 1)
+      .first("p.site_id");
     return r.site_id;
   }
 
   async addItem(sku: string, bins: string[]): Promise<number> {
-    const [id] = await db()("items").insert({ site_id: await this.siteId(), sku, description: `Test item ${sku}`, uom: "EA", unit_weight_g: 200 });
+    const [id] = await db()("items").insert({
+      site_id: await this.siteId(),
+      sku,
+      description: `Test item ${sku}`,
+      uom: "EA",
+      unit_weight_g: 200,
+    });
     this.itemIds.push(Number(id));
-    if (bins.length) await db()("item_bins").insert(bins.map((bin_code, i) => ({ item_id: Number(id), bin_code, rank: i + 1 })));
+    if (bins.length)
+      await db()("item_bins").insert(bins.map((bin_code, i) => ({ item_id: Number(id), bin_code, rank: i + 1 })));
     return Number(id);
   }
 
   async addOrder(orderNumber: string, cutoff: string, items: number[]): Promise<number> {
-    const [id] = await db()("orders").insert({ site_id: await this.siteId(), order_number: orderNumber, priority: 2, cutoff_at: new Date(cutoff), status: "open" });
+    const [id] = await db()("orders").insert({
+      site_id: await this.siteId(),
+      order_number: orderNumber,
+      priority: 2,
+      cutoff_at: new Date(cutoff),
+      status: "open",
+    });
     this.orderIds.push(Number(id));
-    await db()("order_lines").insert(items.map((item_id, i) => ({ order_id: Number(id), line_no: i + 1, item_id, quantity: 1 })));
+    await db()("order_lines").insert(
+      items.map((item_id, i) => ({ order_id: Number(id), line_no: i + 1, item_id, quantity: 1 })),
+    );
     return Number(id);
   }
 

@@ -13,7 +13,11 @@ describe("the client's address from the socket", () => {
   beforeAll(async () => {
     stampPeerAddresses();
     server = http.createServer((req, res) => {
-      seen.push(new Headers(Object.entries(req.headers).flatMap(([k, v]) => (typeof v === "string" ? [[k, v] as [string, string]] : []))));
+      seen.push(
+        new Headers(
+          Object.entries(req.headers).flatMap(([k, v]) => (typeof v === "string" ? [[k, v] as [string, string]] : [])),
+        ),
+      );
       res.end("ok");
     });
     await new Promise<void>((r) => server.listen(0, "127.0.0.1", r));
@@ -43,7 +47,12 @@ describe("the client's address from the socket", () => {
   });
 
   it("without the stamp (a request nobody stamped) is unknown, never a header's word", () => {
-    expect(clientIp(new Headers({ "x-forwarded-for": "6.6.6.6", "x-trailbin-peer": "6.6.6.6" }), parseTrustedProxies("6.6.6.6"))).toBe("unknown");
+    expect(
+      clientIp(
+        new Headers({ "x-forwarded-for": "6.6.6.6", "x-trailbin-peer": "6.6.6.6" }),
+        parseTrustedProxies("6.6.6.6"),
+      ),
+    ).toBe("unknown");
   });
 });
 

@@ -24,7 +24,14 @@ beforeEach(() => {
 /** The parts of a real workbook, so only the bomb entry is out of the ordinary. */
 function workbookEntries(): ZipInput[] {
   const book = XLSX.utils.book_new();
-  XLSX.utils.book_append_sheet(book, XLSX.utils.aoa_to_sheet([["SKU", "Quantity"], ["BOLT-M8", 12]]), "S");
+  XLSX.utils.book_append_sheet(
+    book,
+    XLSX.utils.aoa_to_sheet([
+      ["SKU", "Quantity"],
+      ["BOLT-M8", 12],
+    ]),
+    "S",
+  );
   const files = XLSX.CFB.read(XLSX.write(book, { type: "buffer", bookType: "xlsx" }) as Buffer, { type: "buffer" });
   const entries: ZipInput[] = files.FileIndex.map((f: { content: unknown }, i: number) => ({
     name: files.FullPaths[i]!.replace(/^[^/]*\//, ""),
@@ -45,7 +52,10 @@ function entryData(zip: Uint8Array): Uint8Array {
 describe("zip bombs are refused before the parser starts", () => {
   it("an ordinary workbook written the same way is read (one parse worker)", async () => {
     const { rows } = await readSheet(zipBytes(workbookEntries()));
-    expect(rows).toEqual([["SKU", "Quantity"], ["BOLT-M8", "12"]]);
+    expect(rows).toEqual([
+      ["SKU", "Quantity"],
+      ["BOLT-M8", "12"],
+    ]);
     expect(started.workers).toBe(1);
   });
 
@@ -55,7 +65,10 @@ describe("zip bombs are refused before the parser starts", () => {
     // It really unpacks far past the cap: zlib says so, independently of the reader.
     expect(inflateRawSync(entryData(zip)).length).toBeGreaterThan(MAX_UNPACKED_BYTES);
     expect(zipUnpackedBytes(zip)).toBeGreaterThan(MAX_UNPACKED_BYTES);
-    await expect(readSheet(zip)).rejects.toMatchObject({ status: 413, message: expect.stringMatching(/unpacks to .*MiB/) });
+    await expect(readSheet(zip)).rejects.toMatchObject({
+      status: 413,
+      message: expect.stringMatching(/unpacks to .*MiB/),
+    });
     expect(started.workers).toBe(0);
   });
 
@@ -70,13 +83,19 @@ describe("zip bombs are refused before the parser starts", () => {
   });
 
   it("one 1 MiB stream listed 80 times in the directory (overlapping entries) counts 80 times", async () => {
-    const zip = zipBytes([{ name: "xl/media/a.bin", data: new Uint8Array(1024 * 1024), claim: { unpacked: 0 } }, ...workbookEntries()], { repeatFirst: 80 });
+    const zip = zipBytes(
+      [{ name: "xl/media/a.bin", data: new Uint8Array(1024 * 1024), claim: { unpacked: 0 } }, ...workbookEntries()],
+      { repeatFirst: 80 },
+    );
     await expect(readSheet(zip)).rejects.toMatchObject({ status: 413 });
     expect(started.workers).toBe(0);
   });
 
   it("a local header that claims another size than the directory (4 GiB) is damaged", async () => {
-    const zip = zipBytes([{ name: "xl/a.xml", data: new Uint8Array(100), claim: { unpacked: 100, localUnpacked: 0xffffffff } }, ...workbookEntries()]);
+    const zip = zipBytes([
+      { name: "xl/a.xml", data: new Uint8Array(100), claim: { unpacked: 100, localUnpacked: 0xffffffff } },
+      ...workbookEntries(),
+    ]);
     await expect(readSheet(zip)).rejects.toMatchObject({ status: 415, message: expect.stringMatching(/damaged/) });
     expect(started.workers).toBe(0);
   });

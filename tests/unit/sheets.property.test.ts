@@ -15,7 +15,12 @@ const TEST_TIMEOUT_MS = 240_000;
 const SEED = 20261207;
 const RUNS = { randomBytes: 200, randomText: 15, mutatedXlsx: 80, mutatedCsv: 25, splicedZips: 40 } as const;
 
-const PROTOTYPES = { Object: Object.prototype, Array: Array.prototype, String: String.prototype, Function: Function.prototype };
+const PROTOTYPES = {
+  Object: Object.prototype,
+  Array: Array.prototype,
+  String: String.prototype,
+  Function: Function.prototype,
+};
 type Shape = Record<string, Record<string, unknown>>;
 function prototypeShape(): Shape {
   const out: Shape = {};
@@ -31,14 +36,22 @@ function prototypeShape(): Shape {
 }
 const before = prototypeShape();
 
-function workbook(rows: (string | number | boolean)[][], opts: { sheets?: number; compression?: boolean } = {}): Uint8Array {
+function workbook(
+  rows: (string | number | boolean)[][],
+  opts: { sheets?: number; compression?: boolean } = {},
+): Uint8Array {
   const book = XLSX.utils.book_new();
-  for (let s = 0; s < (opts.sheets ?? 1); s++) XLSX.utils.book_append_sheet(book, XLSX.utils.aoa_to_sheet(rows), `S${s + 1}`);
-  return new Uint8Array(XLSX.write(book, { type: "buffer", bookType: "xlsx", compression: opts.compression ?? true }) as Buffer);
+  for (let s = 0; s < (opts.sheets ?? 1); s++)
+    XLSX.utils.book_append_sheet(book, XLSX.utils.aoa_to_sheet(rows), `S${s + 1}`);
+  return new Uint8Array(
+    XLSX.write(book, { type: "buffer", bookType: "xlsx", compression: opts.compression ?? true }) as Buffer,
+  );
 }
 const utf8 = (s: string) => new TextEncoder().encode(s);
 
-const FIXTURE_CSV = new Uint8Array(readFileSync(path.join(process.cwd(), "tests/fixtures/sheets/prototype-pollution.csv")));
+const FIXTURE_CSV = new Uint8Array(
+  readFileSync(path.join(process.cwd(), "tests/fixtures/sheets/prototype-pollution.csv")),
+);
 const ORDER_ROWS = [
   ["Order number", "Line", "SKU", "Quantity", "Cut-off", "Priority"],
   ["SO-1001", 1, "BOLT-M8", 12, "2026-12-01 10:00", 1],
@@ -48,14 +61,27 @@ const ORDER_ROWS = [
 const XLSX_SEEDS = [
   workbook(ORDER_ROWS),
   workbook(ORDER_ROWS, { compression: false }),
-  workbook([["__proto__", "constructor", "prototype"], ["=1+1", "@SUM(A1)", true]], { sheets: 2 }),
+  workbook(
+    [
+      ["__proto__", "constructor", "prototype"],
+      ["=1+1", "@SUM(A1)", true],
+    ],
+    { sheets: 2 },
+  ),
   workbook([["SKU", "Description"], ...Array.from({ length: 30 }, (_, i) => [`SKU-${i}`, "x".repeat(i * 3)])]),
 ];
-const CSV_SEEDS = [FIXTURE_CSV, utf8("\uFEFFcode,qty\nÅ-1,007\n\n,\n\"a,b\",\"say \"\"hi\"\"\"\n"), utf8(XLSX.utils.sheet_to_csv(XLSX.utils.aoa_to_sheet(ORDER_ROWS)))];
+const CSV_SEEDS = [
+  FIXTURE_CSV,
+  utf8('\uFEFFcode,qty\nÅ-1,007\n\n,\n"a,b","say ""hi"""\n'),
+  utf8(XLSX.utils.sheet_to_csv(XLSX.utils.aoa_to_sheet(ORDER_ROWS))),
+];
 
 /** A workbook written fresh for the case, from generated cells. */
 const freshWorkbook = fc
-  .array(fc.array(fc.oneof(fc.string({ maxLength: 12 }), fc.integer(), fc.boolean()), { minLength: 1, maxLength: 5 }), { minLength: 1, maxLength: 6 })
+  .array(fc.array(fc.oneof(fc.string({ maxLength: 12 }), fc.integer(), fc.boolean()), { minLength: 1, maxLength: 5 }), {
+    minLength: 1,
+    maxLength: 6,
+  })
   .map((rows) => workbook(rows));
 const xlsxSeed = fc.oneof(fc.constantFrom(...XLSX_SEEDS), freshWorkbook);
 
@@ -181,36 +207,67 @@ async function check<T>(property: keyof typeof RUNS, arb: fc.Arbitrary<T>, toByt
 afterAll(() => expect(prototypeShape()).toEqual(before));
 
 describe("the sheet reader under hostile bytes", () => {
-  it(`random bytes, bare and behind a zip signature (${RUNS.randomBytes} cases)`, async () => {
-    await check(
-      "randomBytes",
-      fc.tuple(fc.boolean(), fc.uint8Array({ minLength: 1, maxLength: 4096 })),
-      ([zip, b]) => (zip ? concat(new Uint8Array([0x50, 0x4b, 3, 4]), b) : b),
-    );
-  }, TEST_TIMEOUT_MS);
+  it(
+    `random bytes, bare and behind a zip signature (${RUNS.randomBytes} cases)`,
+    async () => {
+      await check(
+        "randomBytes",
+        fc.tuple(fc.boolean(), fc.uint8Array({ minLength: 1, maxLength: 4096 })),
+        ([zip, b]) => (zip ? concat(new Uint8Array([0x50, 0x4b, 3, 4]), b) : b),
+      );
+    },
+    TEST_TIMEOUT_MS,
+  );
 
-  it(`random text read as CSV (${RUNS.randomText} cases)`, async () => {
-    await check("randomText", fc.string({ unit: "binary", minLength: 1, maxLength: 2000 }), utf8);
-    // Text with no NUL is CSV; the parser must have answered for most of it.
-    expect((tally.randomText!.rows ?? 0) + (tally.randomText!["422"] ?? 0)).toBeGreaterThan(RUNS.randomText / 2);
-  }, TEST_TIMEOUT_MS);
+  it(
+    `random text read as CSV (${RUNS.randomText} cases)`,
+    async () => {
+      await check("randomText", fc.string({ unit: "binary", minLength: 1, maxLength: 2000 }), utf8);
+      // Text with no NUL is CSV; the parser must have answered for most of it.
+      expect((tally.randomText!.rows ?? 0) + (tally.randomText!["422"] ?? 0)).toBeGreaterThan(RUNS.randomText / 2);
+    },
+    TEST_TIMEOUT_MS,
+  );
 
-  it(`workbooks with flipped bits, truncated, with byte ranges inserted or deleted (${RUNS.mutatedXlsx} cases)`, async () => {
-    await check("mutatedXlsx", fc.tuple(xlsxSeed, fc.array(mutation, { minLength: 1, maxLength: 3 })), ([b, ms]) => mutate(b, ms));
-    // Some damage lands in cell data the directory check cannot see, so the parser itself is exercised.
-    expect(tally.mutatedXlsx!.rows ?? 0).toBeGreaterThan(0);
-  }, TEST_TIMEOUT_MS);
+  it(
+    `workbooks with flipped bits, truncated, with byte ranges inserted or deleted (${RUNS.mutatedXlsx} cases)`,
+    async () => {
+      await check("mutatedXlsx", fc.tuple(xlsxSeed, fc.array(mutation, { minLength: 1, maxLength: 3 })), ([b, ms]) =>
+        mutate(b, ms),
+      );
+      // Some damage lands in cell data the directory check cannot see, so the parser itself is exercised.
+      expect(tally.mutatedXlsx!.rows ?? 0).toBeGreaterThan(0);
+    },
+    TEST_TIMEOUT_MS,
+  );
 
-  it(`CSV files with the same mutations (${RUNS.mutatedCsv} cases)`, async () => {
-    await check("mutatedCsv", fc.tuple(fc.constantFrom(...CSV_SEEDS), fc.array(mutation, { minLength: 1, maxLength: 3 })), ([b, ms]) => mutate(b, ms));
-    expect(tally.mutatedCsv!.rows ?? 0).toBeGreaterThan(0);
-  }, TEST_TIMEOUT_MS);
+  it(
+    `CSV files with the same mutations (${RUNS.mutatedCsv} cases)`,
+    async () => {
+      await check(
+        "mutatedCsv",
+        fc.tuple(fc.constantFrom(...CSV_SEEDS), fc.array(mutation, { minLength: 1, maxLength: 3 })),
+        ([b, ms]) => mutate(b, ms),
+      );
+      expect(tally.mutatedCsv!.rows ?? 0).toBeGreaterThan(0);
+    },
+    TEST_TIMEOUT_MS,
+  );
 
-  it(`workbooks whose zip entries are mixed from two, dropped or doubled, some then mutated (${RUNS.splicedZips} cases)`, async () => {
-    await check(
-      "splicedZips",
-      fc.tuple(xlsxSeed, xlsxSeed, fc.array(fc.nat(), { minLength: 1, maxLength: 12 }), fc.array(mutation, { maxLength: 1 })),
-      ([a, b, picks, ms]) => mutate(splice(a, b, picks), ms),
-    );
-  }, TEST_TIMEOUT_MS);
+  it(
+    `workbooks whose zip entries are mixed from two, dropped or doubled, some then mutated (${RUNS.splicedZips} cases)`,
+    async () => {
+      await check(
+        "splicedZips",
+        fc.tuple(
+          xlsxSeed,
+          xlsxSeed,
+          fc.array(fc.nat(), { minLength: 1, maxLength: 12 }),
+          fc.array(mutation, { maxLength: 1 }),
+        ),
+        ([a, b, picks, ms]) => mutate(splice(a, b, picks), ms),
+      );
+    },
+    TEST_TIMEOUT_MS,
+  );
 });

@@ -13,11 +13,25 @@ function workbook(rows: (string | number)[][]): Uint8Array {
 
 describe("reading spreadsheets", () => {
   it("reads an .xlsx into rows of strings", async () => {
-    const r = await readSheet(workbook([["a", "b"], [1, "x"]]));
-    expect(r).toEqual({ kind: "xlsx", rows: [["a", "b"], ["1", "x"]] });
+    const r = await readSheet(
+      workbook([
+        ["a", "b"],
+        [1, "x"],
+      ]),
+    );
+    expect(r).toEqual({
+      kind: "xlsx",
+      rows: [
+        ["a", "b"],
+        ["1", "x"],
+      ],
+    });
   });
   it("reads UTF-8 CSV", async () => {
-    expect((await readSheet(new TextEncoder().encode("\uFEFFcode,qty\nÅ-1,007\n"))).rows).toEqual([["code", "qty"], ["Å-1", "007"]]);
+    expect((await readSheet(new TextEncoder().encode("\uFEFFcode,qty\nÅ-1,007\n"))).rows).toEqual([
+      ["code", "qty"],
+      ["Å-1", "007"],
+    ]);
   });
   it("refuses binary that is not a workbook", () => {
     expect(() => sniffSheet(new Uint8Array([0x7f, 0x45, 0x4c, 0x46, 0, 0]))).toThrow(SheetError);
@@ -51,21 +65,29 @@ describe("zip size before unpacking", () => {
     expect(zipUnpackedBytes(bytes)).toBeGreaterThan(MAX_UNPACKED_BYTES);
     await expect(readSheet(bytes)).rejects.toMatchObject({ status: 413 });
   });
-  it("says null for a zip without a directory", () => expect(zipUnpackedBytes(new Uint8Array([0x50, 0x4b, 3, 4, 0, 0]))).toBeNull());
+  it("says null for a zip without a directory", () =>
+    expect(zipUnpackedBytes(new Uint8Array([0x50, 0x4b, 3, 4, 0, 0]))).toBeNull());
 });
 
 describe("writing spreadsheets", () => {
-  it.each(["=1+1", "+1", "-1", "@SUM(A1)", "\tx", "\rx"])("neutralises the formula-looking %j", (v) => expect(safeCell(v)).toBe(`'${v}`));
+  it.each(["=1+1", "+1", "-1", "@SUM(A1)", "\tx", "\rx"])("neutralises the formula-looking %j", (v) =>
+    expect(safeCell(v)).toBe(`'${v}`),
+  );
   it("leaves ordinary text and numbers alone", () => {
     expect(safeCell("A-01-1")).toBe("A-01-1");
     expect(safeCell(-3)).toBe(-3);
   });
-  it("quotes CSV cells that need it", () => expect(csvText([["a,b", 'say "hi"', "=x"]])).toBe('"a,b","say ""hi""",\'=x\r\n'));
+  it("quotes CSV cells that need it", () =>
+    expect(csvText([["a,b", 'say "hi"', "=x"]])).toBe('"a,b","say ""hi""",\'=x\r\n'));
 });
 
 describe("header mapping", () => {
   it("matches headers ignoring case, spaces and dashes, and names the missing ones", () => {
-    const { columns, problems } = mapColumns(["Location-Code", "QTY"], { code: ["Location code"], qty: ["Quantity", "qty"], sku: ["SKU"] }, ["code", "qty", "sku"]);
+    const { columns, problems } = mapColumns(
+      ["Location-Code", "QTY"],
+      { code: ["Location code"], qty: ["Quantity", "qty"], sku: ["SKU"] },
+      ["code", "qty", "sku"],
+    );
     expect(columns).toEqual({ code: 0, qty: 1 });
     expect(problems).toEqual([{ row: 1, message: "No column “SKU” in the header row." }]);
   });
@@ -79,13 +101,17 @@ describe("row numbers", () => {
 });
 
 describe("row cap", () => {
-  const csv = (dataRows: number) => new TextEncoder().encode("n\n" + Array.from({ length: dataRows }, (_, i) => String(i)).join("\n") + "\n");
+  const csv = (dataRows: number) =>
+    new TextEncoder().encode("n\n" + Array.from({ length: dataRows }, (_, i) => String(i)).join("\n") + "\n");
   it(`reads a sheet of exactly ${MAX_ROWS.toLocaleString("en")} data rows below its header`, async () => {
     const { rows } = await readSheet(csv(MAX_ROWS));
     expect(rows).toHaveLength(MAX_ROWS + 1);
     expect(rows.at(-1)).toEqual([String(MAX_ROWS - 1)]);
   });
   it("refuses one row more, saying to split the file", async () => {
-    await expect(readSheet(csv(MAX_ROWS + 1))).rejects.toMatchObject({ status: 413, message: expect.stringMatching(/Split it/) });
+    await expect(readSheet(csv(MAX_ROWS + 1))).rejects.toMatchObject({
+      status: 413,
+      message: expect.stringMatching(/Split it/),
+    });
   });
 });

@@ -24,13 +24,16 @@ describe("where sign-in may send a person next", () => {
     expect(safeNextPath(next, ORIGIN)).toBeNull();
   });
 
-  it.each(["/api/users", "/sign-in?next=/x", "/%73ign-in", ""])("drops %s (the sign-in page and the API are no place to land)", (p) =>
-    expect(safeNextPath(p, ORIGIN)).toBeNull(),
+  it.each(["/api/users", "/sign-in?next=/x", "/%73ign-in", ""])(
+    "drops %s (the sign-in page and the API are no place to land)",
+    (p) => expect(safeNextPath(p, ORIGIN)).toBeNull(),
   );
 
-  it("keeps a path of this site, with its query", () => expect(safeNextPath("/admin/users?x=1", ORIGIN)).toBe("/admin/users?x=1"));
+  it("keeps a path of this site, with its query", () =>
+    expect(safeNextPath("/admin/users?x=1", ORIGIN)).toBe("/admin/users?x=1"));
 
-  it("keeps a full address of this very site, as its path", () => expect(safeNextPath(`${ORIGIN}/waves/3`, ORIGIN)).toBe("/waves/3"));
+  it("keeps a full address of this very site, as its path", () =>
+    expect(safeNextPath(`${ORIGIN}/waves/3`, ORIGIN)).toBe("/waves/3"));
 
   it("what it keeps stays on this site when the browser resolves it again", () => {
     for (const raw of ["/waves/%2e%2e/admin", "/a/../b?c=//d", "/x#//evil.example"]) {

@@ -20,7 +20,11 @@ describe("zod's messages in words a person can act on", () => {
   });
   it("says what is missing and what kind of value a field takes", () => {
     expect(issues(schema, {})).toMatchObject({ name: "This is missing.", count: "This is missing." });
-    expect(issues(schema, { name: 5, count: "3", list: {} })).toMatchObject({ name: "Give text here.", count: "Give a number here.", list: "Give a list here." });
+    expect(issues(schema, { name: 5, count: "3", list: {} })).toMatchObject({
+      name: "Give text here.",
+      count: "Give a number here.",
+      list: "Give a list here.",
+    });
     expect(issues(schema, { count: 1.5 })).toMatchObject({ count: "Give a whole number here." });
   });
   it("states limits, choices and formats", () => {
@@ -35,7 +39,11 @@ describe("zod's messages in words a person can act on", () => {
     expect(issues(schema, { name: "abcd" }).name).toBe("At most 3 characters.");
   });
   it("keeps a message the schema sets itself", () => {
-    expect(issues(z.object({ version: rowVersion() }), { version: 2 ** 31 })).toEqual({ version: "Reload the page: that is not a version Trailbin gave out." });
-    expect(issues(z.string().min(12, "Use at least 12 characters."), "short")).toEqual({ "(body)": "Use at least 12 characters." });
+    expect(issues(z.object({ version: rowVersion() }), { version: 2 ** 31 })).toEqual({
+      version: "Reload the page: that is not a version Trailbin gave out.",
+    });
+    expect(issues(z.string().min(12, "Use at least 12 characters."), "short")).toEqual({
+      "(body)": "Use at least 12 characters.",
+    });
   });
 });

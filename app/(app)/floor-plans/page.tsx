@@ -20,7 +20,11 @@ export default async function FloorPlansPage() {
         lead="The drawing of each warehouse floor: aisles, cross-aisles, rack runs, depots and drop-offs. Waves are planned on a published layout version, which never changes afterwards."
       />
       {plans.length === 0 ? (
-        <EmptyState title="No floor plan yet">{canEdit ? "Start one below: give it a name and the floor's size." : "A layout admin has not drawn this site's floor yet."}</EmptyState>
+        <EmptyState title="No floor plan yet">
+          {canEdit
+            ? "Start one below: give it a name and the floor's size."
+            : "A layout admin has not drawn this site's floor yet."}
+        </EmptyState>
       ) : (
         <ul className="grid gap-4 md:grid-cols-2">
           {plans.map((p) => (
@@ -28,14 +32,20 @@ export default async function FloorPlansPage() {
               <h2>{p.name}</h2>
               <p className="text-ink-soft">
                 Draft last saved {new Date(p.draftUpdatedAt).toLocaleString("en-GB")}
-                {p.latestVersion && p.latestVersion.fromDraftVersion === p.draftVersion ? " — the same as the published version." : p.latestVersion ? " — it has changes not yet published." : "."}
+                {p.latestVersion && p.latestVersion.fromDraftVersion === p.draftVersion
+                  ? " — the same as the published version."
+                  : p.latestVersion
+                    ? " — it has changes not yet published."
+                    : "."}
                 <br />
                 {p.latestVersion
                   ? `Published as version ${p.latestVersion.number} on ${new Date(p.latestVersion.publishedAt).toLocaleString("en-GB")} with ${p.latestVersion.binCount.toLocaleString("en")} bins.`
                   : "Not published yet."}
               </p>
               <div className="flex flex-wrap gap-2">
-                <Link className="btn-primary" href={`/floor-plans/${p.id}`}>{canEdit ? "Open the draft" : "View the draft"}</Link>
+                <Link className="btn-primary" href={`/floor-plans/${p.id}`}>
+                  {canEdit ? "Open the draft" : "View the draft"}
+                </Link>
                 {p.latestVersion && (
                   <Link className="btn-quiet" href={`/floor-plans/${p.id}/versions/${p.latestVersion.number}`}>
                     Version {p.latestVersion.number}

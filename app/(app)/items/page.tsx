@@ -12,7 +12,10 @@ export default async function ItemsPage() {
   const canPlan = roleMay(user.role, "waves.plan");
   return (
     <>
-      <PageHeader title="Item master" lead="Every SKU with its unit of measure, unit weight and pick bins. The first pick bin of an SKU is its main one." />
+      <PageHeader
+        title="Item master"
+        lead="Every SKU with its unit of measure, unit weight and pick bins. The first pick bin of an SKU is its main one."
+      />
       <ItemsScreen canPlan={canPlan} versions={canPlan ? await importVersionOptions(user.siteId) : []} />
     </>
   );

@@ -14,13 +14,24 @@ export default async function OrdersPage() {
   const site = await getSite(user.siteId);
   return (
     <>
-      <PageHeader title="Orders" lead="Orders imported from order-line spreadsheets, with their cut-off and priority. Open orders are the ones waves are planned from." />
+      <PageHeader
+        title="Orders"
+        lead="Orders imported from order-line spreadsheets, with their cut-off and priority. Open orders are the ones waves are planned from."
+      />
       {canPlan && (
         <p className="mb-4 text-sm">
-          Trying Trailbin out? Import <a className="font-semibold underline" href="/demo/bramblegate-orders-2026-11-28.csv" download>the demo order sheet</a> (Saturday&apos;s invented orders for Bramblegate), then plan a wave from them.
+          Trying Trailbin out? Import{" "}
+          <a className="font-semibold underline" href="/demo/bramblegate-orders-2026-11-28.csv" download>
+            the demo order sheet
+          </a>{" "}
+          (Saturday&apos;s invented orders for Bramblegate), then plan a wave from them.
         </p>
       )}
-      <OrdersScreen canPlan={canPlan} versions={canPlan ? await importVersionOptions(user.siteId) : []} timeZone={site?.timezone ?? "UTC"} />
+      <OrdersScreen
+        canPlan={canPlan}
+        versions={canPlan ? await importVersionOptions(user.siteId) : []}
+        timeZone={site?.timezone ?? "UTC"}
+      />
     </>
   );
 }

@@ -18,7 +18,10 @@ export default async function WavesPage() {
   const [waves, layouts] = await Promise.all([listWaves(user.siteId), waveLayoutChoices(user.siteId)]);
   return (
     <>
-      <PageHeader title="Waves" lead="Groups of orders cut into cart-sized batches, each with an exact walking route and its savings against the usual walk through the aisles." />
+      <PageHeader
+        title="Waves"
+        lead="Groups of orders cut into cart-sized batches, each with an exact walking route and its savings against the usual walk through the aisles."
+      />
       {waves.length === 0 ? (
         <EmptyState title="No waves yet">Import orders, then start a wave below.</EmptyState>
       ) : (
@@ -27,21 +30,31 @@ export default async function WavesPage() {
             <thead className="bg-paper-sunk">
               <tr>
                 {["Wave", "Status", "Orders", "Batches", "Planned walk", "Usual walk", "Savings", "Layout"].map((h) => (
-                  <th key={h} scope="col" className="px-3 py-2">{h}</th>
+                  <th key={h} scope="col" className="px-3 py-2">
+                    {h}
+                  </th>
                 ))}
               </tr>
             </thead>
             <tbody>
               {waves.map((w) => (
                 <tr key={w.id} className="border-t border-rack-light">
-                  <td className="px-3 py-2"><Link className="font-semibold underline" href={`/waves/${w.id}`}>{w.name}</Link></td>
+                  <td className="px-3 py-2">
+                    <Link className="font-semibold underline" href={`/waves/${w.id}`}>
+                      {w.name}
+                    </Link>
+                  </td>
                   <td className="px-3 py-2">{STATUS[w.status]}</td>
                   <td className="px-3 py-2">{w.orderCount}</td>
                   <td className="px-3 py-2">{w.batchCount || "—"}</td>
                   <td className="px-3 py-2">{w.distanceMm === null ? "—" : metres(w.distanceMm)}</td>
                   <td className="px-3 py-2">{w.baselineMm === null ? "—" : metres(w.baselineMm)}</td>
-                  <td className="px-3 py-2">{w.distanceMm === null || w.baselineMm === null ? "—" : savingsPct(w.distanceMm, w.baselineMm)}</td>
-                  <td className="px-3 py-2">{w.floorPlanName} v{w.layoutVersionNumber}</td>
+                  <td className="px-3 py-2">
+                    {w.distanceMm === null || w.baselineMm === null ? "—" : savingsPct(w.distanceMm, w.baselineMm)}
+                  </td>
+                  <td className="px-3 py-2">
+                    {w.floorPlanName} v{w.layoutVersionNumber}
+                  </td>
                 </tr>
               ))}
             </tbody>

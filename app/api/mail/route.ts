@@ -10,6 +10,10 @@ export const GET = route({ access: "users.manage" }, async ({ user }) => {
   return Response.json({
     messages: messages.map((m) => mailAsSeenBy(m, user.email)),
     // The outbox rows are shown for their state only; the links in them are live, so no bodies here.
-    outbox: outbox.map(({ text: _t, html: _h, ...rest }) => ({ ...rest, subject: hideLinkTokens(rest.subject), lastError: hideLinkTokens(rest.lastError) })),
+    outbox: outbox.map(({ text: _t, html: _h, ...rest }) => ({
+      ...rest,
+      subject: hideLinkTokens(rest.subject),
+      lastError: hideLinkTokens(rest.lastError),
+    })),
   });
 });

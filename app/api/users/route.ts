@@ -30,6 +30,10 @@ const NewUser = z.object({
     .optional(),
 });
 
-export const GET = route({ access: "users.manage" }, async ({ user }) => Response.json({ users: await listUsers(user.siteId) }));
+export const GET = route({ access: "users.manage" }, async ({ user }) =>
+  Response.json({ users: await listUsers(user.siteId) }),
+);
 
-export const POST = route({ access: "users.manage", body: NewUser }, async ({ user, body, ip }) => Response.json(await addUser(user, body, ip), { status: 201 }));
+export const POST = route({ access: "users.manage", body: NewUser }, async ({ user, body, ip }) =>
+  Response.json(await addUser(user, body, ip), { status: 201 }),
+);

@@ -21,6 +21,10 @@ const NewWave = z.object({
   priorities: z.array(z.number().int().min(1).max(3)).max(3).optional(),
 });
 
-export const GET = route({ access: "waves.read" }, async ({ user }) => Response.json({ waves: await listWaves(user.siteId) }));
+export const GET = route({ access: "waves.read" }, async ({ user }) =>
+  Response.json({ waves: await listWaves(user.siteId) }),
+);
 
-export const POST = route({ access: "waves.plan", body: NewWave }, async ({ user, body, ip }) => Response.json(await openWave(user, body, ip), { status: 201 }));
+export const POST = route({ access: "waves.plan", body: NewWave }, async ({ user, body, ip }) =>
+  Response.json(await openWave(user, body, ip), { status: 201 }),
+);

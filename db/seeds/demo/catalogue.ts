@@ -25,18 +25,35 @@ function fasteners(): CatalogueItem[] {
   for (const d of [6, 8, 10, 12]) {
     for (const l of [30, 50, 80]) {
       const per = d >= 12 ? 50 : 100;
-      out.push(item(`HB-M${d}X${l}-Z`, `M${d} × ${l} mm hex bolt, zinc, box of ${per}`, "BOX", boltG(d, l) * per + 120));
+      out.push(
+        item(`HB-M${d}X${l}-Z`, `M${d} × ${l} mm hex bolt, zinc, box of ${per}`, "BOX", boltG(d, l) * per + 120),
+      );
     }
   }
   for (const d of [6, 8, 10, 12, 16]) {
-    out.push(item(`HN-M${d}-Z`, `M${d} hex nut, zinc, box of 200`, "BOX", 0.45 * d * d * 200 / 10 + 80));
-    out.push(item(`WA-M${d}-Z`, `M${d} flat washer form A, zinc, box of 500`, "BOX", 0.12 * d * d * 500 / 10 + 80));
+    out.push(item(`HN-M${d}-Z`, `M${d} hex nut, zinc, box of 200`, "BOX", (0.45 * d * d * 200) / 10 + 80));
+    out.push(item(`WA-M${d}-Z`, `M${d} flat washer form A, zinc, box of 500`, "BOX", (0.12 * d * d * 500) / 10 + 80));
   }
-  for (const [d, l] of [[3.5, 30], [4, 40], [4, 50], [5, 60], [5, 80], [6, 100]] as const) {
-    out.push(item(`WS-${d * 10}X${l}`, `${d} × ${l} mm wood screw, countersunk, yellow passivated, box of 200`, "BOX", 0.006 * d * d * l * 200 / 10 + 60));
+  for (const [d, l] of [
+    [3.5, 30],
+    [4, 40],
+    [4, 50],
+    [5, 60],
+    [5, 80],
+    [6, 100],
+  ] as const) {
+    out.push(
+      item(
+        `WS-${d * 10}X${l}`,
+        `${d} × ${l} mm wood screw, countersunk, yellow passivated, box of 200`,
+        "BOX",
+        (0.006 * d * d * l * 200) / 10 + 60,
+      ),
+    );
   }
   for (const d of [6, 8, 10]) out.push(item(`WP-${d}`, `${d} mm nylon wall plug, pack of 100`, "PK", d * 12));
-  for (const d of [8, 10, 12]) out.push(item(`TR-M${d}-1M`, `M${d} threaded rod, zinc, 1 m length`, "EA", 0.62 * d * d * 10));
+  for (const d of [8, 10, 12])
+    out.push(item(`TR-M${d}-1M`, `M${d} threaded rod, zinc, 1 m length`, "EA", 0.62 * d * d * 10));
   for (const d of [8, 10, 12]) out.push(item(`AB-M${d}`, `M${d} through-bolt anchor, pack of 10`, "PK", d * d * 9));
   for (const l of [25, 40, 65]) out.push(item(`RN-${l}`, `${l} mm round wire nail, bright, 1 kg box`, "BOX", 1050));
   return out;
@@ -59,8 +76,18 @@ function fittings(): CatalogueItem[] {
   for (const mm of [150, 250]) out.push(item(`TB-${mm}`, `${mm} mm tower bolt, black`, "EA", mm * 1.1));
   out.push(item("HP-450", "450 mm T-hinge, galvanised", "EA", 520));
   out.push(item("GL-KIT", "gate latch kit, galvanised", "EA", 380));
-  for (const [mm, gPerM] of [[4, 330], [6, 760], [8, 1350]] as const) out.push(item(`CHN-${mm}-G`, `${mm} mm galvanised welded chain, cut to length`, "M", gPerM));
-  for (const [mm, gPerM] of [[6, 25], [10, 65], [12, 95]] as const) out.push(item(`RP-${mm}`, `${mm} mm polypropylene rope, cut to length`, "M", gPerM));
+  for (const [mm, gPerM] of [
+    [4, 330],
+    [6, 760],
+    [8, 1350],
+  ] as const)
+    out.push(item(`CHN-${mm}-G`, `${mm} mm galvanised welded chain, cut to length`, "M", gPerM));
+  for (const [mm, gPerM] of [
+    [6, 25],
+    [10, 65],
+    [12, 95],
+  ] as const)
+    out.push(item(`RP-${mm}`, `${mm} mm polypropylene rope, cut to length`, "M", gPerM));
   for (const mm of [5, 8]) out.push(item(`SH-${mm}`, `M${mm} galvanised bow shackle`, "EA", mm * mm * 1.6));
   for (const mm of [25, 50]) out.push(item(`PC-${mm}`, `${mm} mm pipe clip, pack of 10`, "PK", mm * 3));
   out.push(item("PTFE-12", "PTFE thread seal tape, 12 m × 12 mm", "EA", 15));

@@ -56,7 +56,8 @@ export function bramblegateDocument(): EditorDocument {
   }
 
   const oneWay = [];
-  for (let y = MIDDLE + 1; y < FRONT; y++) oneWay.push({ cell: y * WIDTH + walkColumn(ONE_WAY_AISLE), dir: "N" as const });
+  for (let y = MIDDLE + 1; y < FRONT; y++)
+    oneWay.push({ cell: y * WIDTH + walkColumn(ONE_WAY_AISLE), dir: "N" as const });
 
   return {
     format: DOCUMENT_FORMAT,
@@ -98,7 +99,15 @@ function walkColumn(aisle: number): number {
 }
 
 /** A vertical run on column x from row y0 to y1, shortened where a building column stands. */
-function run(aisle: number, side: "odd" | "even", half: "front" | "back", x: number, y0: number, y1: number, firstBay: number): RackRun {
+function run(
+  aisle: number,
+  side: "odd" | "even",
+  half: "front" | "back",
+  x: number,
+  y0: number,
+  y1: number,
+  firstBay: number,
+): RackRun {
   let top = y0;
   let bottom = y1;
   for (const [cx, cy] of COLUMNS) {

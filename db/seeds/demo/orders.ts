@@ -125,7 +125,14 @@ export function demoOrders(items: readonly DemoItem[], options: DemoOrderOptions
     for (let k = 1; k <= perDay; k++) {
       const nLines = Math.min(items.length, pick([1, 2, 3, 4, 5, 6, 7, 8], LINE_WEIGHTS, rand));
       const chosen = new Set<DemoItem>();
-      while (chosen.size < nLines) chosen.add(pick(popularity.map((p) => p.it), popularity.map((p) => p.w), rand));
+      while (chosen.size < nLines)
+        chosen.add(
+          pick(
+            popularity.map((p) => p.it),
+            popularity.map((p) => p.w),
+            rand,
+          ),
+        );
       // About one order in twelve is collected at the trade counter and has no carrier cut-off.
       const cutoff = rand() < 1 / 12 ? null : `${ymd}T${pick(CUTOFFS, [3, 3, 2, 2], rand)}:00.000Z`;
       const customer = CUSTOMERS[Math.floor(rand() * CUSTOMERS.length)] as string;

@@ -13,7 +13,8 @@ export function randomInstance(n: number, seed: number, symmetric: boolean): Cos
       }
     }
   } else {
-    for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) cost[i * n + j] = i === j ? 0 : 1 + Math.floor(rand() * 9999);
+    for (let i = 0; i < n; i++)
+      for (let j = 0; j < n; j++) cost[i * n + j] = i === j ? 0 : 1 + Math.floor(rand() * 9999);
   }
   return { n, cost };
 }

@@ -15,8 +15,20 @@ export function mtzLp(cm: CostMatrix, start: number, end: number, stops: readonl
   const lines: string[] = ["Minimize", " obj:"];
   for (const [i, j] of arcs) lines.push(` + ${cm.cost[i * cm.n + j]} ${x(i, j)}`);
   lines.push("Subject To");
-  for (const i of tails) lines.push(` out_${i}: ${arcs.filter(([a]) => a === i).map(([a, b]) => x(a, b)).join(" + ")} = 1`);
-  for (const j of heads) lines.push(` in_${j}: ${arcs.filter(([, b]) => b === j).map(([a, b]) => x(a, b)).join(" + ")} = 1`);
+  for (const i of tails)
+    lines.push(
+      ` out_${i}: ${arcs
+        .filter(([a]) => a === i)
+        .map(([a, b]) => x(a, b))
+        .join(" + ")} = 1`,
+    );
+  for (const j of heads)
+    lines.push(
+      ` in_${j}: ${arcs
+        .filter(([, b]) => b === j)
+        .map(([a, b]) => x(a, b))
+        .join(" + ")} = 1`,
+    );
   for (const i of stops) {
     for (const j of stops) {
       if (i !== j) lines.push(` mtz_${i}_${j}: u_${i} - u_${j} + ${m} ${x(i, j)} <= ${m - 1}`);

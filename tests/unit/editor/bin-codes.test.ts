@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { bayAt, documentBins, formatCode, rackRunBins, rackRunCells, unusedCustomCodes } from "@/lib/floor-plan/bin-codes";
+import {
+  bayAt,
+  documentBins,
+  formatCode,
+  rackRunBins,
+  rackRunCells,
+  unusedCustomCodes,
+} from "@/lib/floor-plan/bin-codes";
 import { rackRun } from "./fixtures";
 
 describe("formatCode", () => {
@@ -17,8 +24,15 @@ describe("formatCode", () => {
 
 describe("rackRunCells", () => {
   it("walks along x for a horizontal run and along y for a vertical one", () => {
-    expect(rackRunCells({ x: 2, y: 5, orientation: "h", length: 3 })).toEqual([{ x: 2, y: 5 }, { x: 3, y: 5 }, { x: 4, y: 5 }]);
-    expect(rackRunCells({ x: 2, y: 5, orientation: "v", length: 2 })).toEqual([{ x: 2, y: 5 }, { x: 2, y: 6 }]);
+    expect(rackRunCells({ x: 2, y: 5, orientation: "h", length: 3 })).toEqual([
+      { x: 2, y: 5 },
+      { x: 3, y: 5 },
+      { x: 4, y: 5 },
+    ]);
+    expect(rackRunCells({ x: 2, y: 5, orientation: "v", length: 2 })).toEqual([
+      { x: 2, y: 5 },
+      { x: 2, y: 6 },
+    ]);
   });
 });
 
@@ -30,12 +44,25 @@ describe("rackRunBins", () => {
   });
   it("numbers odd bays on one side and even on the other with bayStep 2", () => {
     const odd = rackRunBins(rackRun({ id: "odd", x: 0, y: 0, length: 3, levels: 1, bayStep: 2, firstBay: 1 }));
-    const even = rackRunBins(rackRun({ id: "even", x: 0, y: 2, length: 3, levels: 1, bayStep: 2, firstBay: 2, facing: "N" }));
+    const even = rackRunBins(
+      rackRun({ id: "even", x: 0, y: 2, length: 3, levels: 1, bayStep: 2, firstBay: 2, facing: "N" }),
+    );
     expect(odd.map((b) => b.bay)).toEqual([1, 3, 5]);
     expect(even.map((b) => b.bay)).toEqual([2, 4, 6]);
   });
   it("counts bays down along the run when the direction is reversed", () => {
-    const run = rackRun({ id: "R", x: 3, y: 1, orientation: "v", facing: "E", length: 4, levels: 1, bayStep: 2, firstBay: 1, bayDirection: "reverse" });
+    const run = rackRun({
+      id: "R",
+      x: 3,
+      y: 1,
+      orientation: "v",
+      facing: "E",
+      length: 4,
+      levels: 1,
+      bayStep: 2,
+      firstBay: 1,
+      bayDirection: "reverse",
+    });
     expect(rackRunBins(run).map((b) => [b.y, b.bay])).toEqual([
       [1, 7],
       [2, 5],
@@ -45,15 +72,38 @@ describe("rackRunBins", () => {
     expect(bayAt(run, 3)).toBe(1);
   });
   it("uses an imported custom code where one is given for that bay and level", () => {
-    const run = rackRun({ id: "R", x: 0, y: 0, length: 2, levels: 2, customCodes: [{ bay: 2, level: 1, code: "SPECIAL-1" }] });
+    const run = rackRun({
+      id: "R",
+      x: 0,
+      y: 0,
+      length: 2,
+      levels: 2,
+      customCodes: [{ bay: 2, level: 1, code: "SPECIAL-1" }],
+    });
     expect(rackRunBins(run).map((b) => b.code)).toEqual(["01-001-1", "01-001-2", "SPECIAL-1", "01-002-2"]);
   });
   it("reports custom codes for bays or levels the run no longer has", () => {
-    const run = rackRun({ id: "R", x: 0, y: 0, length: 2, levels: 2, customCodes: [{ bay: 2, level: 2, code: "KEEP" }, { bay: 3, level: 1, code: "GONE" }, { bay: 1, level: 3, code: "HIGH" }] });
+    const run = rackRun({
+      id: "R",
+      x: 0,
+      y: 0,
+      length: 2,
+      levels: 2,
+      customCodes: [
+        { bay: 2, level: 2, code: "KEEP" },
+        { bay: 3, level: 1, code: "GONE" },
+        { bay: 1, level: 3, code: "HIGH" },
+      ],
+    });
     expect(unusedCustomCodes(run).map((c) => c.code)).toEqual(["GONE", "HIGH"]);
   });
   it("lists a document's bins run after run", () => {
-    const bins = documentBins({ rackRuns: [rackRun({ id: "A", x: 0, y: 0, length: 1, levels: 1 }), rackRun({ id: "B", x: 0, y: 1, length: 1, levels: 1, aisle: 2 })] });
+    const bins = documentBins({
+      rackRuns: [
+        rackRun({ id: "A", x: 0, y: 0, length: 1, levels: 1 }),
+        rackRun({ id: "B", x: 0, y: 1, length: 1, levels: 1, aisle: 2 }),
+      ],
+    });
     expect(bins.map((b) => `${b.runId}:${b.code}`)).toEqual(["A:01-001-1", "B:02-001-1"]);
   });
 });

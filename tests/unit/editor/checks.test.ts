@@ -67,7 +67,10 @@ describe("checkDocument", () => {
   });
 
   it("reports a walk that cannot be made between a walled-off depot and drop-off", () => {
-    const doc = docFromRows(["xxxxxxx", "xfffxfx", "xfffxfx", "xxxxxxx"], { depots: [depot(1, 1)], dropoffs: [dropoff(5, 1)] });
+    const doc = docFromRows(["xxxxxxx", "xfffxfx", "xfffxfx", "xxxxxxx"], {
+      depots: [depot(1, 1)],
+      dropoffs: [dropoff(5, 1)],
+    });
     const ps = checkDocument(doc);
     expect(kinds(ps)).toEqual(["no-path", "no-bins"]);
     expect(ps[0]).toMatchObject({ severity: "error", cells: [at(1, 1), at(5, 1)] });
@@ -106,7 +109,12 @@ describe("checkDocument", () => {
         { cell: at(1, y), dir: "N" as const },
         { cell: at(5, y), dir: "S" as const },
       ]);
-      const doc = docFromRows(rows, { depots: [depot(1, 4)], dropoffs: [dropoff(5, 4)], oneWay, rackRuns: [rackRun({ id: "M", x: 2, y: 2, orientation: "v", length: 2, facing: "W" })] });
+      const doc = docFromRows(rows, {
+        depots: [depot(1, 4)],
+        dropoffs: [dropoff(5, 4)],
+        oneWay,
+        rackRuns: [rackRun({ id: "M", x: 2, y: 2, orientation: "v", length: 2, facing: "W" })],
+      });
       expect(checkDocument(doc)).toEqual([]);
     });
     it("report a depot cut from the drop-off by marks alone", () => {
@@ -136,10 +144,14 @@ describe("checkDocument", () => {
 
   it("flags two runs numbered alike as one problem", () => {
     const doc = small();
-    doc.rackRuns.push(rackRun({ id: "C", x: 5, y: 2, orientation: "v", length: 2, facing: "W", bayStep: 2, firstBay: 1 }));
+    doc.rackRuns.push(
+      rackRun({ id: "C", x: 5, y: 2, orientation: "v", length: 2, facing: "W", bayStep: 2, firstBay: 1 }),
+    );
     const ps = checkDocument(doc);
     expect(kinds(ps)).toEqual(["duplicate-code"]);
-    expect(ps[0]?.message).toMatch(/A \(aisle 1\) and rack run C \(aisle 1\) give the same location codes \(4 codes: 01-001-1/);
+    expect(ps[0]?.message).toMatch(
+      /A \(aisle 1\) and rack run C \(aisle 1\) give the same location codes \(4 codes: 01-001-1/,
+    );
     expect(ps[0]?.cells).toEqual([at(1, 2), at(5, 2), at(1, 3), at(5, 3)]);
   });
 
@@ -189,7 +201,18 @@ describe("checkDocument", () => {
     // Rack runs two cells apart with a cross-aisle every 30 rows: every bin faces a walkway.
     for (let band = 0; band < 5; band++) {
       for (let k = 0; k < 26; k++) {
-        rackRuns.push(rackRun({ id: `b${band}k${k}`, x: 2 + k * 7, y: 2 + band * 30, orientation: "v", length: 27, facing: k % 2 ? "W" : "E", aisle: band * 100 + k + 1, levels: 3 }));
+        rackRuns.push(
+          rackRun({
+            id: `b${band}k${k}`,
+            x: 2 + k * 7,
+            y: 2 + band * 30,
+            orientation: "v",
+            length: 27,
+            facing: k % 2 ? "W" : "E",
+            aisle: band * 100 + k + 1,
+            levels: 3,
+          }),
+        );
       }
     }
     const doc = docFromRows(rows, { rackRuns, depots: [depot(1, 1)], dropoffs: [dropoff(198, 148)] });
@@ -205,11 +228,16 @@ describe("agreement with the routing engine's validateDrawing", () => {
     dropoffs: [dropoff(5, 1)],
     oneWay: [2, 3].map((y) => ({ cell: at(3, y), dir: "S" as const })),
   });
-  const walled = docFromRows(["xxxxxxx", "xfffxfx", "xfffxfx", "xxxxxxx"], { depots: [depot(1, 1)], dropoffs: [dropoff(5, 1)] });
+  const walled = docFromRows(["xxxxxxx", "xfffxfx", "xfffxfx", "xxxxxxx"], {
+    depots: [depot(1, 1)],
+    dropoffs: [dropoff(5, 1)],
+  });
   const blind = small();
   blind.rackRuns[0] = { ...blind.rackRuns[0]!, facing: "W" };
   const dupes = small();
-  dupes.rackRuns.push(rackRun({ id: "C", x: 5, y: 2, orientation: "v", length: 2, facing: "W", bayStep: 2, firstBay: 1 }));
+  dupes.rackRuns.push(
+    rackRun({ id: "C", x: 5, y: 2, orientation: "v", length: 2, facing: "W", bayStep: 2, firstBay: 1 }),
+  );
   const cases: [string, EditorDocument][] = [
     ["a clean plan", small()],
     ["no depot", small({ depots: [] })],
@@ -219,8 +247,14 @@ describe("agreement with the routing engine's validateDrawing", () => {
     ["duplicate codes", dupes],
     ["a one-way dead end", spurTrap],
     ["walled-off depot and drop-off", walled],
-    ["a dead end that cannot be entered", { ...spurTrap, oneWay: spurTrap.oneWay.map((m) => ({ ...m, dir: "N" as const })) }],
-    ["a walled pocket", docFromRows(["xxxxxxx", "xfffffx", "xxxxxxx", "xfxfffx"], { depots: [depot(1, 1)], dropoffs: [dropoff(5, 1)] })],
+    [
+      "a dead end that cannot be entered",
+      { ...spurTrap, oneWay: spurTrap.oneWay.map((m) => ({ ...m, dir: "N" as const })) },
+    ],
+    [
+      "a walled pocket",
+      docFromRows(["xxxxxxx", "xfffffx", "xxxxxxx", "xfxfffx"], { depots: [depot(1, 1)], dropoffs: [dropoff(5, 1)] }),
+    ],
     ["Bramblegate", bramblegateDocument()],
   ];
 

@@ -1,5 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { applyCommand, describeCommand, execute, nextId, rectCells, resizeProblem, runProblem, type Command } from "@/lib/floor-plan/commands";
+import {
+  applyCommand,
+  describeCommand,
+  execute,
+  nextId,
+  rectCells,
+  resizeProblem,
+  runProblem,
+  type Command,
+} from "@/lib/floor-plan/commands";
 import { editorDocumentSchema } from "@/lib/floor-plan/document";
 import { docFromRows, rackRun, depot, dropoff } from "./fixtures";
 
@@ -7,7 +16,10 @@ const BG = "0123456789abcdef0123456789abcdef";
 
 function base() {
   return docFromRows(["xxxxxxxx", "xffffffx", "xffffffx", "xffffffx", "xffffffx", "xxxxxxxx"], {
-    rackRuns: [rackRun({ id: "R0", x: 1, y: 1, length: 2 }), rackRun({ id: "R1", x: 2, y: 3, length: 3, facing: "N", aisle: 2 })],
+    rackRuns: [
+      rackRun({ id: "R0", x: 1, y: 1, length: 2 }),
+      rackRun({ id: "R1", x: 2, y: 3, length: 3, facing: "N", aisle: 2 }),
+    ],
     oneWay: [
       { cell: 1 * 8 + 5, dir: "E" },
       { cell: 4 * 8 + 3, dir: "W" },
@@ -27,9 +39,18 @@ const changing: [string, Command][] = [
   ["mark one-way", { type: "set-one-way", cells: [17, 9, 13], dir: "S" }],
   ["clear a one-way mark", { type: "set-one-way", cells: [35], dir: null }],
   ["replace the marks", { type: "replace-one-way", marks: [{ cell: 10, dir: "N" }] }],
-  ["add a rack run", { type: "add-rack-run", run: rackRun({ id: "R9", x: 6, y: 1, orientation: "v", facing: "W", length: 3 }) }],
-  ["add a rack run at the front", { type: "add-rack-run", run: rackRun({ id: "R8", x: 1, y: 2, length: 1 }), index: 0 }],
-  ["change a rack run", { type: "update-rack-run", id: "R1", changes: { levels: 4, facing: "S", pattern: "B{bay}-{level}" } }],
+  [
+    "add a rack run",
+    { type: "add-rack-run", run: rackRun({ id: "R9", x: 6, y: 1, orientation: "v", facing: "W", length: 3 }) },
+  ],
+  [
+    "add a rack run at the front",
+    { type: "add-rack-run", run: rackRun({ id: "R8", x: 1, y: 2, length: 1 }), index: 0 },
+  ],
+  [
+    "change a rack run",
+    { type: "update-rack-run", id: "R1", changes: { levels: 4, facing: "S", pattern: "B{bay}-{level}" } },
+  ],
   ["turn a rack run", { type: "update-rack-run", id: "R0", changes: { orientation: "v", facing: "E", length: 3 } }],
   ["move a rack run", { type: "move-rack-run", id: "R1", dx: 1, dy: -1 }],
   ["delete the first rack run", { type: "delete-rack-run", id: "R0" }],
@@ -95,7 +116,10 @@ const refused: [string, Command][] = [
   ["resize below the minimum", { type: "resize", width: 3, height: 6 }],
   ["set a cell size out of range", { type: "set-cell-size", cellMm: 100 }],
   ["set a background with a bad file id", { type: "set-background", background: { fileId: "../etc", opacity: 0.5 } }],
-  ["a batch of refused commands", { type: "batch", label: "nothing", commands: [{ type: "delete-rack-run", id: "nope" }] }],
+  [
+    "a batch of refused commands",
+    { type: "batch", label: "nothing", commands: [{ type: "delete-rack-run", id: "nope" }] },
+  ],
 ];
 
 describe("refused and empty commands", () => {

@@ -3,25 +3,42 @@ import { editorReducer, initialEditorState, isDirty, type Intent } from "@/lib/f
 import { intentForKey } from "@/lib/floor-plan/shortcuts";
 import { depot, docFromRows, rackRun } from "./fixtures";
 
-const doc = docFromRows(["ffffff", "ffffff", "ffffff", "ffffff"], { rackRuns: [rackRun({ id: "R1", x: 0, y: 1 })], depots: [depot(5, 3)] });
+const doc = docFromRows(["ffffff", "ffffff", "ffffff", "ffffff"], {
+  rackRuns: [rackRun({ id: "R1", x: 0, y: 1 })],
+  depots: [depot(5, 3)],
+});
 const run = (intents: Intent[], canEdit = true) => intents.reduce(editorReducer, initialEditorState(doc, canEdit));
-const key = (key: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({ key, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
+const key = (
+  key: string,
+  mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {},
+) => ({ key, ctrlKey: false, metaKey: false, shiftKey: false, altKey: false, ...mods });
 
 describe("editor state", () => {
   it("moves and deletes the selected rack run, and undoes both", () => {
-    const s = run([{ type: "select", selection: { kind: "run", id: "R1" } }, { type: "nudge", dx: 1, dy: 1 }, { type: "delete-selection" }]);
+    const s = run([
+      { type: "select", selection: { kind: "run", id: "R1" } },
+      { type: "nudge", dx: 1, dy: 1 },
+      { type: "delete-selection" },
+    ]);
     expect(s.history.present.rackRuns).toEqual([]);
     expect(s.selection).toBeNull();
     const back = editorReducer(editorReducer(s, { type: "undo" }), { type: "undo" });
     expect(back.history.present).toEqual(doc);
   });
   it("nudges a selected depot", () => {
-    const s = run([{ type: "select", selection: { kind: "depot", id: "D1" } }, { type: "nudge", dx: -1, dy: 0 }]);
+    const s = run([
+      { type: "select", selection: { kind: "depot", id: "D1" } },
+      { type: "nudge", dx: -1, dy: 0 },
+    ]);
     expect(s.history.present.depots[0]).toMatchObject({ x: 4, y: 3 });
   });
   it("drops the selection when an undo takes the selected run away", () => {
     const added = rackRun({ id: "R2", x: 0, y: 3 });
-    const s = run([{ type: "do", command: { type: "add-rack-run", run: added } }, { type: "select", selection: { kind: "run", id: "R2" } }, { type: "undo" }]);
+    const s = run([
+      { type: "do", command: { type: "add-rack-run", run: added } },
+      { type: "select", selection: { kind: "run", id: "R2" } },
+      { type: "undo" },
+    ]);
     expect(s.selection).toBeNull();
   });
   it("ignores a selection of something that is not there", () => {
@@ -68,7 +85,9 @@ describe("keyboard shortcuts", () => {
     expect(intentForKey(key("f"), { hasSelection: false })).toEqual({ type: "tool", tool: "floor" });
     expect(intentForKey(key("O"), { hasSelection: false })).toEqual({ type: "tool", tool: "one-way" });
     expect(intentForKey(key("z", { ctrlKey: true }), { hasSelection: false })).toEqual({ type: "undo" });
-    expect(intentForKey(key("Z", { metaKey: true, shiftKey: true }), { hasSelection: false })).toEqual({ type: "redo" });
+    expect(intentForKey(key("Z", { metaKey: true, shiftKey: true }), { hasSelection: false })).toEqual({
+      type: "redo",
+    });
     expect(intentForKey(key("y", { ctrlKey: true }), { hasSelection: false })).toEqual({ type: "redo" });
   });
   it("moves and deletes only with a selection", () => {

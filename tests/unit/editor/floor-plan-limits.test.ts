@@ -38,7 +38,9 @@ describe("location code length", () => {
 
 /** A hall with a building column on every other cell: nothing to compress, about (side/2)² junctions. */
 function pillarHall(side: number): EditorDocument {
-  const rows = Array.from({ length: side }, (_, y) => Array.from({ length: side }, (_, x) => (x % 2 === 1 && y % 2 === 1 ? GROUND.blocked : GROUND.floor)).join(""));
+  const rows = Array.from({ length: side }, (_, y) =>
+    Array.from({ length: side }, (_, x) => (x % 2 === 1 && y % 2 === 1 ? GROUND.blocked : GROUND.floor)).join(""),
+  );
   return docFromRows(rows, { cellMm: 500, depots: [depot(0, 0)], dropoffs: [dropoff(side - 1, 0)] });
 }
 
@@ -63,10 +65,39 @@ describe("largest floor plan", () => {
     const runs = [];
     // Columns repeat [rack facing E, aisle, rack facing W]; neighbouring aisles' runs stand back to back.
     for (let a = 0; a < 20; a++) {
-      runs.push(rackRun({ id: `W${a}`, x: 100 + 3 * a, y: 100, orientation: "v", length: 150, facing: "E", aisle: a + 1, firstBay: 1, bayStep: 2, levels: 4 }));
-      runs.push(rackRun({ id: `E${a}`, x: 102 + 3 * a, y: 100, orientation: "v", length: 150, facing: "W", aisle: a + 1, firstBay: 2, bayStep: 2, levels: 4 }));
+      runs.push(
+        rackRun({
+          id: `W${a}`,
+          x: 100 + 3 * a,
+          y: 100,
+          orientation: "v",
+          length: 150,
+          facing: "E",
+          aisle: a + 1,
+          firstBay: 1,
+          bayStep: 2,
+          levels: 4,
+        }),
+      );
+      runs.push(
+        rackRun({
+          id: `E${a}`,
+          x: 102 + 3 * a,
+          y: 100,
+          orientation: "v",
+          length: 150,
+          facing: "W",
+          aisle: a + 1,
+          firstBay: 2,
+          bayStep: 2,
+          levels: 4,
+        }),
+      );
     }
-    const doc = docFromRows(Array.from({ length: side }, () => GROUND.floor.repeat(side)), { cellMm: 500, rackRuns: runs, depots: [depot(0, side - 1)], dropoffs: [dropoff(side - 1, side - 1)] });
+    const doc = docFromRows(
+      Array.from({ length: side }, () => GROUND.floor.repeat(side)),
+      { cellMm: 500, rackRuns: runs, depots: [depot(0, side - 1)], dropoffs: [dropoff(side - 1, side - 1)] },
+    );
     expect(checkDocument(doc).filter((p) => p.severity === "error")).toEqual([]);
     const graph = buildGraph(toGridDrawing(doc));
     expect(graph.bins).toHaveLength(40 * 150 * 4);

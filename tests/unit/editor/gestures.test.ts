@@ -29,12 +29,29 @@ const doc = docFromRows(["ffff.x", "ffffff", "ffffff", "ffffff"], {
 });
 const W = doc.width;
 
-const ctx = (tool: Tool, over: Partial<GestureContext> = {}): GestureContext => ({ doc, tool, canEdit: true, paintShape: "brush", oneWayDir: "E", ...over });
-const at = (x: number, y: number, client = { clientX: 100 + x * 10, clientY: 100 + y * 10 }): PointerAt => ({ cell: { x, y }, clamped: { x, y }, ...client });
+const ctx = (tool: Tool, over: Partial<GestureContext> = {}): GestureContext => ({
+  doc,
+  tool,
+  canEdit: true,
+  paintShape: "brush",
+  oneWayDir: "E",
+  ...over,
+});
+const at = (x: number, y: number, client = { clientX: 100 + x * 10, clientY: 100 + y * 10 }): PointerAt => ({
+  cell: { x, y },
+  clamped: { x, y },
+  ...client,
+});
 const off = (clamped: Cell, clientX = 0, clientY = 0): PointerAt => ({ cell: null, clamped, clientX, clientY });
-const press = (p: PointerAt, over: Partial<{ button: number; shiftKey: boolean }> = {}) => ({ ...p, button: 0, shiftKey: false, ...over });
+const press = (p: PointerAt, over: Partial<{ button: number; shiftKey: boolean }> = {}) => ({
+  ...p,
+  button: 0,
+  shiftKey: false,
+  ...over,
+});
 const SCROLL = { left: 40, top: 30 };
-const intents = (s: Step | null): Intent[] => (s?.effects ?? []).flatMap((e) => (e.type === "intent" ? [e.intent] : []));
+const intents = (s: Step | null): Intent[] =>
+  (s?.effects ?? []).flatMap((e) => (e.type === "intent" ? [e.intent] : []));
 
 /** Presses at the first cell, moves through the rest and releases: what would be dispatched. */
 function stroke(c: GestureContext, cells: (PointerAt | [number, number])[], shiftKey = false): Step {
@@ -48,10 +65,18 @@ function stroke(c: GestureContext, cells: (PointerAt | [number, number])[], shif
 describe("where the pointer is", () => {
   it("finds the cell under a screen point and the nearest cell on the grid", () => {
     const origin = { left: 128, top: 78 };
-    expect(pointerAt(128 + 2 * 20 + 19, 78 + 3 * 20, origin, 20, doc)).toEqual({ cell: { x: 2, y: 3 }, clamped: { x: 2, y: 3 }, clientX: 187, clientY: 138 });
+    expect(pointerAt(128 + 2 * 20 + 19, 78 + 3 * 20, origin, 20, doc)).toEqual({
+      cell: { x: 2, y: 3 },
+      clamped: { x: 2, y: 3 },
+      clientX: 187,
+      clientY: 138,
+    });
     // On the rulers (left of and above the grid) and past the far edges there is no cell, but the nearest one.
     expect(pointerAt(120, 60, origin, 20, doc)).toMatchObject({ cell: null, clamped: { x: 0, y: 0 } });
-    expect(pointerAt(128 + 6 * 20, 78 + 4 * 20 + 500, origin, 20, doc)).toMatchObject({ cell: null, clamped: { x: 5, y: 3 } });
+    expect(pointerAt(128 + 6 * 20, 78 + 4 * 20 + 500, origin, 20, doc)).toMatchObject({
+      cell: null,
+      clamped: { x: 5, y: 3 },
+    });
     expect(pointerAt(128 + 6 * 20 - 1, 78 + 4 * 20 - 1, origin, 20, doc).cell).toEqual({ x: 5, y: 3 });
   });
 });
@@ -65,8 +90,18 @@ describe("pressing", () => {
   it("selects what is under the select tool, points before runs and the run drawn last first, and starts moving it", () => {
     const onDepot = pointerDown(ctx("select"), null, press(at(5, 3)), SCROLL);
     expect(intents(onDepot)).toEqual([{ type: "select", selection: { kind: "depot", id: "D1" } }]);
-    expect(onDepot?.drag).toEqual({ kind: "move-point", point: "depot", id: "D1", from: { x: 5, y: 3 }, to: { x: 5, y: 3 } });
-    expect(pointerDown(ctx("select"), null, press(at(4, 3)), SCROLL)?.drag).toMatchObject({ kind: "move-point", point: "dropoff", id: "P1" });
+    expect(onDepot?.drag).toEqual({
+      kind: "move-point",
+      point: "depot",
+      id: "D1",
+      from: { x: 5, y: 3 },
+      to: { x: 5, y: 3 },
+    });
+    expect(pointerDown(ctx("select"), null, press(at(4, 3)), SCROLL)?.drag).toMatchObject({
+      kind: "move-point",
+      point: "dropoff",
+      id: "P1",
+    });
     const onRun = pointerDown(ctx("select"), null, press(at(2, 1)), SCROLL);
     expect(intents(onRun)).toEqual([{ type: "select", selection: { kind: "run", id: "R2" } }]);
     expect(onRun?.drag).toEqual({ kind: "move-run", id: "R2", from: { x: 2, y: 1 }, to: { x: 2, y: 1 } });
@@ -101,16 +136,37 @@ describe("pressing", () => {
   });
 
   it("starts a brush stroke or a rectangle by the paint shape, Shift giving the other", () => {
-    expect(pointerDown(ctx("floor"), null, press(at(1, 2)), SCROLL)?.drag).toEqual({ kind: "paint", cells: new Set([2 * W + 1]) });
-    expect(pointerDown(ctx("blocked"), null, press(at(1, 2), { shiftKey: true }), SCROLL)?.drag).toEqual({ kind: "rect", from: { x: 1, y: 2 }, to: { x: 1, y: 2 } });
-    expect(pointerDown(ctx("erase", { paintShape: "rect" }), null, press(at(1, 2)), SCROLL)?.drag).toMatchObject({ kind: "rect" });
-    expect(pointerDown(ctx("erase", { paintShape: "rect" }), null, press(at(1, 2), { shiftKey: true }), SCROLL)?.drag).toMatchObject({ kind: "paint" });
+    expect(pointerDown(ctx("floor"), null, press(at(1, 2)), SCROLL)?.drag).toEqual({
+      kind: "paint",
+      cells: new Set([2 * W + 1]),
+    });
+    expect(pointerDown(ctx("blocked"), null, press(at(1, 2), { shiftKey: true }), SCROLL)?.drag).toEqual({
+      kind: "rect",
+      from: { x: 1, y: 2 },
+      to: { x: 1, y: 2 },
+    });
+    expect(pointerDown(ctx("erase", { paintShape: "rect" }), null, press(at(1, 2)), SCROLL)?.drag).toMatchObject({
+      kind: "rect",
+    });
+    expect(
+      pointerDown(ctx("erase", { paintShape: "rect" }), null, press(at(1, 2), { shiftKey: true }), SCROLL)?.drag,
+    ).toMatchObject({ kind: "paint" });
   });
 
   it("starts a one-way stroke only counting walkable floor, and a rack run at the cell", () => {
-    expect(pointerDown(ctx("one-way"), null, press(at(1, 2)), SCROLL)?.drag).toEqual({ kind: "one-way", cells: new Set([2 * W + 1]) });
-    expect(pointerDown(ctx("one-way"), null, press(at(1, 1)), SCROLL)?.drag).toEqual({ kind: "one-way", cells: new Set() });
-    expect(pointerDown(ctx("rack"), null, press(at(3, 2)), SCROLL)?.drag).toEqual({ kind: "rack", from: { x: 3, y: 2 }, to: { x: 3, y: 2 } });
+    expect(pointerDown(ctx("one-way"), null, press(at(1, 2)), SCROLL)?.drag).toEqual({
+      kind: "one-way",
+      cells: new Set([2 * W + 1]),
+    });
+    expect(pointerDown(ctx("one-way"), null, press(at(1, 1)), SCROLL)?.drag).toEqual({
+      kind: "one-way",
+      cells: new Set(),
+    });
+    expect(pointerDown(ctx("rack"), null, press(at(3, 2)), SCROLL)?.drag).toEqual({
+      kind: "rack",
+      from: { x: 3, y: 2 },
+      to: { x: 3, y: 2 },
+    });
   });
 
   it("places a depot or drop-off on walkable floor with the next id, and selects it", () => {
@@ -120,14 +176,23 @@ describe("pressing", () => {
       { type: "do", command: { type: "add-point", kind: "depot", point: { id: "D2", x: 3, y: 3, name: "Depot 2" } } },
       { type: "select", selection: { kind: "depot", id: "D2" } },
     ]);
-    expect(intents(pointerDown(ctx("dropoff"), null, press(at(0, 0)), SCROLL))[0]).toMatchObject({ command: { point: { id: "P2", name: "Drop-off 2" } } });
+    expect(intents(pointerDown(ctx("dropoff"), null, press(at(0, 0)), SCROLL))[0]).toMatchObject({
+      command: { point: { id: "P2", name: "Drop-off 2" } },
+    });
   });
 
   it("selects the point already there instead of adding one, and places nothing off the floor or on a rack", () => {
-    expect(intents(pointerDown(ctx("depot"), null, press(at(5, 3)), SCROLL))).toEqual([{ type: "select", selection: { kind: "depot", id: "D1" } }]);
+    expect(intents(pointerDown(ctx("depot"), null, press(at(5, 3)), SCROLL))).toEqual([
+      { type: "select", selection: { kind: "depot", id: "D1" } },
+    ]);
     // A depot tool on the drop-off's cell: that cell is walkable, so the depot goes there too.
     expect(intents(pointerDown(ctx("depot"), null, press(at(4, 3)), SCROLL))[0]).toMatchObject({ type: "do" });
-    for (const [x, y] of [[5, 0], [4, 0], [1, 1]] as const) expect(intents(pointerDown(ctx("dropoff"), null, press(at(x, y)), SCROLL))).toEqual([]);
+    for (const [x, y] of [
+      [5, 0],
+      [4, 0],
+      [1, 1],
+    ] as const)
+      expect(intents(pointerDown(ctx("dropoff"), null, press(at(x, y)), SCROLL))).toEqual([]);
     expect(isWalkable(doc, { x: 1, y: 1 })).toBe(false);
     expect(isWalkable(doc, { x: 1, y: 2 })).toBe(true);
   });
@@ -164,57 +229,123 @@ describe("moving", () => {
 
   it("gathers one-way cells only on walkable floor", () => {
     let d: Drag | null = { kind: "one-way", cells: new Set() };
-    for (const p of [at(1, 1), at(1, 2), at(4, 0), at(5, 0), off({ x: 0, y: 3 }), at(3, 2)]) d = pointerMove(ctx("one-way"), d, p).drag;
+    for (const p of [at(1, 1), at(1, 2), at(4, 0), at(5, 0), off({ x: 0, y: 3 }), at(3, 2)])
+      d = pointerMove(ctx("one-way"), d, p).drag;
     expect(d).toEqual({ kind: "one-way", cells: new Set([2 * W + 1, 2 * W + 3]) });
   });
 
   it("keeps rectangles, rack runs and moves on the nearest grid cell", () => {
     for (const kind of ["rect", "rack"] as const) {
-      expect(pointerMove(ctx("floor"), { kind, from: { x: 1, y: 1 }, to: { x: 1, y: 1 } }, off({ x: 5, y: 0 })).drag).toEqual({ kind, from: { x: 1, y: 1 }, to: { x: 5, y: 0 } });
+      expect(
+        pointerMove(ctx("floor"), { kind, from: { x: 1, y: 1 }, to: { x: 1, y: 1 } }, off({ x: 5, y: 0 })).drag,
+      ).toEqual({ kind, from: { x: 1, y: 1 }, to: { x: 5, y: 0 } });
     }
-    expect(pointerMove(ctx("select"), { kind: "move-run", id: "R1", from: { x: 0, y: 1 }, to: { x: 0, y: 1 } }, at(2, 3)).drag).toMatchObject({ to: { x: 2, y: 3 } });
-    expect(pointerMove(ctx("select"), { kind: "move-point", point: "depot", id: "D1", from: { x: 5, y: 3 }, to: { x: 5, y: 3 } }, at(0, 3)).drag).toMatchObject({ to: { x: 0, y: 3 } });
+    expect(
+      pointerMove(ctx("select"), { kind: "move-run", id: "R1", from: { x: 0, y: 1 }, to: { x: 0, y: 1 } }, at(2, 3))
+        .drag,
+    ).toMatchObject({ to: { x: 2, y: 3 } });
+    expect(
+      pointerMove(
+        ctx("select"),
+        { kind: "move-point", point: "depot", id: "D1", from: { x: 5, y: 3 }, to: { x: 5, y: 3 } },
+        at(0, 3),
+      ).drag,
+    ).toMatchObject({ to: { x: 0, y: 3 } });
   });
 });
 
 describe("releasing", () => {
   it("paints a brush stroke with the ground of the tool", () => {
-    expect(intents(stroke(ctx("blocked"), [[0, 3], [1, 3], [2, 3]]))).toEqual([{ type: "do", command: { type: "paint", cells: [18, 19, 20], ground: "x" } }]);
-    expect(intents(stroke(ctx("erase"), [[0, 0]]))).toEqual([{ type: "do", command: { type: "paint", cells: [0], ground: "." } }]);
+    expect(
+      intents(
+        stroke(ctx("blocked"), [
+          [0, 3],
+          [1, 3],
+          [2, 3],
+        ]),
+      ),
+    ).toEqual([{ type: "do", command: { type: "paint", cells: [18, 19, 20], ground: "x" } }]);
+    expect(intents(stroke(ctx("erase"), [[0, 0]]))).toEqual([
+      { type: "do", command: { type: "paint", cells: [0], ground: "." } },
+    ]);
   });
 
   it("paints a rectangle from the press to the release", () => {
-    expect(intents(stroke(ctx("floor"), [[4, 0], off({ x: 5, y: 2 }), [1, 3]], true))).toEqual([{ type: "do", command: { type: "paint-rect", x0: 4, y0: 0, x1: 1, y1: 3, ground: "f" } }]);
+    expect(intents(stroke(ctx("floor"), [[4, 0], off({ x: 5, y: 2 }), [1, 3]], true))).toEqual([
+      { type: "do", command: { type: "paint-rect", x0: 4, y0: 0, x1: 1, y1: 3, ground: "f" } },
+    ]);
   });
 
   it("paints with the tool chosen at the release, and not at all after switching to one that does not paint", () => {
     const d: Drag = { kind: "paint", cells: new Set([3]) };
-    expect(intents(pointerUp(ctx("blocked"), d))).toEqual([{ type: "do", command: { type: "paint", cells: [3], ground: "x" } }]);
+    expect(intents(pointerUp(ctx("blocked"), d))).toEqual([
+      { type: "do", command: { type: "paint", cells: [3], ground: "x" } },
+    ]);
     expect(pointerUp(ctx("select"), d)).toEqual({ drag: null, effects: [] });
-    expect(pointerUp(ctx("rack"), { kind: "rect", from: { x: 0, y: 0 }, to: { x: 1, y: 1 } })).toEqual({ drag: null, effects: [] });
+    expect(pointerUp(ctx("rack"), { kind: "rect", from: { x: 0, y: 0 }, to: { x: 1, y: 1 } })).toEqual({
+      drag: null,
+      effects: [],
+    });
   });
 
   it("marks one-way cells in the chosen direction, or clears them, and ignores a stroke over no floor", () => {
-    expect(intents(stroke(ctx("one-way"), [[0, 2], [1, 2]]))).toEqual([{ type: "do", command: { type: "set-one-way", cells: [12, 13], dir: "E" } }]);
-    expect(intents(stroke(ctx("one-way", { oneWayDir: null }), [[0, 2]]))).toEqual([{ type: "do", command: { type: "set-one-way", cells: [12], dir: null } }]);
-    expect(stroke(ctx("one-way"), [[0, 1], [5, 0]])).toEqual({ drag: null, effects: [] });
+    expect(
+      intents(
+        stroke(ctx("one-way"), [
+          [0, 2],
+          [1, 2],
+        ]),
+      ),
+    ).toEqual([{ type: "do", command: { type: "set-one-way", cells: [12, 13], dir: "E" } }]);
+    expect(intents(stroke(ctx("one-way", { oneWayDir: null }), [[0, 2]]))).toEqual([
+      { type: "do", command: { type: "set-one-way", cells: [12], dir: null } },
+    ]);
+    expect(
+      stroke(ctx("one-way"), [
+        [0, 1],
+        [5, 0],
+      ]),
+    ).toEqual({ drag: null, effects: [] });
   });
 
   it("hands a drawn rack run to the session along the axis moved further", () => {
-    expect(stroke(ctx("rack"), [[4, 3], [3, 2], [1, 2]]).effects).toEqual([{ type: "rack-drawn", run: { x: 1, y: 3, orientation: "h", length: 4 } }]);
-    expect(stroke(ctx("rack"), [[5, 3], [4, 0]]).effects).toEqual([{ type: "rack-drawn", run: { x: 5, y: 0, orientation: "v", length: 4 } }]);
+    expect(
+      stroke(ctx("rack"), [
+        [4, 3],
+        [3, 2],
+        [1, 2],
+      ]).effects,
+    ).toEqual([{ type: "rack-drawn", run: { x: 1, y: 3, orientation: "h", length: 4 } }]);
+    expect(
+      stroke(ctx("rack"), [
+        [5, 3],
+        [4, 0],
+      ]).effects,
+    ).toEqual([{ type: "rack-drawn", run: { x: 5, y: 0, orientation: "v", length: 4 } }]);
     expect(drawnRun({ x: 2, y: 2 }, { x: 2, y: 2 })).toEqual({ x: 2, y: 2, orientation: "h", length: 1 });
   });
 
   it("moves the run by the cells dragged, and the point to the release cell", () => {
-    const run = stroke(ctx("select"), [[0, 1], [1, 2], [1, 3]]);
+    const run = stroke(ctx("select"), [
+      [0, 1],
+      [1, 2],
+      [1, 3],
+    ]);
     expect(intents(run)).toEqual([{ type: "do", command: { type: "move-rack-run", id: "R1", dx: 1, dy: 2 } }]);
-    const point = stroke(ctx("select"), [[5, 3], [0, 3]]);
-    expect(intents(point)).toEqual([{ type: "do", command: { type: "move-point", kind: "depot", id: "D1", x: 0, y: 3 } }]);
+    const point = stroke(ctx("select"), [
+      [5, 3],
+      [0, 3],
+    ]);
+    expect(intents(point)).toEqual([
+      { type: "do", command: { type: "move-point", kind: "depot", id: "D1", x: 0, y: 3 } },
+    ]);
   });
 
   it("ends a pan, and a release without a drag, with nothing to do", () => {
-    expect(pointerUp(ctx("select"), { kind: "pan", clientX: 0, clientY: 0, left: 0, top: 0 })).toEqual({ drag: null, effects: [] });
+    expect(pointerUp(ctx("select"), { kind: "pan", clientX: 0, clientY: 0, left: 0, top: 0 })).toEqual({
+      drag: null,
+      effects: [],
+    });
     expect(pointerUp(ctx("floor"), null)).toEqual({ drag: null, effects: [] });
   });
 
@@ -227,7 +358,12 @@ describe("releasing", () => {
     const apply = (step: Step | null) => {
       for (const i of intents(step)) s = editorReducer(s, i);
     };
-    apply(stroke(ctx("blocked"), [[0, 3], [1, 3]]));
+    apply(
+      stroke(ctx("blocked"), [
+        [0, 3],
+        [1, 3],
+      ]),
+    );
     const down = pointerDown(ctx("select"), null, press(at(5, 3)), SCROLL);
     apply(down);
     apply(pointerUp(ctx("select"), pointerMove(ctx("select"), down!.drag, at(3, 2)).drag));
@@ -242,7 +378,9 @@ describe("previews and the wheel", () => {
     expect(previewCells(doc, null)).toEqual({ cells: [], oneWay: false });
     expect(previewCells(doc, { kind: "paint", cells: new Set([4, 5]) })).toEqual({ cells: [4, 5], oneWay: false });
     expect(previewCells(doc, { kind: "one-way", cells: new Set([7]) })).toEqual({ cells: [7], oneWay: true });
-    expect(previewCells(doc, { kind: "rect", from: { x: 1, y: 2 }, to: { x: 0, y: 3 } }).cells.sort((a, b) => a - b)).toEqual([12, 13, 18, 19]);
+    expect(
+      previewCells(doc, { kind: "rect", from: { x: 1, y: 2 }, to: { x: 0, y: 3 } }).cells.sort((a, b) => a - b),
+    ).toEqual([12, 13, 18, 19]);
     expect(previewCells(doc, { kind: "rack", from: { x: 1, y: 2 }, to: { x: 0, y: 3 } }).cells).toEqual([]);
   });
 

@@ -15,7 +15,23 @@ describe("toGridDrawing", () => {
   const d = toGridDrawing(doc);
 
   it("makes outside and blocked ground blocked, floor floor, and rack cells rack with their facing", () => {
-    expect(d.cells).toEqual(["blocked", "rack", "rack", "blocked", "blocked", "floor", "blocked", "floor", "floor", "floor", "floor", "floor", "floor", "floor", "floor"]);
+    expect(d.cells).toEqual([
+      "blocked",
+      "rack",
+      "rack",
+      "blocked",
+      "blocked",
+      "floor",
+      "blocked",
+      "floor",
+      "floor",
+      "floor",
+      "floor",
+      "floor",
+      "floor",
+      "floor",
+      "floor",
+    ]);
     expect(d.facing[1]).toBe("S");
     expect(d.facing[2]).toBe("S");
     expect(d.facing[0]).toBeNull();

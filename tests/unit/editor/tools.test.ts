@@ -11,7 +11,16 @@ describe("the tools table", () => {
   it("gives every tool its own key and its own label", () => {
     expect(new Set(TOOLS.map((t) => t.key.toLowerCase())).size).toBe(TOOLS.length);
     expect(new Set(TOOLS.map((t) => t.label)).size).toBe(TOOLS.length);
-    expect(TOOLS.map((t) => t.tool)).toEqual(["select", "floor", "blocked", "erase", "rack", "one-way", "depot", "dropoff"]);
+    expect(TOOLS.map((t) => t.tool)).toEqual([
+      "select",
+      "floor",
+      "blocked",
+      "erase",
+      "rack",
+      "one-way",
+      "depot",
+      "dropoff",
+    ]);
   });
 
   it("keys pick the tool of their row, in either case, and nothing else does", () => {
@@ -37,7 +46,10 @@ describe("the tools table", () => {
   });
 
   it("keeps the selection only for the tools whose row says so", () => {
-    const selected = editorReducer(initialEditorState(doc, true), { type: "select", selection: { kind: "run", id: "R1" } });
+    const selected = editorReducer(initialEditorState(doc, true), {
+      type: "select",
+      selection: { kind: "run", id: "R1" },
+    });
     for (const t of TOOLS) {
       const s = editorReducer(selected, { type: "tool", tool: t.tool });
       expect(s.selection).toEqual(t.tool === "select" || t.tool === "rack" ? { kind: "run", id: "R1" } : null);
@@ -48,7 +60,11 @@ describe("the tools table", () => {
     expect(paintsWith("floor")).toBe("f");
     expect(paintsWith("blocked")).toBe("x");
     expect(paintsWith("erase")).toBe(".");
-    expect(TOOLS.filter((t) => paintsWith(t.tool) !== undefined).map((t) => t.tool)).toEqual(["floor", "blocked", "erase"]);
+    expect(TOOLS.filter((t) => paintsWith(t.tool) !== undefined).map((t) => t.tool)).toEqual([
+      "floor",
+      "blocked",
+      "erase",
+    ]);
     expect(toolRow("depot").places).toBe("depot");
     expect(toolRow("dropoff").places).toBe("dropoff");
     for (const t of TOOLS) expect(toolRow(t.tool).hint.length).toBeGreaterThan(10);

@@ -6,14 +6,23 @@ const withCode = (code: string, message = "boom") => Object.assign(new Error(mes
 
 describe("database outage classification", () => {
   it("a dropped or killed connection is 'connection-lost'", () => {
-    for (const code of ["PROTOCOL_CONNECTION_LOST", "ER_CONNECTION_KILLED", "ER_SERVER_SHUTDOWN", "ECONNRESET", "PROTOCOL_ENQUEUE_AFTER_FATAL_ERROR"]) {
+    for (const code of [
+      "PROTOCOL_CONNECTION_LOST",
+      "ER_CONNECTION_KILLED",
+      "ER_SERVER_SHUTDOWN",
+      "ECONNRESET",
+      "PROTOCOL_ENQUEUE_AFTER_FATAL_ERROR",
+    ]) {
       expect(databaseOutage(withCode(code)), code).toBe("connection-lost");
     }
-    expect(databaseOutage(new Error("Can't add new command when connection is in closed state"))).toBe("connection-lost");
+    expect(databaseOutage(new Error("Can't add new command when connection is in closed state"))).toBe(
+      "connection-lost",
+    );
   });
 
   it("a server that refuses or does not answer is 'unreachable'", () => {
-    for (const code of ["ECONNREFUSED", "ETIMEDOUT", "EHOSTUNREACH", "ER_CON_COUNT_ERROR"]) expect(databaseOutage(withCode(code)), code).toBe("unreachable");
+    for (const code of ["ECONNREFUSED", "ETIMEDOUT", "EHOSTUNREACH", "ER_CON_COUNT_ERROR"])
+      expect(databaseOutage(withCode(code)), code).toBe("unreachable");
     const timeout = new Error("Knex: Timeout acquiring a connection. The pool is probably full.");
     timeout.name = "KnexTimeoutError";
     expect(databaseOutage(timeout)).toBe("unreachable");
@@ -24,7 +33,16 @@ describe("database outage classification", () => {
   });
 
   it("leaves real query errors and everything else to the caller", () => {
-    for (const e of [withCode("ER_DUP_ENTRY"), withCode("ER_PARSE_ERROR"), withCode("ER_NO_SUCH_TABLE"), new Error("plain"), null, undefined, "text", { code: 42 }]) {
+    for (const e of [
+      withCode("ER_DUP_ENTRY"),
+      withCode("ER_PARSE_ERROR"),
+      withCode("ER_NO_SUCH_TABLE"),
+      new Error("plain"),
+      null,
+      undefined,
+      "text",
+      { code: 42 },
+    ]) {
       expect(databaseOutage(e)).toBeNull();
     }
   });

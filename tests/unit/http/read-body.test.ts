@@ -14,7 +14,10 @@ function endlessBody() {
       seen.cancelled = true;
     },
   });
-  return { seen, request: new Request("http://trailbin.test/api/x", { method: "POST", body: stream, duplex: "half" } as RequestInit) };
+  return {
+    seen,
+    request: new Request("http://trailbin.test/api/x", { method: "POST", body: stream, duplex: "half" } as RequestInit),
+  };
 }
 
 describe("reading a request body up to its cap", () => {
@@ -37,7 +40,11 @@ describe("reading a request body up to its cap", () => {
 
   it("returns a body within the cap whole, byte for byte", async () => {
     const bytes = new TextEncoder().encode(JSON.stringify({ a: "ø".repeat(1000) }));
-    const got = await readBodyCapped(new Request("http://trailbin.test/api/x", { method: "POST", body: bytes }), bytes.length, "too large");
+    const got = await readBodyCapped(
+      new Request("http://trailbin.test/api/x", { method: "POST", body: bytes }),
+      bytes.length,
+      "too large",
+    );
     expect(Array.from(got)).toEqual(Array.from(bytes));
   });
 });

@@ -9,13 +9,22 @@ const bins = binLookup(["01-001-1", "01-001-2", "01-002-1"]);
 
 describe("item master rows", () => {
   it("reads good rows, several bins per cell in order, ignoring case of bin codes", () => {
-    const r = validateItemRows([["A-1", "Bolt", "BOX", "1250", "01-001-2; 01-001-1"], ["A-2", "Nut", "EA", "12.6", "01-002-1"]], mapping, bins);
+    const r = validateItemRows(
+      [
+        ["A-1", "Bolt", "BOX", "1250", "01-001-2; 01-001-1"],
+        ["A-2", "Nut", "EA", "12.6", "01-002-1"],
+      ],
+      mapping,
+      bins,
+    );
     expect(r.problems).toEqual([]);
     expect(r.items).toEqual([
       { row: 2, sku: "A-1", description: "Bolt", uom: "BOX", unitWeightG: 1250, bins: ["01-001-2", "01-001-1"] },
       { row: 3, sku: "A-2", description: "Nut", uom: "EA", unitWeightG: 13, bins: ["01-002-1"] },
     ]);
-    expect(validateItemRows([["A-1", "Bolt", "BOX", "1", "01-001-1"]], mapping, bins).items[0]!.bins).toEqual(["01-001-1"]);
+    expect(validateItemRows([["A-1", "Bolt", "BOX", "1", "01-001-1"]], mapping, bins).items[0]!.bins).toEqual([
+      "01-001-1",
+    ]);
   });
 
   it("reports every kind of bad row with its sheet row number (header is row 1)", () => {
@@ -44,6 +53,8 @@ describe("item master rows", () => {
   });
 
   it("says so when there are no data rows", () => {
-    expect(validateItemRows([], mapping, bins).problems).toEqual([{ row: 2, message: expect.stringMatching(/no items/) }]);
+    expect(validateItemRows([], mapping, bins).problems).toEqual([
+      { row: 2, message: expect.stringMatching(/no items/) },
+    ]);
   });
 });

@@ -4,8 +4,21 @@ import { guessMapping, resolveMapping } from "@/lib/imports/mapping";
 
 describe("column mapping", () => {
   it("finds the template's headers and common other names, ignoring case and spacing", () => {
-    expect(guessMapping(["SKU", "Description", "UOM", "unit_weight", "Location"], ITEM_FIELDS)).toEqual({ sku: 0, description: 1, uom: 2, unitWeightG: 3, bins: 4 });
-    expect(guessMapping(["order no", "LINE", "item code", "qty"], ORDER_FIELDS)).toMatchObject({ orderNumber: 0, lineNo: 1, sku: 2, quantity: 3, cutoff: null, priority: null });
+    expect(guessMapping(["SKU", "Description", "UOM", "unit_weight", "Location"], ITEM_FIELDS)).toEqual({
+      sku: 0,
+      description: 1,
+      uom: 2,
+      unitWeightG: 3,
+      bins: 4,
+    });
+    expect(guessMapping(["order no", "LINE", "item code", "qty"], ORDER_FIELDS)).toMatchObject({
+      orderNumber: 0,
+      lineNo: 1,
+      sku: 2,
+      quantity: 3,
+      cutoff: null,
+      priority: null,
+    });
   });
 
   it("names each required field it cannot find, on row 1", () => {
@@ -23,7 +36,9 @@ describe("column mapping", () => {
   });
 
   it("refuses one column for two fields", () => {
-    const { problems } = resolveMapping(["SKU", "Description", "UOM", "Weight", "Bins"], ITEM_FIELDS, { description: 0 });
+    const { problems } = resolveMapping(["SKU", "Description", "UOM", "Weight", "Bins"], ITEM_FIELDS, {
+      description: 0,
+    });
     expect(problems.some((p) => /both/.test(p.message))).toBe(true);
   });
 

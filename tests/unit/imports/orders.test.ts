@@ -19,13 +19,28 @@ const look: OrderLookups = {
 describe("cut-off times in site time", () => {
   // Europe/London is UTC+0 in winter and UTC+1 (BST) from the last Sunday of March (UK summer time rules).
   it("converts winter and summer wall-clock times to UTC", () => {
-    expect(parseCutoff("2026-12-03 16:30", "Europe/London")).toEqual({ ok: true, utc: new Date("2026-12-03T16:30:00Z") });
-    expect(parseCutoff("2026-07-01T09:05", "Europe/London")).toEqual({ ok: true, utc: new Date("2026-07-01T08:05:00Z") });
-    expect(parseCutoff("2026-07-01 09:05", "America/New_York")).toEqual({ ok: true, utc: new Date("2026-07-01T13:05:00Z") });
+    expect(parseCutoff("2026-12-03 16:30", "Europe/London")).toEqual({
+      ok: true,
+      utc: new Date("2026-12-03T16:30:00Z"),
+    });
+    expect(parseCutoff("2026-07-01T09:05", "Europe/London")).toEqual({
+      ok: true,
+      utc: new Date("2026-07-01T08:05:00Z"),
+    });
+    expect(parseCutoff("2026-07-01 09:05", "America/New_York")).toEqual({
+      ok: true,
+      utc: new Date("2026-07-01T13:05:00Z"),
+    });
   });
   it("takes an explicit offset as it is", () => {
-    expect(parseCutoff("2026-07-01T09:05:00+02:00", "Europe/London")).toEqual({ ok: true, utc: new Date("2026-07-01T07:05:00Z") });
-    expect(parseCutoff("2026-07-01T09:05:00Z", "Europe/London")).toEqual({ ok: true, utc: new Date("2026-07-01T09:05:00Z") });
+    expect(parseCutoff("2026-07-01T09:05:00+02:00", "Europe/London")).toEqual({
+      ok: true,
+      utc: new Date("2026-07-01T07:05:00Z"),
+    });
+    expect(parseCutoff("2026-07-01T09:05:00Z", "Europe/London")).toEqual({
+      ok: true,
+      utc: new Date("2026-07-01T09:05:00Z"),
+    });
   });
   it("refuses a time the clocks skip and takes the first of a time that happens twice", () => {
     // 29 March 2026 01:00 GMT the clocks go to 02:00 BST; 25 October 2026 02:00 BST they go back to 01:00 GMT.
@@ -33,7 +48,8 @@ describe("cut-off times in site time", () => {
     expect(siteLocalToUtc(2026, 10, 25, 1, 30, 0, "Europe/London")).toEqual(new Date("2026-10-25T00:30:00Z"));
   });
   it("refuses what is not a date and time", () => {
-    for (const t of ["3/12/26 16:30", "2026-02-30 10:00", "2026-12-03 25:00", "tomorrow"]) expect(parseCutoff(t, "Europe/London").ok).toBe(false);
+    for (const t of ["3/12/26 16:30", "2026-02-30 10:00", "2026-12-03 25:00", "tomorrow"])
+      expect(parseCutoff(t, "Europe/London").ok).toBe(false);
   });
 });
 
@@ -51,11 +67,25 @@ describe("order line rows", () => {
     expect(r.problems).toEqual([]);
     expect(r.lineCount).toBe(3);
     expect(r.orders).toEqual([
-      { firstRow: 2, orderNumber: "SO-1", customerRef: "PO-9", priority: 1, cutoffAt: new Date("2026-12-03T16:30:00Z"), lines: [
-        { row: 2, lineNo: 1, itemId: 11, sku: "A-1", quantity: 3 },
-        { row: 3, lineNo: 2, itemId: 12, sku: "a-2", quantity: 1 },
-      ] },
-      { firstRow: 4, orderNumber: "SO-2", customerRef: null, priority: 2, cutoffAt: null, lines: [{ row: 4, lineNo: 1, itemId: 11, sku: "A-1", quantity: 5 }] },
+      {
+        firstRow: 2,
+        orderNumber: "SO-1",
+        customerRef: "PO-9",
+        priority: 1,
+        cutoffAt: new Date("2026-12-03T16:30:00Z"),
+        lines: [
+          { row: 2, lineNo: 1, itemId: 11, sku: "A-1", quantity: 3 },
+          { row: 3, lineNo: 2, itemId: 12, sku: "a-2", quantity: 1 },
+        ],
+      },
+      {
+        firstRow: 4,
+        orderNumber: "SO-2",
+        customerRef: null,
+        priority: 2,
+        cutoffAt: null,
+        lines: [{ row: 4, lineNo: 1, itemId: 11, sku: "A-1", quantity: 5 }],
+      },
     ]);
   });
 

@@ -15,13 +15,18 @@ describe("a pool's crash names its kind", () => {
     } finally {
       await pool.close();
     }
-    expect((await pool.run({ n: 2 }).catch((e: unknown) => e)) as TaskError).toMatchObject({ reason: "closed", message: "the wave planning pool is closed" });
+    expect((await pool.run({ n: 2 }).catch((e: unknown) => e)) as TaskError).toMatchObject({
+      reason: "closed",
+      message: "the wave planning pool is closed",
+    });
   });
 
   it("the routing pool still says routing", async () => {
     const pool = new RoutingPool({ workerPath: crash });
     try {
-      const err = (await pool.run({ kind: "floyd-warshall", graph: { nodes: [], edges: [] } as never }).catch((e: unknown) => e)) as TaskError;
+      const err = (await pool
+        .run({ kind: "floyd-warshall", graph: { nodes: [], edges: [] } as never })
+        .catch((e: unknown) => e)) as TaskError;
       expect(err.message).toMatch(/^routing worker exited with code 3$/);
     } finally {
       await pool.close();

@@ -16,11 +16,31 @@ function fakeStore() {
   const live = (r: Row) => r.status === "queued" || r.status === "running";
   const store: JobStore = {
     async createOrJoin(siteId, kind, key, userId, message, input): Promise<JobStart> {
-      const existing = [...rows.values()].reverse().find((r) => r.key === key && r.status !== "failed" && r.status !== "cancelled");
-      if (existing) return { job: { ...existing }, created: false, startedBy: existing.userId ? { id: existing.userId, name: names[existing.userId] ?? "someone" } : null };
+      const existing = [...rows.values()]
+        .reverse()
+        .find((r) => r.key === key && r.status !== "failed" && r.status !== "cancelled");
+      if (existing)
+        return {
+          job: { ...existing },
+          created: false,
+          startedBy: existing.userId ? { id: existing.userId, name: names[existing.userId] ?? "someone" } : null,
+        };
       const id = `job${next++}`;
       const at = new Date(0).toISOString();
-      rows.set(id, { id, kind, status: "queued", progress: 0, message, result: null, createdAt: at, updatedAt: at, siteId, userId, input, key });
+      rows.set(id, {
+        id,
+        kind,
+        status: "queued",
+        progress: 0,
+        message,
+        result: null,
+        createdAt: at,
+        updatedAt: at,
+        siteId,
+        userId,
+        input,
+        key,
+      });
       return { job: { ...rows.get(id)! }, created: true, startedBy: null };
     },
     async claim(id, startMessage): Promise<JobToRun | null> {
@@ -43,7 +63,13 @@ function fakeStore() {
   return { store, rows };
 }
 
-const user = (id: string, role: SignedInUser["role"] = "admin"): SignedInUser => ({ id, email: `${id}@example.test`, displayName: id, role, siteId: 1 });
+const user = (id: string, role: SignedInUser["role"] = "admin"): SignedInUser => ({
+  id,
+  email: `${id}@example.test`,
+  displayName: id,
+  role,
+  siteId: 1,
+});
 const refusal = (by: string, job: JobDTO) => `${by} has it (${job.status})`;
 
 /** A runner whose queue holds jobs until `drain` runs them, so a test sees each step. */
@@ -58,7 +84,8 @@ function setUp(run: JobDefinition<{ n: number }>["run"]) {
     failureMessage: (e) => `Failed: ${(e as Error).message}`,
     run,
   });
-  const start = (u: SignedInUser, key = "k") => runner.startJob(kind, { siteId: 1, key, userId: u.id, message: "Waiting", input: { n: 7 } }, refusal);
+  const start = (u: SignedInUser, key = "k") =>
+    runner.startJob(kind, { siteId: 1, key, userId: u.id, message: "Waiting", input: { n: 7 } }, refusal);
   const drain = () => Promise.all(queued.splice(0).map((id) => runJob(id)));
   return { runner, rows, start, drain, queued };
 }
@@ -72,7 +99,11 @@ describe("starting and joining a job", () => {
     expect(queued, "a joined job is not queued twice").toEqual([first.id]);
     const refused = await start(user("bob")).catch((e: unknown) => e);
     expect(refused).toBeInstanceOf(HttpError);
-    expect(refused).toMatchObject({ status: 409, message: "Ann has it (queued)", extra: { jobId: first.id, startedBy: "Ann" } });
+    expect(refused).toMatchObject({
+      status: 409,
+      message: "Ann has it (queued)",
+      extra: { jobId: first.id, startedBy: "Ann" },
+    });
   });
 
   it("runs the job from its stored input and ends it done with its result", async () => {
@@ -106,11 +137,17 @@ describe("cancelling a job", () => {
     let ran = false;
     const { runner, start, drain, rows } = setUp(async () => void (ran = true));
     const job = await start(user("ann"));
-    expect(await runner.cancelJob(user("ann"), job.id)).toMatchObject({ stopped: true, job: { status: "cancelled", message: "Cancelled; nothing changed." } });
+    expect(await runner.cancelJob(user("ann"), job.id)).toMatchObject({
+      stopped: true,
+      job: { status: "cancelled", message: "Cancelled; nothing changed." },
+    });
     await drain();
     expect(ran).toBe(false);
     expect(rows.get(job.id)?.status).toBe("cancelled");
-    expect(await runner.cancelJob(user("ann"), job.id), "a repeated cancel answers like the first").toMatchObject({ stopped: false, job: { status: "cancelled" } });
+    expect(await runner.cancelJob(user("ann"), job.id), "a repeated cancel answers like the first").toMatchObject({
+      stopped: false,
+      job: { status: "cancelled" },
+    });
   });
 
   it("a running job sees its signal abort, and its finish cannot undo the cancel", async () => {
@@ -136,7 +173,9 @@ describe("cancelling a job", () => {
     const { start, drain, rows } = setUp(async ({ signal, progress }) => {
       rows.get([...rows.keys()][0]!)!.status = "cancelled";
       progress(0.5, "Halfway");
-      await new Promise<void>((resolve, reject) => signal.addEventListener("abort", () => reject(new Error("aborted")), { once: true }));
+      await new Promise<void>((resolve, reject) =>
+        signal.addEventListener("abort", () => reject(new Error("aborted")), { once: true }),
+      );
     });
     const job = await start(user("ann"));
     await drain();
@@ -144,10 +183,15 @@ describe("cancelling a job", () => {
   });
 
   it("a cancel after the job finished is refused with 409; a role that may only watch gets 403; another site's job is not there", async () => {
-    const { runner, start, drain } = setUp(async ({ finish }) => finish(null, { message: "Planned 3 batches", result: null }));
+    const { runner, start, drain } = setUp(async ({ finish }) =>
+      finish(null, { message: "Planned 3 batches", result: null }),
+    );
     const job = await start(user("ann"));
     await drain();
-    await expect(runner.cancelJob(user("ann"), job.id)).rejects.toMatchObject({ status: 409, message: expect.stringMatching(/already finished \(Planned 3 batches\)/) });
+    await expect(runner.cancelJob(user("ann"), job.id)).rejects.toMatchObject({
+      status: 409,
+      message: expect.stringMatching(/already finished \(Planned 3 batches\)/),
+    });
     await expect(runner.cancelJob(user("pat", "picker"), job.id)).rejects.toMatchObject({ status: 404 });
     expect((await runner.watchJob(user("pam", "planner"), job.id)).status).toBe("done");
     await expect(runner.watchJob({ ...user("ann"), siteId: 2 }, job.id)).rejects.toMatchObject({ status: 404 });

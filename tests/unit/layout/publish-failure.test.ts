@@ -4,8 +4,16 @@ import { HttpError } from "@/lib/http/errors";
 
 /** What knex hands back when MariaDB refuses a statement: the whole SQL in the message. */
 function databaseError(): Error {
-  const e = new Error("insert into `layout_bins` (`access_point`, `aisle`, `bay`, `code`) values (0, 1, 1, 'WAREHOUSE-000000001-000000001-000000001') - Data too long for column 'code' at row 1");
-  Object.assign(e, { code: "ER_DATA_TOO_LONG", errno: 1406, sqlState: "22001", sqlMessage: "Data too long for column 'code' at row 1", sql: "insert into `layout_bins` …" });
+  const e = new Error(
+    "insert into `layout_bins` (`access_point`, `aisle`, `bay`, `code`) values (0, 1, 1, 'WAREHOUSE-000000001-000000001-000000001') - Data too long for column 'code' at row 1",
+  );
+  Object.assign(e, {
+    code: "ER_DATA_TOO_LONG",
+    errno: 1406,
+    sqlState: "22001",
+    sqlMessage: "Data too long for column 'code' at row 1",
+    sql: "insert into `layout_bins` …",
+  });
   return e;
 }
 
@@ -26,7 +34,10 @@ describe("what a failed publish tells the admin", () => {
   });
 
   it("keeps a message written for a person as it is", () => {
-    const message = publishFailureMessage(new HttpError(409, "The draft changed while publishing started. Reload it and publish again."), "job1");
+    const message = publishFailureMessage(
+      new HttpError(409, "The draft changed while publishing started. Reload it and publish again."),
+      "job1",
+    );
     expect(message).toBe("Publishing failed: The draft changed while publishing started. Reload it and publish again.");
   });
 });

@@ -50,7 +50,9 @@ describe("the walk drawn on a plan", () => {
 
   it("passes by a stop the graph does not hold on the batch page, and leaves its legs empty on the handheld", () => {
     const withGhost = [stops[0]!, 9999, ...stops.slice(1)];
-    expect(batchRouteCells(graph, matrix, "D1", "P1", withGhost)).toEqual(batchRouteCells(graph, matrix, "D1", "P1", stops));
+    expect(batchRouteCells(graph, matrix, "D1", "P1", withGhost)).toEqual(
+      batchRouteCells(graph, matrix, "D1", "P1", stops),
+    );
     const legs = batchLegs(graph, matrix, "D1", "P1", withGhost);
     expect(legs[1]).toEqual({ cells: [], mm: 0 });
     expect(legs[2]).toEqual({ cells: [], mm: 0 });

@@ -26,7 +26,12 @@ const lines = (): StoredPickLine[] => [
 
 describe("the check after a load run", () => {
   it("passes a database that holds exactly what the handhelds were told", () => {
-    expect(checkLedger(sent(), { confirmations: confirmations(), lines: lines() })).toEqual({ acknowledged: 3, refused: 1, unanswered: 0, problems: [] });
+    expect(checkLedger(sent(), { confirmations: confirmations(), lines: lines() })).toEqual({
+      acknowledged: 3,
+      refused: 1,
+      unanswered: 0,
+      problems: [],
+    });
   });
 
   it("finds an acknowledged key that was not stored", () => {
@@ -43,7 +48,13 @@ describe("the check after a load run", () => {
   });
 
   it("finds a quantity counted twice and a line changed without an acknowledgement", () => {
-    const l = lines().map((x) => (x.orderLineId === 1 ? { ...x, pickedQty: 4 } : x.orderLineId === 4 ? { ...x, pickStatus: "picked" as const, pickedQty: 3, confirmedBy: U } : x));
+    const l = lines().map((x) =>
+      x.orderLineId === 1
+        ? { ...x, pickedQty: 4 }
+        : x.orderLineId === 4
+          ? { ...x, pickStatus: "picked" as const, pickedQty: 3, confirmedBy: U }
+          : x,
+    );
     const r = checkLedger(sent(), { confirmations: confirmations(), lines: l }).problems.join("\n");
     expect(r).toMatch(/line 1 holds picked 4 .* acknowledged picked 2/);
     expect(r).toMatch(/line 4 \(picked\) has 0 stored successes/);
@@ -51,15 +62,25 @@ describe("the check after a load run", () => {
   });
 
   it("finds two acknowledged keys for one line and a stored key no handheld sent", () => {
-    const s = [...sent(), { key: "k5", batchId: 9, orderLineId: 1, userId: U, quantity: 2, short: false, statuses: [200] }];
-    const c = [...confirmations(), { key: "k5", batchId: 9, userId: U, status: 200, orderLineId: 1 }, { key: "stray", batchId: 9, userId: U, status: 409, orderLineId: null }];
+    const s = [
+      ...sent(),
+      { key: "k5", batchId: 9, orderLineId: 1, userId: U, quantity: 2, short: false, statuses: [200] },
+    ];
+    const c = [
+      ...confirmations(),
+      { key: "k5", batchId: 9, userId: U, status: 200, orderLineId: 1 },
+      { key: "stray", batchId: 9, userId: U, status: 409, orderLineId: null },
+    ];
     const r = checkLedger(s, { confirmations: c, lines: lines() }).problems.join("\n");
     expect(r).toMatch(/line 1 was acknowledged twice \(keys k1 and k5\)/);
     expect(r).toMatch(/stored key stray was never sent/);
   });
 
   it("counts keys never answered apart and accepts them stored at most once", () => {
-    const s = [...sent(), { key: "k6", batchId: 9, orderLineId: 4, userId: U, quantity: 3, short: false, statuses: [] }];
+    const s = [
+      ...sent(),
+      { key: "k6", batchId: 9, orderLineId: 4, userId: U, quantity: 3, short: false, statuses: [] },
+    ];
     const r = checkLedger(s, { confirmations: confirmations(), lines: lines() });
     expect(r.unanswered).toBe(1);
     expect(r.problems).toEqual([]);

@@ -6,10 +6,13 @@ import { invitationMail, setPasswordLink } from "@/lib/mail/messages";
 import { looksLikeToken, newLinkToken, tokenSha256 } from "@/lib/mail/token";
 
 describe("header text", () => {
-  it.each(["a\r\nBcc: x@y", "a\nBcc: x@y", "a\rBcc: x@y", "a\u2028Bcc: x@y", "a\u0000\u0085Bcc: x@y"])("strips the line break in %j", (s) => {
-    expect(headerText(s)).toBe("a Bcc: x@y");
-    expect(hasControlCharacters(s)).toBe(true);
-  });
+  it.each(["a\r\nBcc: x@y", "a\nBcc: x@y", "a\rBcc: x@y", "a\u2028Bcc: x@y", "a\u0000\u0085Bcc: x@y"])(
+    "strips the line break in %j",
+    (s) => {
+      expect(headerText(s)).toBe("a Bcc: x@y");
+      expect(hasControlCharacters(s)).toBe(true);
+    },
+  );
   it("keeps ordinary names, accents included", () => {
     expect(headerText("  Zoë   O'Hara-Nkemelu ")).toBe("Zoë O'Hara-Nkemelu");
     expect(hasControlCharacters("Zoë O'Hara")).toBe(false);
@@ -18,7 +21,9 @@ describe("header text", () => {
 });
 
 describe("addresses", () => {
-  it.each(["picker@bramblegate.example", "a.b+tag@sub.example.co.uk", "t1-2@tests.example"])("accepts %s", (a) => expect(isValidAddress(a)).toBe(true));
+  it.each(["picker@bramblegate.example", "a.b+tag@sub.example.co.uk", "t1-2@tests.example"])("accepts %s", (a) =>
+    expect(isValidAddress(a)).toBe(true),
+  );
   it.each([
     "victim@x.example\r\nBcc: y@z.example",
     "a@b.example, c@d.example",
@@ -62,7 +67,13 @@ describe("invitation mail", () => {
   it("carries the link and a name without line breaks", () => {
     const link = setPasswordLink("http://127.0.0.1:3001", "tok");
     expect(link).toBe("http://127.0.0.1:3001/set-password?token=tok");
-    const m = invitationMail({ to: "a@b.example", name: "a\r\nBcc: x@y", siteName: "Bramblegate", invitedBy: "Ada", link });
+    const m = invitationMail({
+      to: "a@b.example",
+      name: "a\r\nBcc: x@y",
+      siteName: "Bramblegate",
+      invitedBy: "Ada",
+      link,
+    });
     expect(m.toName).toBe("a Bcc: x@y");
     expect(m.text).toContain(link);
     expect(m.subject).not.toMatch(/[\r\n]/);

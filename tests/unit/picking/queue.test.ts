@@ -21,12 +21,23 @@ import {
   type SendResult,
 } from "@/lib/picking/queue";
 
-const entry = (key: string, orderLineId: number, more: Partial<QueuedConfirmation> = {}): QueuedConfirmation => ({ idempotencyKey: key, orderLineId, quantity: 2, binCode: `A0${orderLineId}`, batchVersion: 1, ...more });
+const entry = (key: string, orderLineId: number, more: Partial<QueuedConfirmation> = {}): QueuedConfirmation => ({
+  idempotencyKey: key,
+  orderLineId,
+  quantity: 2,
+  binCode: `A0${orderLineId}`,
+  batchVersion: 1,
+  ...more,
+});
 const keys = (q: readonly QueuedConfirmation[]) => q.map((c) => c.idempotencyKey);
 
 function memoryStore() {
   const mem = new Map<string, string>();
-  const store: KeyValueStore = { getItem: (k) => mem.get(k) ?? null, setItem: (k, v) => void mem.set(k, v), removeItem: (k) => void mem.delete(k) };
+  const store: KeyValueStore = {
+    getItem: (k) => mem.get(k) ?? null,
+    setItem: (k, v) => void mem.set(k, v),
+    removeItem: (k) => void mem.delete(k),
+  };
   return { mem, store };
 }
 
@@ -85,13 +96,27 @@ describe("the server's answers", () => {
 describe("what the screen shows", () => {
   it("a confirmation carries the action, what the screen showed and its key", () => {
     const c = confirmationFor({ orderLineId: 4, scan: "A04", quantity: 3 }, { binCode: "A04", batchVersion: 7 }, "k");
-    expect(c).toEqual({ idempotencyKey: "k", orderLineId: 4, scan: "A04", quantity: 3, binCode: "A04", batchVersion: 7 });
+    expect(c).toEqual({
+      idempotencyKey: "k",
+      orderLineId: 4,
+      scan: "A04",
+      quantity: 3,
+      binCode: "A04",
+      batchVersion: 7,
+    });
     expect(Object.keys(c)[0]).toBe("idempotencyKey");
   });
 
   it("marks a pick or a short pick at once, over what the server says", () => {
-    const marks = withMark(withMark({}, { orderLineId: 1, quantity: 2 }), { orderLineId: 2, quantity: 0, short: { reason: "damaged" } });
-    expect(marks).toEqual({ 1: { status: "picked", pickedQty: 2, shortReason: null }, 2: { status: "short", pickedQty: 0, shortReason: "damaged" } });
+    const marks = withMark(withMark({}, { orderLineId: 1, quantity: 2 }), {
+      orderLineId: 2,
+      quantity: 0,
+      short: { reason: "damaged" },
+    });
+    expect(marks).toEqual({
+      1: { status: "picked", pickedQty: 2, shortReason: null },
+      2: { status: "short", pickedQty: 0, shortReason: "damaged" },
+    });
     expect(lineStatus(marks, 1, "open")).toBe("picked");
     expect(lineStatus(marks, 2, "open")).toBe("short");
     expect(lineStatus(marks, 3, "open")).toBe("open");
@@ -100,12 +125,16 @@ describe("what the screen shows", () => {
   it("a refusal undoes the tick; success, already-confirmed and no answer keep it", () => {
     const marks = withMark({}, { orderLineId: 1, quantity: 2 });
     expect(marksAfterAnswer(marks, { orderLineId: 1, quantity: 2 }, "refused")).toEqual({});
-    for (const o of ["accepted", "already", "undelivered"] as const) expect(marksAfterAnswer(marks, { orderLineId: 1, quantity: 2 }, o)).toBe(marks);
+    for (const o of ["accepted", "already", "undelivered"] as const)
+      expect(marksAfterAnswer(marks, { orderLineId: 1, quantity: 2 }, o)).toBe(marks);
   });
 
   it("after a reload, queued confirmations count again, and a mark made since wins", () => {
     const queued = [entry("a", 1), entry("b", 2, { quantity: 0, short: { reason: "empty bin" } })];
-    expect(mergeQueued({}, queued)).toEqual({ 1: markOf(queued[0]!), 2: { status: "short", pickedQty: 0, shortReason: "empty bin" } });
+    expect(mergeQueued({}, queued)).toEqual({
+      1: markOf(queued[0]!),
+      2: { status: "short", pickedQty: 0, shortReason: "empty bin" },
+    });
     const since = withMark({}, { orderLineId: 1, quantity: 1, short: { reason: "damaged" } });
     expect(mergeQueued(since, queued)[1]).toEqual({ status: "short", pickedQty: 1, shortReason: "damaged" });
     expect(mergeQueued(since, [])).toEqual(since);
@@ -137,7 +166,11 @@ describe("the queue in storage", () => {
     for (const c of [entry("a", 1), entry("b", 2), entry("c", 3)]) enqueue(store, 5, c);
     const sent: string[] = [];
     const answers: Record<string, number> = { a: 200, b: 503 };
-    const first = await flushQueue(store, 5, async (c) => (sent.push(c.idempotencyKey), { status: answers[c.idempotencyKey] ?? 200, body: {} }));
+    const first = await flushQueue(
+      store,
+      5,
+      async (c) => (sent.push(c.idempotencyKey), { status: answers[c.idempotencyKey] ?? 200, body: {} }),
+    );
     expect(first).toEqual({ sent: 1, left: 2 });
     expect(keys(readQueue(store, 5))).toEqual(["b", "c"]);
     const second = await flushQueue(store, 5, async (c) => (sent.push(c.idempotencyKey), { status: 200, body: {} }));
@@ -157,7 +190,11 @@ describe("the queue in storage", () => {
       (c, r) => seen.push([c.idempotencyKey, r.status]),
     );
     expect(run).toEqual({ sent: 3, left: 0 });
-    expect(seen).toEqual([["a", 422], ["b", 409], ["c", 200]]);
+    expect(seen).toEqual([
+      ["a", 422],
+      ["b", 409],
+      ["c", 200],
+    ]);
   });
 
   it("sends in the same run what is queued while it runs; a repeat of the key in flight merges into it", async () => {

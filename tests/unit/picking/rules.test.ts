@@ -1,5 +1,14 @@
 import { describe, expect, it } from "vitest";
-import { cautionsOf, judgeConfirmation, lineForScan, NEW_BIN_TAP_HOLD_MS, scanMatches, TAP_HOLD_MS, tapHoldMs, walkingOrder } from "@/lib/picking/rules";
+import {
+  cautionsOf,
+  judgeConfirmation,
+  lineForScan,
+  NEW_BIN_TAP_HOLD_MS,
+  scanMatches,
+  TAP_HOLD_MS,
+  tapHoldMs,
+  walkingOrder,
+} from "@/lib/picking/rules";
 import { newIdempotencyKey } from "@/lib/picking/key";
 import { enqueue, flushQueue, readQueue, type KeyValueStore } from "@/lib/picking/queue";
 
@@ -18,28 +27,59 @@ describe("a scan", () => {
 
 describe("judging a confirmation", () => {
   it("refuses a wrong scan naming both bins, a line already done, a planned batch and a wrong quantity", () => {
-    expect(judgeConfirmation(line, { status: "released", version: 5 }, { scan: "B01-01-1", quantity: 4, ...SAW })).toMatchObject({ status: 422, error: expect.stringContaining("That is B01-01-1; this stop is bin A03-04-2") });
-    expect(judgeConfirmation({ ...line, pickStatus: "picked" }, { status: "picking", version: 5 }, { quantity: 4, ...SAW })).toMatchObject({ status: 409 });
-    expect(judgeConfirmation(line, { status: "planned", version: 5 }, { quantity: 4, ...SAW })).toMatchObject({ status: 409 });
-    expect(judgeConfirmation(null, { status: "released", version: 5 }, { quantity: 4, ...SAW })).toMatchObject({ status: 404 });
-    expect(judgeConfirmation(line, { status: "released", version: 5 }, { quantity: 3, ...SAW })).toMatchObject({ status: 422 });
+    expect(
+      judgeConfirmation(line, { status: "released", version: 5 }, { scan: "B01-01-1", quantity: 4, ...SAW }),
+    ).toMatchObject({ status: 422, error: expect.stringContaining("That is B01-01-1; this stop is bin A03-04-2") });
+    expect(
+      judgeConfirmation({ ...line, pickStatus: "picked" }, { status: "picking", version: 5 }, { quantity: 4, ...SAW }),
+    ).toMatchObject({ status: 409 });
+    expect(judgeConfirmation(line, { status: "planned", version: 5 }, { quantity: 4, ...SAW })).toMatchObject({
+      status: 409,
+    });
+    expect(judgeConfirmation(null, { status: "released", version: 5 }, { quantity: 4, ...SAW })).toMatchObject({
+      status: 404,
+    });
+    expect(judgeConfirmation(line, { status: "released", version: 5 }, { quantity: 3, ...SAW })).toMatchObject({
+      status: 422,
+    });
   });
   it("accepts a full pick and a short pick of 0 to ordered − 1", () => {
-    expect(judgeConfirmation(line, { status: "released", version: 5 }, { scan: "FX-1001", quantity: 4, ...SAW }).apply).toEqual({ status: "picked", pickedQty: 4, shortReason: null });
-    expect(judgeConfirmation(line, { status: "picking", version: 5 }, { quantity: 0, short: { reason: "empty bin" }, ...SAW }).apply).toEqual({ status: "short", pickedQty: 0, shortReason: "empty bin" });
-    expect(judgeConfirmation(line, { status: "picking", version: 5 }, { quantity: 4, short: { reason: "damaged" }, ...SAW }).status).toBe(422);
+    expect(
+      judgeConfirmation(line, { status: "released", version: 5 }, { scan: "FX-1001", quantity: 4, ...SAW }).apply,
+    ).toEqual({ status: "picked", pickedQty: 4, shortReason: null });
+    expect(
+      judgeConfirmation(
+        line,
+        { status: "picking", version: 5 },
+        { quantity: 0, short: { reason: "empty bin" }, ...SAW },
+      ).apply,
+    ).toEqual({ status: "short", pickedQty: 0, shortReason: "empty bin" });
+    expect(
+      judgeConfirmation(line, { status: "picking", version: 5 }, { quantity: 4, short: { reason: "damaged" }, ...SAW })
+        .status,
+    ).toBe(422);
   });
 });
 
 describe("a confirmation belongs to what the picker saw", () => {
   it("is refused when the screen showed another bin for the line, or the batch was given back or taken since", () => {
-    const otherBin = judgeConfirmation(line, { status: "picking", version: 5 }, { quantity: 4, binCode: "A03-05-1", batchVersion: 5 });
+    const otherBin = judgeConfirmation(
+      line,
+      { status: "picking", version: 5 },
+      { quantity: 4, binCode: "A03-05-1", batchVersion: 5 },
+    );
     expect(otherBin).toMatchObject({ status: 409, error: expect.stringContaining("showed bin A03-05-1") });
     expect(otherBin.apply).toBeUndefined();
     const moved = judgeConfirmation(line, { status: "picking", version: 6 }, { quantity: 4, ...SAW });
     expect(moved).toMatchObject({ status: 409, error: expect.stringContaining("given back or taken") });
     expect(moved.apply).toBeUndefined();
-    expect(judgeConfirmation(line, { status: "picking", version: 5 }, { quantity: 4, binCode: " a03-04-2 ", batchVersion: 5 }).status).toBe(200);
+    expect(
+      judgeConfirmation(
+        line,
+        { status: "picking", version: 5 },
+        { quantity: 4, binCode: " a03-04-2 ", batchVersion: 5 },
+      ).status,
+    ).toBe(200);
   });
   it("keeps the tap button disarmed longer when the next line is in another bin", () => {
     expect(tapHoldMs(null, "A03-04-2")).toBe(TAP_HOLD_MS);
@@ -62,9 +102,14 @@ describe("a stop with lines in two bins", () => {
 
 describe("idempotency keys on a handheld over plain HTTP", () => {
   it("are made from getRandomValues alone (no randomUUID outside a secure context), 32 hex digits, all different", () => {
-    const insecure = { getRandomValues: <T extends ArrayBufferView | null>(a: T) => globalThis.crypto.getRandomValues(a as Uint8Array) as unknown as T };
+    const insecure = {
+      getRandomValues: <T extends ArrayBufferView | null>(a: T) =>
+        globalThis.crypto.getRandomValues(a as Uint8Array) as unknown as T,
+    };
     expect("randomUUID" in insecure).toBe(false);
-    const keys = new Set(Array.from({ length: 1000 }, () => newIdempotencyKey(insecure as Pick<Crypto, "getRandomValues">)));
+    const keys = new Set(
+      Array.from({ length: 1000 }, () => newIdempotencyKey(insecure as Pick<Crypto, "getRandomValues">)),
+    );
     expect(keys.size).toBe(1000);
     for (const k of keys) expect(k).toMatch(/^[0-9a-f]{32}$/);
   });
@@ -76,7 +121,10 @@ describe("walking order and cautions", () => {
     expect(walkingOrder([1, 2, 3, 4], [2, 1])).toEqual([3, 4, 2, 1]);
   });
   it("warns of high levels and heavy lines", () => {
-    expect(cautionsOf([{ binCode: "A01-01-3", unitWeightG: 5000, quantity: 3 }], new Set(["A01-01-3"]))).toEqual(["high-level", "heavy"]);
+    expect(cautionsOf([{ binCode: "A01-01-3", unitWeightG: 5000, quantity: 3 }], new Set(["A01-01-3"]))).toEqual([
+      "high-level",
+      "heavy",
+    ]);
     expect(cautionsOf([{ binCode: "A01-01-1", unitWeightG: 100, quantity: 3 }], new Set())).toEqual([]);
   });
 });
@@ -84,7 +132,11 @@ describe("walking order and cautions", () => {
 describe("the device's queue", () => {
   it("keeps confirmations in order until the server answers, and drops a repeat of the same key", async () => {
     const mem = new Map<string, string>();
-    const store: KeyValueStore = { getItem: (k) => mem.get(k) ?? null, setItem: (k, v) => void mem.set(k, v), removeItem: (k) => void mem.delete(k) };
+    const store: KeyValueStore = {
+      getItem: (k) => mem.get(k) ?? null,
+      setItem: (k, v) => void mem.set(k, v),
+      removeItem: (k) => void mem.delete(k),
+    };
     enqueue(store, 7, { idempotencyKey: "k1", orderLineId: 1, quantity: 1, binCode: "A", batchVersion: 1 });
     enqueue(store, 7, { idempotencyKey: "k2", orderLineId: 2, quantity: 1, binCode: "B", batchVersion: 1 });
     enqueue(store, 7, { idempotencyKey: "k1", orderLineId: 1, quantity: 1, binCode: "A", batchVersion: 1 });

@@ -43,7 +43,9 @@ describe("npm start's watch over MariaDB", () => {
     // Each pause starts at the look after the failure that it follows.
     expect(startsAt(out)).toEqual([1, 4, 9, 18, 35]);
     expect(out).toMatch(/^gave up at 36$/m);
-    expect(err).toMatch(/MariaDB \(pid 4242\) stopped unexpectedly \(killed by SIGKILL\); restarting it in 1 s \(attempt 1 of 5\)/);
+    expect(err).toMatch(
+      /MariaDB \(pid 4242\) stopped unexpectedly \(killed by SIGKILL\); restarting it in 1 s \(attempt 1 of 5\)/,
+    );
     expect(err).toMatch(/did not start again\); restarting it in 16 s \(attempt 5 of 5\)/);
     expect(err).toMatch(/after 5 restarts in a row; giving up\. Its log: \/tmp\/mysqld\.err/);
   });

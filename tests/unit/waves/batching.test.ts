@@ -1,7 +1,17 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import type { BuiltLayout } from "@/lib/layout-versions/build";
 import { planPick } from "@/lib/routing/plan";
-import { BatchingCancelled, batchOrders, binCodesOf, compareUrgency, cutoffMs, type BatchingMethod, type BatchingResult, type CartLimits, type WaveOrder } from "@/lib/batching";
+import {
+  BatchingCancelled,
+  batchOrders,
+  binCodesOf,
+  compareUrgency,
+  cutoffMs,
+  type BatchingMethod,
+  type BatchingResult,
+  type CartLimits,
+  type WaveOrder,
+} from "@/lib/batching";
 import { demoOrders, type DemoItem } from "@/db/seeds/demo/orders";
 import { demoLayout } from "./fixture";
 
@@ -26,14 +36,44 @@ function weight(o: WaveOrder): number {
 
 /** Orders that cannot go on any cart: too many lines, too heavy, an unknown bin, no lines, a bad cut-off. */
 function awkwardOrders(): WaveOrder[] {
-  const line = (lineId: number, binCode: string, quantity = 1, unitWeightG = 100) => ({ lineId, sku: `X-${lineId}`, binCode, quantity, unitWeightG });
+  const line = (lineId: number, binCode: string, quantity = 1, unitWeightG = 100) => ({
+    lineId,
+    sku: `X-${lineId}`,
+    binCode,
+    quantity,
+    unitWeightG,
+  });
   const bins = items.map((i) => i.binCode);
   return [
-    { orderId: 9001, orderNumber: "FS-TEST-LINES", cutoffAt: null, priority: 1, lines: Array.from({ length: 21 }, (_, i) => line(90010 + i, bins[i] as string)) },
-    { orderId: 9002, orderNumber: "FS-TEST-HEAVY", cutoffAt: null, priority: 1, lines: [line(90020, bins[0] as string, 50, 1000)] },
-    { orderId: 9003, orderNumber: "FS-TEST-BIN", cutoffAt: null, priority: 1, lines: [line(90030, "99-999-9"), line(90031, bins[1] as string)] },
+    {
+      orderId: 9001,
+      orderNumber: "FS-TEST-LINES",
+      cutoffAt: null,
+      priority: 1,
+      lines: Array.from({ length: 21 }, (_, i) => line(90010 + i, bins[i] as string)),
+    },
+    {
+      orderId: 9002,
+      orderNumber: "FS-TEST-HEAVY",
+      cutoffAt: null,
+      priority: 1,
+      lines: [line(90020, bins[0] as string, 50, 1000)],
+    },
+    {
+      orderId: 9003,
+      orderNumber: "FS-TEST-BIN",
+      cutoffAt: null,
+      priority: 1,
+      lines: [line(90030, "99-999-9"), line(90031, bins[1] as string)],
+    },
     { orderId: 9004, orderNumber: "FS-TEST-EMPTY", cutoffAt: null, priority: 1, lines: [] },
-    { orderId: 9005, orderNumber: "FS-TEST-DATE", cutoffAt: "next Tuesday", priority: 1, lines: [line(90050, bins[2] as string)] },
+    {
+      orderId: 9005,
+      orderNumber: "FS-TEST-DATE",
+      cutoffAt: "next Tuesday",
+      priority: 1,
+      lines: [line(90050, bins[2] as string)],
+    },
   ];
 }
 
@@ -48,7 +88,10 @@ describe.each(METHODS)("batchOrders (%s)", (method) => {
       expect(os.length).toBeLessThanOrEqual(LIMITS.totesPerCart);
       expect(b.lineCount).toBe(os.reduce((s, o) => s + o.lines.length, 0));
       expect(b.lineCount).toBeLessThanOrEqual(LIMITS.maxLines);
-      expect(b.weightG).toBeCloseTo(os.reduce((s, o) => s + weight(o), 0), 6);
+      expect(b.weightG).toBeCloseTo(
+        os.reduce((s, o) => s + weight(o), 0),
+        6,
+      );
       expect(b.weightG).toBeLessThanOrEqual(LIMITS.maxWeightG);
     }
   });
@@ -56,7 +99,8 @@ describe.each(METHODS)("batchOrders (%s)", (method) => {
   it("puts every line in exactly one batch, or reports its order with a reason", () => {
     const wave = [...orders, ...awkwardOrders()];
     const r = run(method, wave);
-    const lineIds = (ids: number[]) => ids.flatMap((id) => wave.find((o) => o.orderId === id)?.lines.map((l) => l.lineId) ?? []);
+    const lineIds = (ids: number[]) =>
+      ids.flatMap((id) => wave.find((o) => o.orderId === id)?.lines.map((l) => l.lineId) ?? []);
     const batched = lineIds(r.batches.flatMap((b) => b.orders));
     expect(new Set(batched).size).toBe(batched.length);
     const reported = r.unbatchable.map((u) => u.orderId);
@@ -74,14 +118,20 @@ describe.each(METHODS)("batchOrders (%s)", (method) => {
     expect(reason(9003)).toMatch(/99-999-9.*not on the published layout/);
     expect(reason(9004)).toMatch(/no lines/);
     expect(reason(9005)).toMatch(/not a date/);
-    expect(r.batches.flatMap((b) => b.orders).sort((a, b) => a - b)).toEqual(orders.map((o) => o.orderId).sort((a, b) => a - b));
+    expect(r.batches.flatMap((b) => b.orders).sort((a, b) => a - b)).toEqual(
+      orders.map((o) => o.orderId).sort((a, b) => a - b),
+    );
   });
 
   it("stores for each batch the route a fresh planPick gives for its lines", () => {
     const r = run(method);
     const byId = new Map(orders.map((o) => [o.orderId, o]));
     for (const b of r.batches) {
-      const fresh = planPick(layout.graph, layout.matrix, { from: "D1", to: "P1", binCodes: binCodesOf(b.orders.map((id) => byId.get(id) as WaveOrder)) });
+      const fresh = planPick(layout.graph, layout.matrix, {
+        from: "D1",
+        to: "P1",
+        binCodes: binCodesOf(b.orders.map((id) => byId.get(id) as WaveOrder)),
+      });
       expect(b.route.lengthMm).toBe(fresh.lengthMm);
       expect(b.route.baselineMm).toBe(fresh.baselineMm);
       expect(b.route.optimal).toBe(fresh.optimal);
@@ -113,7 +163,8 @@ describe.each(METHODS)("batchOrders (%s)", (method) => {
 });
 
 describe("batch order and cut-offs", () => {
-  const queue = (wave: readonly WaveOrder[]) => [...wave].map((order) => ({ order, cutoffMs: cutoffMs(order) })).sort(compareUrgency);
+  const queue = (wave: readonly WaveOrder[]) =>
+    [...wave].map((order) => ({ order, cutoffMs: cutoffMs(order) })).sort(compareUrgency);
 
   it("first-come fills carts in cut-off, priority, order-number order", () => {
     const r = run("first-come");
@@ -125,7 +176,8 @@ describe("batch order and cut-offs", () => {
     const rank = new Map(queue(orders).map((q, i) => [q.order.orderId, i]));
     r.batches.forEach((b, i) => {
       const seed = rank.get(b.orders[0] as number) as number;
-      for (const later of r.batches.slice(i)) for (const id of later.orders) expect(rank.get(id)).toBeGreaterThanOrEqual(seed);
+      for (const later of r.batches.slice(i))
+        for (const id of later.orders) expect(rank.get(id)).toBeGreaterThanOrEqual(seed);
     });
   });
 
@@ -138,7 +190,10 @@ describe("batch order and cut-offs", () => {
       const seedCut = cut.get(b.orders[0] as number) as number;
       if (!b.orders.some((id) => (cut.get(id) as number) > seedCut)) return;
       mixed++;
-      const leftBehind = r.batches.slice(i + 1).flatMap((x) => x.orders).filter((id) => cut.get(id) === seedCut);
+      const leftBehind = r.batches
+        .slice(i + 1)
+        .flatMap((x) => x.orders)
+        .filter((id) => cut.get(id) === seedCut);
       expect(leftBehind).toEqual([]);
     });
     // The demo's cut-off windows do not divide into whole carts, so some carts must be topped up.
@@ -148,7 +203,9 @@ describe("batch order and cut-offs", () => {
 
 describe("input checks", () => {
   it("throws for an unknown depot or drop-off, and for limits that are not positive", () => {
-    expect(() => batchOrders(layout.graph, layout.matrix, orders, LIMITS, { method: "savings", from: "NOPE", to: "P1" })).toThrow(/NOPE/);
+    expect(() =>
+      batchOrders(layout.graph, layout.matrix, orders, LIMITS, { method: "savings", from: "NOPE", to: "P1" }),
+    ).toThrow(/NOPE/);
     expect(() => run("savings", orders, { ...LIMITS, totesPerCart: 0 })).toThrow(RangeError);
   });
 

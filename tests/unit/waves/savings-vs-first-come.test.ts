@@ -18,7 +18,12 @@ beforeAll(async () => {
 describe("route savings against first-come on the demo week", () => {
   const total = (method: BatchingMethod, seed: number) => {
     const orders = demoOrders(items, { days: 5, perDay: 60, seed });
-    const r = batchOrders(layout.graph, layout.matrix, orders, DEMO_CART_LIMITS, { method, from: "D1", to: "P1", route: { exactLimit: 14 } });
+    const r = batchOrders(layout.graph, layout.matrix, orders, DEMO_CART_LIMITS, {
+      method,
+      from: "D1",
+      to: "P1",
+      route: { exactLimit: 14 },
+    });
     return { mm: r.batches.reduce((s, b) => s + b.route.lengthMm, 0), batches: r.batches.length };
   };
 

@@ -12,7 +12,13 @@ beforeAll(async () => {
 });
 
 const reasonOf = (order: WaveOrder) =>
-  batchOrders(layout.graph, layout.matrix, [order], { totesPerCart: 4, maxLines: 30, maxWeightG: 100_000 }, { method: "first-come", from: "D1", to: "P1" }).unbatchable[0]?.reason ?? "";
+  batchOrders(
+    layout.graph,
+    layout.matrix,
+    [order],
+    { totesPerCart: 4, maxLines: 30, maxWeightG: 100_000 },
+    { method: "first-come", from: "D1", to: "P1" },
+  ).unbatchable[0]?.reason ?? "";
 
 describe("the reason an order cannot be batched for its bins", () => {
   it("names the item master's bins of a line whose item has none on the layout version (never an empty code)", () => {
@@ -34,7 +40,14 @@ describe("the reason an order cannot be batched for its bins", () => {
   });
 
   it("names the first five lines and counts the rest", () => {
-    const lines = Array.from({ length: 8 }, (_, i) => ({ lineId: i + 1, sku: `SKU-${i + 1}`, binCode: "", itemBins: [`ZZ-0${i + 1}-1`], quantity: 1, unitWeightG: 100 }));
+    const lines = Array.from({ length: 8 }, (_, i) => ({
+      lineId: i + 1,
+      sku: `SKU-${i + 1}`,
+      binCode: "",
+      itemBins: [`ZZ-0${i + 1}-1`],
+      quantity: 1,
+      unitWeightG: 100,
+    }));
     const reason = reasonOf({ orderId: 2, orderNumber: "FS-MANY", cutoffAt: null, priority: 2, lines });
     for (let i = 1; i <= 5; i++) expect(reason).toContain(`SKU-${i} is in ZZ-0${i}-1`);
     expect(reason).not.toContain("SKU-6");

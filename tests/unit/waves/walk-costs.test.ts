@@ -21,11 +21,17 @@ describe("WalkCosts and InsertionRoute", () => {
     const { wc, start } = costs();
     const g = layout.graph;
     const a = wc.pointOf(10);
-    expect(wc.cost(a, WalkCosts.START)).toBe(accessDistance(g, layout.matrix, g.accessPoints[10] as AccessPoint, nodeAccessPoint(g, start)));
+    expect(wc.cost(a, WalkCosts.START)).toBe(
+      accessDistance(g, layout.matrix, g.accessPoints[10] as AccessPoint, nodeAccessPoint(g, start)),
+    );
     const b = wc.pointOf(150);
     expect(wc.pointOf(150)).toBe(b);
-    expect(wc.cost(a, b)).toBe(accessDistance(g, layout.matrix, g.accessPoints[10] as AccessPoint, g.accessPoints[150] as AccessPoint));
-    expect(wc.cost(b, a)).toBe(accessDistance(g, layout.matrix, g.accessPoints[150] as AccessPoint, g.accessPoints[10] as AccessPoint));
+    expect(wc.cost(a, b)).toBe(
+      accessDistance(g, layout.matrix, g.accessPoints[10] as AccessPoint, g.accessPoints[150] as AccessPoint),
+    );
+    expect(wc.cost(b, a)).toBe(
+      accessDistance(g, layout.matrix, g.accessPoints[150] as AccessPoint, g.accessPoints[10] as AccessPoint),
+    );
   });
 
   it("keeps its length equal to the walk through its stops, and prices additions without making them", () => {

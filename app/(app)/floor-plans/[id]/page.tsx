@@ -16,7 +16,12 @@ export default async function FloorPlanPage({ params }: { params: Promise<{ id: 
   if (!plan) notFound();
   return (
     <>
-      <p className="mb-2 text-sm"><Link className="underline" href="/floor-plans">Floor plans</Link> › {plan.name}</p>
+      <p className="mb-2 text-sm">
+        <Link className="underline" href="/floor-plans">
+          Floor plans
+        </Link>{" "}
+        › {plan.name}
+      </p>
       <h1 className="mb-4">{plan.name}: draft</h1>
       <FloorPlanEditor floorPlanId={plan.id} canEdit={roleMay(user.role, "floorplans.edit")} />
     </>

@@ -27,7 +27,9 @@ export default async function PickPage({ params }: { params: Promise<{ batchId: 
       <div className="mx-auto max-w-md">
         <h1>Batch {batch.batch?.number ?? id}</h1>
         <p className="notice-error mt-4">{batch.message}</p>
-        <Link className="btn-quiet mt-4 w-full" href="/my-batches">Back to my batches</Link>
+        <Link className="btn-quiet mt-4 w-full" href="/my-batches">
+          Back to my batches
+        </Link>
       </div>
     );
   }

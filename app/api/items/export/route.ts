@@ -10,5 +10,9 @@ export const GET = route({ access: "waves.read" }, async ({ user }) => {
   const items = await listItems(user.siteId);
   const rows = items.map((i) => [i.sku, i.description, i.uom, i.unitWeightG, i.bins.join(`${BIN_SEPARATOR} `)]);
   const day = new Date().toISOString().slice(0, 10);
-  return downloadResponse(workbookBytes(TEMPLATE_SHEET.items, [templateHeader("items"), ...rows]), `item-master-${day}.xlsx`, "xlsx");
+  return downloadResponse(
+    workbookBytes(TEMPLATE_SHEET.items, [templateHeader("items"), ...rows]),
+    `item-master-${day}.xlsx`,
+    "xlsx",
+  );
 });

@@ -6,7 +6,9 @@ import { cancelJob, watchJob } from "@/lib/jobs/server";
 
 const JobParams = z.object({ id: textParam() });
 
-export const GET = route({ access: "signed-in", params: JobParams }, async ({ user, params }) => Response.json({ job: await watchJob(user, params.id) }));
+export const GET = route({ access: "signed-in", params: JobParams }, async ({ user, params }) =>
+  Response.json({ job: await watchJob(user, params.id) }),
+);
 
 // 202 only when this request stopped the job; a repeated cancel answers 200 like the first did.
 export const DELETE = route({ access: "signed-in", params: JobParams }, async ({ user, params }) => {

@@ -17,7 +17,9 @@ async function mailResetLink(email: string): Promise<void> {
   try {
     const user = await findUserForSignIn(email);
     if (!user || user.disabled) return;
-    await issueResetToken(user.id, (token) => resetMail({ to: user.email, name: user.displayName, link: setPasswordLink(appOrigin(), token) }));
+    await issueResetToken(user.id, (token) =>
+      resetMail({ to: user.email, name: user.displayName, link: setPasswordLink(appOrigin(), token) }),
+    );
   } catch (e) {
     console.error("could not queue a password reset mail:", (e as Error).message);
   }
@@ -32,11 +34,17 @@ export const POST = route({ access: "public", body: Body }, async ({ body, ip })
   if (!attempt.ok) {
     await audit({ event: "password.reset_throttled", subject: email, ip });
     if (attempt.busy) {
-      throw new HttpError(429, "Many reset requests are arriving at once. Try again in a few seconds.", { retryAt: new Date(Date.now() + BUSY_RETRY_MS).toISOString() });
+      throw new HttpError(429, "Many reset requests are arriving at once. Try again in a few seconds.", {
+        retryAt: new Date(Date.now() + BUSY_RETRY_MS).toISOString(),
+      });
     }
-    throw new HttpError(429, "Too many reset requests for now. Wait a few minutes and try again, or ask your site's layout admin.", {
-      retryAt: attempt.until.toISOString(),
-    });
+    throw new HttpError(
+      429,
+      "Too many reset requests for now. Wait a few minutes and try again, or ask your site's layout admin.",
+      {
+        retryAt: attempt.until.toISOString(),
+      },
+    );
   }
   await attempt.keep();
   await audit({ event: "password.reset_requested", subject: email, ip });

@@ -31,6 +31,12 @@ export const POST = route({ access: "public", body: Body }, async ({ body, ip })
     await audit({ event: "password.set_refused", ip });
     throw new HttpError(400, LINK_DEAD);
   }
-  await audit({ event: "password.set", actorUserId: done.userId, subject: done.email, ip, detail: { via: done.purpose } });
+  await audit({
+    event: "password.set",
+    actorUserId: done.userId,
+    subject: done.email,
+    ip,
+    detail: { via: done.purpose },
+  });
   return Response.json({ ok: true, message: "Your password is set. Sign in with it now.", email: done.email });
 });

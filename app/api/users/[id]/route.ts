@@ -12,8 +12,13 @@ const Change = z
     disabled: z.boolean().optional(),
     displayName: z.string().trim().min(1).max(120).optional(),
   })
-  .refine((c) => c.role !== undefined || c.disabled !== undefined || c.displayName !== undefined, "Say what to change: role, disabled or displayName.");
+  .refine(
+    (c) => c.role !== undefined || c.disabled !== undefined || c.displayName !== undefined,
+    "Say what to change: role, disabled or displayName.",
+  );
 
-export const PATCH = route({ access: "users.manage", params: z.object({ id: textParam() }), body: Change }, async ({ user, body, params, ip }) =>
-  Response.json({ user: await changeUser(user, params.id, body.version, body, ip) }),
+export const PATCH = route(
+  { access: "users.manage", params: z.object({ id: textParam() }), body: Change },
+  async ({ user, body, params, ip }) =>
+    Response.json({ user: await changeUser(user, params.id, body.version, body, ip) }),
 );

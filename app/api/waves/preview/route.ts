@@ -6,8 +6,13 @@ import { getLayoutVersionById } from "@/db/layout-versions";
 
 // The same filter the new-wave form sends to POST /api/waves, as query parameters.
 const Query = z.object({
-  layoutVersionId: z.string().regex(/^[1-9]\d{0,8}$/, "Choose the layout version from the list.").transform(Number),
-  cutoffBefore: z.iso.datetime({ offset: true, error: "Give the cut-off as a date and time, or leave it empty." }).optional(),
+  layoutVersionId: z
+    .string()
+    .regex(/^[1-9]\d{0,8}$/, "Choose the layout version from the list.")
+    .transform(Number),
+  cutoffBefore: z.iso
+    .datetime({ offset: true, error: "Give the cut-off as a date and time, or leave it empty." })
+    .optional(),
   priorities: z
     .string()
     .regex(/^[1-3](,[1-3]){0,2}$/, "Priorities are 1, 2 or 3, separated by commas.")
@@ -24,10 +29,18 @@ export const GET = route({ access: "waves.plan" }, async ({ user, req }) => {
   });
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
-    throw new HttpError(400, issue.code === "invalid_type" ? "Choose the layout version from the list." : issue.message);
+    throw new HttpError(
+      400,
+      issue.code === "invalid_type" ? "Choose the layout version from the list." : issue.message,
+    );
   }
   const q = parsed.data;
   const version = await getLayoutVersionById(user.siteId, q.layoutVersionId);
   if (!version) throw new HttpError(404, "No such layout version at this site. Choose one from the list.");
-  return Response.json(await previewWave(user.siteId, version.id, { cutoffBefore: q.cutoffBefore ? new Date(q.cutoffBefore) : undefined, priorities: q.priorities }));
+  return Response.json(
+    await previewWave(user.siteId, version.id, {
+      cutoffBefore: q.cutoffBefore ? new Date(q.cutoffBefore) : undefined,
+      priorities: q.priorities,
+    }),
+  );
 });

@@ -19,8 +19,18 @@ export default async function WavePrintPage({ params }: { params: Promise<{ id: 
   return (
     <>
       <h1 className="mb-3 print:hidden">Pick lists: {wave.name}</h1>
-      {lists.length === 0 ? <p>Plan the wave first: it has no batches yet.</p> : <PrintButton waveId={wave.id} numbers={lists.map((l) => l.batch.number)} canRecord={roleMay(user.role, "waves.plan")} />}
-      {lists.map((l) => <PickList key={l.label} {...l} />)}
+      {lists.length === 0 ? (
+        <p>Plan the wave first: it has no batches yet.</p>
+      ) : (
+        <PrintButton
+          waveId={wave.id}
+          numbers={lists.map((l) => l.batch.number)}
+          canRecord={roleMay(user.role, "waves.plan")}
+        />
+      )}
+      {lists.map((l) => (
+        <PickList key={l.label} {...l} />
+      ))}
     </>
   );
 }

@@ -18,11 +18,18 @@ const Confirm = z.object({
   batchVersion: rowVersion(),
 });
 
-export const POST = route({ access: "picks.work", params: z.object({ batchId: idParam("batch") }), body: Confirm }, async ({ user, params, body, ip, req }) => {
-  const id = params.batchId;
-  await workableBatch(user, id, ip, `POST ${new URL(req.url).pathname}`);
-  const outcome = await confirmPick(id, user.id, body, ip);
-  if (outcome.kind === "mismatch") throw new HttpError(409, "This confirmation key was already used for a different pick. Confirm again.");
-  // A repeat gets the stored answer unchanged; only a header says it is one.
-  return Response.json(outcome.answer.body, { status: outcome.answer.status, headers: outcome.kind === "replay" ? { "idempotent-replayed": "true" } : {} });
-});
+export const POST = route(
+  { access: "picks.work", params: z.object({ batchId: idParam("batch") }), body: Confirm },
+  async ({ user, params, body, ip, req }) => {
+    const id = params.batchId;
+    await workableBatch(user, id, ip, `POST ${new URL(req.url).pathname}`);
+    const outcome = await confirmPick(id, user.id, body, ip);
+    if (outcome.kind === "mismatch")
+      throw new HttpError(409, "This confirmation key was already used for a different pick. Confirm again.");
+    // A repeat gets the stored answer unchanged; only a header says it is one.
+    return Response.json(outcome.answer.body, {
+      status: outcome.answer.status,
+      headers: outcome.kind === "replay" ? { "idempotent-replayed": "true" } : {},
+    });
+  },
+);

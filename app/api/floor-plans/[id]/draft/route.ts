@@ -15,9 +15,14 @@ export const GET = route({ access: "floorplans.read", params: Params }, async ({
   const draft = await getDraft(user.siteId, params.id);
   if (!draft) throw new HttpError(404, "No such floor plan at this site.");
   const [latest] = await listLayoutVersions(user.siteId, params.id);
-  return Response.json({ draft, latestVersion: latest ? { id: latest.id, number: latest.number, publishedAt: latest.publishedAt } : null });
+  return Response.json({
+    draft,
+    latestVersion: latest ? { id: latest.id, number: latest.number, publishedAt: latest.publishedAt } : null,
+  });
 });
 
-export const PUT = route({ access: "floorplans.edit", params: Params, body: Save }, async ({ user, params, body, ip }) =>
-  Response.json(await saveDraftBy(user, params.id, body.version, body.document, ip)),
+export const PUT = route(
+  { access: "floorplans.edit", params: Params, body: Save },
+  async ({ user, params, body, ip }) =>
+    Response.json(await saveDraftBy(user, params.id, body.version, body.document, ip)),
 );

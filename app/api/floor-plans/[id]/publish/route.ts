@@ -6,7 +6,10 @@ import { startPublish } from "@/lib/layout-versions/publish";
 
 const Publish = z.object({ version: rowVersion() });
 
-export const POST = route({ access: "floorplans.edit", params: z.object({ id: idParam("floor plan") }), body: Publish }, async ({ user, params, body, ip }) => {
-  const job = await startPublish(user, params.id, body.version, ip);
-  return Response.json({ jobId: job.id, job }, { status: 202 });
-});
+export const POST = route(
+  { access: "floorplans.edit", params: z.object({ id: idParam("floor plan") }), body: Publish },
+  async ({ user, params, body, ip }) => {
+    const job = await startPublish(user, params.id, body.version, ip);
+    return Response.json({ jobId: job.id, job }, { status: 202 });
+  },
+);

@@ -3,6 +3,7 @@ import { route } from "@/lib/http/route";
 import { idParam } from "@/lib/http/params";
 import { listLayoutVersions } from "@/db/layout-versions";
 
-export const GET = route({ access: "floorplans.read", params: z.object({ id: idParam("floor plan") }) }, async ({ user, params }) =>
-  Response.json({ versions: await listLayoutVersions(user.siteId, params.id) }),
+export const GET = route(
+  { access: "floorplans.read", params: z.object({ id: idParam("floor plan") }) },
+  async ({ user, params }) => Response.json({ versions: await listLayoutVersions(user.siteId, params.id) }),
 );

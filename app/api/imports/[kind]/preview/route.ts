@@ -7,5 +7,13 @@ export const POST = route({ access: "waves.plan" }, async ({ user, params, req }
   const kind = kindOf(params);
   const a = await analyseImport(user.siteId, await readImportRequest(req, kind));
   const duplicate = a.duplicate ? { importedAt: a.duplicate.importedAt, filename: a.duplicate.filename } : null;
-  return Response.json({ headers: a.headers, mapping: a.mapping, fields: a.fields, preview: a.preview, problems: a.problems, counts: a.counts, duplicate });
+  return Response.json({
+    headers: a.headers,
+    mapping: a.mapping,
+    fields: a.fields,
+    preview: a.preview,
+    problems: a.problems,
+    counts: a.counts,
+    duplicate,
+  });
 });

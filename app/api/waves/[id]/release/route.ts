@@ -6,6 +6,7 @@ import { releaseWaveBy } from "@/lib/waves/wave-actions";
 
 const Release = z.object({ version: rowVersion() });
 
-export const POST = route({ access: "waves.plan", params: z.object({ id: idParam("wave") }), body: Release }, async ({ user, params, body, ip }) =>
-  Response.json({ wave: await releaseWaveBy(user, params.id, body.version, ip) }),
+export const POST = route(
+  { access: "waves.plan", params: z.object({ id: idParam("wave") }), body: Release },
+  async ({ user, params, body, ip }) => Response.json({ wave: await releaseWaveBy(user, params.id, body.version, ip) }),
 );

@@ -29,13 +29,24 @@ export default async function LayoutVersionPage({ params }: { params: Promise<{ 
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link className="underline" href="/floor-plans">Floor plans</Link> › <Link className="underline" href={`/floor-plans/${plan.id}`}>{plan.name}</Link> › version {version.number}
+        <Link className="underline" href="/floor-plans">
+          Floor plans
+        </Link>{" "}
+        ›{" "}
+        <Link className="underline" href={`/floor-plans/${plan.id}`}>
+          {plan.name}
+        </Link>{" "}
+        › version {version.number}
       </p>
-      <h1>{plan.name}: layout version {version.number}</h1>
+      <h1>
+        {plan.name}: layout version {version.number}
+      </h1>
       <p className="mt-1 mb-5 text-ink-soft">
         Published {new Date(version.publishedAt).toLocaleString("en-GB")}
-        {version.publishedByName ? ` by ${version.publishedByName}` : ""}. It never changes: waves planned on it keep their routes. {version.nodeCount} junctions,{" "}
-        {version.edgeCount} corridors, {version.binCount.toLocaleString("en")} bins. Distance matrix checksum <code className="text-sm">{version.matrixSha256.slice(0, 16)}…</code>
+        {version.publishedByName ? ` by ${version.publishedByName}` : ""}. It never changes: waves planned on it keep
+        their routes. {version.nodeCount} junctions, {version.edgeCount} corridors,{" "}
+        {version.binCount.toLocaleString("en")} bins. Distance matrix checksum{" "}
+        <code className="text-sm">{version.matrixSha256.slice(0, 16)}…</code>
       </p>
       <VersionExplorer layoutVersionId={version.id} document={version.document} bins={bins} />
     </>

@@ -28,23 +28,48 @@ export default async function BatchPage({ params }: { params: Promise<{ id: stri
   const version = v ? await getLayoutVersion(user.siteId, v.floorPlanId, v.number) : null;
   if (!version) notFound();
   const [{ graph, matrix }, site] = await Promise.all([layoutGraph(wave.layoutVersionId), getSite(user.siteId)]);
-  const { cells, legsMm } = batchRouteCells(graph, matrix, wave.settings.depotId, wave.settings.dropoffId, batch.stops.map((s) => s.accessPoint));
+  const { cells, legsMm } = batchRouteCells(
+    graph,
+    matrix,
+    wave.settings.depotId,
+    wave.settings.dropoffId,
+    batch.stops.map((s) => s.accessPoint),
+  );
   const seconds = estimateSeconds({ distanceMm: batch.distanceMm, lines: batch.lineCount }, siteTiming(site));
   return (
     <>
       <p className="mb-2 text-sm">
-        <Link className="underline" href="/waves">Waves</Link> › <Link className="underline" href={`/waves/${wave.id}`}>{wave.name}</Link> › batch {batch.number}
+        <Link className="underline" href="/waves">
+          Waves
+        </Link>{" "}
+        ›{" "}
+        <Link className="underline" href={`/waves/${wave.id}`}>
+          {wave.name}
+        </Link>{" "}
+        › batch {batch.number}
       </p>
       <div className="flex flex-wrap items-center justify-between gap-3">
         <h1>Batch {batch.number}</h1>
-        <Link className="btn-quiet" href={`/waves/${wave.id}/batches/${batch.number}/print`}>Pick list</Link>
+        <Link className="btn-quiet" href={`/waves/${wave.id}/batches/${batch.number}/print`}>
+          Pick list
+        </Link>
       </div>
       <p className="mt-1 mb-4 text-ink-soft">
-        {batch.stops.length} stops, {batch.lineCount} lines in {batch.toteCount} totes, {kilograms(batch.weightG)}. Walk {metres(batch.distanceMm)} ({batch.optimal ? "exact route, proven shortest" : "heuristic route: good, not proven shortest"}) against {metres(batch.baselineMm)} in
-        the usual order: {savingsPct(batch.distanceMm, batch.baselineMm)} less. About {minutes(seconds)}.
+        {batch.stops.length} stops, {batch.lineCount} lines in {batch.toteCount} totes, {kilograms(batch.weightG)}. Walk{" "}
+        {metres(batch.distanceMm)} (
+        {batch.optimal ? "exact route, proven shortest" : "heuristic route: good, not proven shortest"}) against{" "}
+        {metres(batch.baselineMm)} in the usual order: {savingsPct(batch.distanceMm, batch.baselineMm)} less. About{" "}
+        {minutes(seconds)}.
       </p>
       <BatchLiveStatus waveId={wave.id} number={batch.number} live={wave.status === "released"} />
-      <BatchRoute document={version.document} cells={cells} stops={batch.stops} legsMm={legsMm} from={wave.settings.depotId} to={wave.settings.dropoffId} />
+      <BatchRoute
+        document={version.document}
+        cells={cells}
+        stops={batch.stops}
+        legsMm={legsMm}
+        from={wave.settings.depotId}
+        to={wave.settings.dropoffId}
+      />
     </>
   );
 }

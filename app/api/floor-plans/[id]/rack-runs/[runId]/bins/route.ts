@@ -24,7 +24,9 @@ export const GET = route({ access: "floorplans.read", params: Params }, async ({
   const format = new URL(req.url).searchParams.get("format") === "csv" ? "csv" : "xlsx";
   const rows = binSheetRows(run);
   const name = `bins-aisle-${run.aisle}-${run.id}.${format}`;
-  return format === "csv" ? downloadResponse(csvText(rows), name, "csv") : downloadResponse(workbookBytes("Bins", rows), name, "xlsx");
+  return format === "csv"
+    ? downloadResponse(csvText(rows), name, "csv")
+    : downloadResponse(workbookBytes("Bins", rows), name, "xlsx");
 });
 
 // Reads and checks the sheet; the editor applies the codes as an (undoable) edit and saves the draft.

@@ -29,6 +29,7 @@ import {
   PointsLayer,
   RackLayer,
   RackShape,
+  BackgroundLayer,
 } from "@/components/floor/FloorLayers";
 import { FLOOR_COLOURS } from "@/components/floor/floor-style";
 import { Rulers, RULER_PX } from "./Rulers";
@@ -196,18 +197,7 @@ export function EditorCanvas({
         >
           <FloorDefs id={id} />
           <GroundLayer doc={doc} id={id} showGrid={px >= 6} />
-          {backgroundUrl && doc.background && (
-            <image
-              href={backgroundUrl}
-              x={0}
-              y={0}
-              width={doc.width}
-              height={doc.height}
-              preserveAspectRatio="none"
-              opacity={doc.background.opacity}
-              pointerEvents="none"
-            />
-          )}
+          {backgroundUrl && doc.background && <BackgroundLayer href={backgroundUrl} doc={doc} />}
           {preview.cells.length > 0 && (
             <g pointerEvents="none" opacity={0.75}>
               {preview.cells.map((c) => (

@@ -287,3 +287,19 @@ export function RouteLayer({ route, width, id }: { route: RouteOverlay; width: n
     </g>
   );
 }
+
+/** The scanned plan under the grid, stretched to the floor's size. */
+export function BackgroundLayer({ href, doc }: { href: string; doc: EditorDocument }) {
+  return (
+    <image
+      href={href}
+      x={0}
+      y={0}
+      width={doc.width}
+      height={doc.height}
+      preserveAspectRatio="none"
+      opacity={doc.background?.opacity ?? 0.3}
+      pointerEvents="none"
+    />
+  );
+}

@@ -11,6 +11,7 @@ import {
   RackLayer,
   RouteLayer,
   type RouteOverlay,
+  BackgroundLayer,
 } from "./FloorLayers";
 
 type Props = {
@@ -55,17 +56,7 @@ export function FloorPlanView({
     >
       <FloorDefs id={id} />
       <GroundLayer doc={doc} id={id} showGrid={doc.width <= 120} />
-      {backgroundUrl && (
-        <image
-          href={backgroundUrl}
-          x={0}
-          y={0}
-          width={doc.width}
-          height={doc.height}
-          preserveAspectRatio="none"
-          opacity={doc.background?.opacity ?? 0.3}
-        />
-      )}
+      {backgroundUrl && <BackgroundLayer href={backgroundUrl} doc={doc} />}
       <RackLayer runs={doc.rackRuns} />
       <OneWayLayer doc={doc} />
       <PointsLayer doc={doc} />

@@ -1,3 +1,4 @@
+import type { ShortPickDTO } from "@/lib/contracts/waves";
 import { headerText } from "./headers";
 import { metres, savingsPct } from "@/lib/format/units";
 
@@ -34,15 +35,7 @@ export function shortPickSummaryMail(p: {
   to: string;
   name: string;
   waveName: string;
-  shorts: {
-    batchNumber: number;
-    orderNumber: string;
-    binCode: string;
-    sku: string;
-    ordered: number;
-    picked: number;
-    reason: string | null;
-  }[];
+  shorts: Omit<ShortPickDTO, "at">[];
   link: string;
 }) {
   const name = headerText(p.name, 120);

@@ -8,9 +8,15 @@ export const PERMISSIONS = {
   "users.manage": ["admin"],
   "floorplans.read": ["admin", "planner"],
   "floorplans.edit": ["admin"],
-  "waves.read": ["admin", "planner"],
+  "waves.read": ["admin", "planner", "supervisor"],
   "waves.plan": ["admin", "planner"],
   "picks.work": ["admin", "picker"],
+  // The shift on the floor: who holds which batch, moving batches between pickers, short-pick follow-up.
+  "floor.watch": ["admin", "planner", "supervisor"],
+  "batches.assign": ["admin", "planner", "supervisor"],
+  "shortpicks.follow": ["admin", "planner", "supervisor"],
+  // The site's own figures (time zone, formats, timing): estimates everywhere depend on them.
+  "site.manage": ["admin"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof PERMISSIONS;
@@ -27,10 +33,12 @@ export const ROLE_HOME: Record<Role, string> = {
   admin: "/floor-plans",
   planner: "/waves",
   picker: "/my-batches",
+  supervisor: "/waves",
 };
 
 export const ROLE_LABEL: Record<Role, string> = {
   admin: "Layout admin",
   planner: "Wave planner",
   picker: "Picker",
+  supervisor: "Shift supervisor",
 };

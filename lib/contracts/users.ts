@@ -1,7 +1,7 @@
 // Accounts as the users API and the admin screens see them. The roles live here, not in lib/auth,
 // so that db/ and the browser can name a role without importing the server's permission code.
 
-export const ROLES = ["admin", "planner", "picker"] as const;
+export const ROLES = ["admin", "planner", "picker", "supervisor"] as const;
 export type Role = (typeof ROLES)[number];
 
 export type UserDTO = {

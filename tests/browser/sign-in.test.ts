@@ -16,7 +16,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const HOME_HEADING = { admin: "Floor plans", planner: "Waves", picker: "My batches" } as const;
+const HOME_HEADING = { admin: "Floor plans", planner: "Waves", picker: "My batches", supervisor: "Waves" } as const;
 
 describe("signing in through the browser", () => {
   for (const role of ROLES) {

@@ -21,7 +21,7 @@ const NewUser = z.object({
     .max(120, "Keep the name under 120 characters.")
     // The name goes into the To: header of the invitation; a line break there would add headers.
     .refine((n) => !hasControlCharacters(n), "The name may not contain line breaks or control characters."),
-  role: z.enum(ROLES, { message: "Choose a role: admin, planner or picker." }),
+  role: z.enum(ROLES, { message: "Choose a role: admin, planner, picker or supervisor." }),
   // Without a password the person gets an invitation mail and chooses one themselves.
   password: z
     .string()

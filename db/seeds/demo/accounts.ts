@@ -17,4 +17,10 @@ export const DEMO_ACCOUNTS: { email: string; displayName: string; role: Role; pa
   },
   { email: "picker@bramblegate.example", displayName: "Priya Lund", role: "picker", password: "bramblegate-picker" },
   { email: "picker2@bramblegate.example", displayName: "Joel Amara", role: "picker", password: "bramblegate-picker2" },
+  {
+    email: "supervisor@bramblegate.example",
+    displayName: "Maren Osei",
+    role: "supervisor",
+    password: "bramblegate-supervisor",
+  },
 ];

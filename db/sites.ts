@@ -1,5 +1,6 @@
 import "server-only";
 import { db } from "./knex";
+import type { DateStyle } from "@/lib/format/dates";
 
 export type SiteDTO = {
   id: number;
@@ -9,6 +10,8 @@ export type SiteDTO = {
   walkingSpeedMmPerS: number;
   secondsPerLine: number;
   maxOpenBatchesPerPicker: number;
+  /** How every screen, mail and print writes this site's dates and times. */
+  dateStyle: DateStyle;
 };
 
 /** The load run's handhelds each hold more carts than a person would: it raises the cap on its own database. */
@@ -27,6 +30,7 @@ export async function getSite(id: number): Promise<SiteDTO | null> {
         walkingSpeedMmPerS: r.walking_speed_mm_s,
         secondsPerLine: r.seconds_per_line,
         maxOpenBatchesPerPicker: Number(r.max_open_batches_per_picker),
+        dateStyle: { timeZone: r.timezone, dateOrder: r.date_order ?? "dmy", clock: r.clock ?? "24h" },
       }
     : null;
 }

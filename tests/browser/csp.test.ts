@@ -29,7 +29,12 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
       .getByRole("img", { name: /floor plan/i })
       .first()
       .waitFor()),
-  "/waves": async (page) => void (await page.getByRole("button", { name: "Create the wave" }).waitFor()),
+  // Only those who plan see the form; a supervisor reads the list.
+  "/waves": async (page, role) =>
+    void (await (roleMay(role, "waves.plan")
+      ? page.getByRole("button", { name: "Create the wave" })
+      : page.getByRole("heading", { name: "Waves", level: 1 })
+    ).waitFor()),
   "/waves/[id]": async (page) => void (await page.getByRole("link", { name: "#1", exact: true }).waitFor()),
   "/waves/[id]/batches/[number]": async (page) =>
     void (await page.getByRole("img", { name: /Route of this batch/ }).waitFor()),

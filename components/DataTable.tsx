@@ -1,6 +1,6 @@
 "use client";
 
-import { useState } from "react";
+import { useEffect, useState } from "react";
 import {
   FlexRender,
   columnFilteringFeature,
@@ -44,9 +44,19 @@ type Props<T extends RowData> = {
   pageSize?: number;
   rowId: (row: T) => string;
   empty: string;
+  /** Told how many rows the search leaves, so a count beside the table can follow it. */
+  onShownChange?: (shown: number) => void;
 };
 
-export function DataTable<T extends RowData>({ data, columns, searchLabel, pageSize = 25, rowId, empty }: Props<T>) {
+export function DataTable<T extends RowData>({
+  data,
+  columns,
+  searchLabel,
+  pageSize = 25,
+  rowId,
+  empty,
+  onShownChange,
+}: Props<T>) {
   const [query, setQuery] = useState("");
   const table = useTable({
     features: dataTableFeatures,
@@ -63,6 +73,7 @@ export function DataTable<T extends RowData>({ data, columns, searchLabel, pageS
   const total = table.getFilteredRowModel().rows.length;
   const pageCount = Math.max(1, table.getPageCount());
   const pageIndex = table.state.pagination.pageIndex;
+  useEffect(() => onShownChange?.(total), [onShownChange, total]);
 
   return (
     <div className="space-y-3">

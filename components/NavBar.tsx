@@ -10,6 +10,7 @@ const LINKS: { href: string; label: string; access: Access }[] = [
   { href: "/waves", label: "Waves", access: "waves.read" },
   { href: "/orders", label: "Orders", access: "waves.read" },
   { href: "/items", label: "Item master", access: "waves.read" },
+  { href: "/short-picks", label: "Short picks", access: "shortpicks.follow" },
   { href: "/my-batches", label: "My batches", access: "picks.work" },
   { href: "/admin/users", label: "Users", access: "users.manage" },
   { href: "/admin/mail", label: "Mail", access: "users.manage" },

@@ -30,7 +30,9 @@ export type AuditEvent =
   | "batch.taken"
   | "batch.given-back"
   | "pick.confirmed"
-  | "pick.short";
+  | "pick.short"
+  | "shortpick.followed_up"
+  | "replenishment.cleared";
 
 export type AuditEntry = {
   event: AuditEvent;

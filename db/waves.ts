@@ -267,7 +267,11 @@ function unclaimedOpenOrders(siteId: number, filter: WaveFilter) {
     .where({ "o.site_id": siteId, "o.status": "open" })
     .whereNull("wo.order_id")
     .whereExists(db()("order_lines as l").whereRaw("l.order_id = o.id").select(db().raw("1")));
-  if (filter.cutoffBefore) q.where("o.cutoff_at", "<=", filter.cutoffBefore);
+  const cutoff = filter.cutoffBefore;
+  if (cutoff) {
+    if (filter.includeNoCutoff) q.where((w) => w.where("o.cutoff_at", "<=", cutoff).orWhereNull("o.cutoff_at"));
+    else q.where("o.cutoff_at", "<=", cutoff);
+  }
   if (filter.priorities?.length) q.whereIn("o.priority", filter.priorities);
   return q;
 }
@@ -314,7 +318,10 @@ export async function previewWave(
       .limit(PREVIEW_EXAMPLES)
       .select("o.order_number", "i.sku", "l.item_id"),
   ]);
-  const without = await unclaimedOpenOrders(siteId, filter).whereNull("o.cutoff_at").first(db().raw("count(*) as n"));
+  // Counted without the cut-off, which would leave them all out: the form offers to include them.
+  const without = await unclaimedOpenOrders(siteId, { priorities: filter.priorities })
+    .whereNull("o.cutoff_at")
+    .first(db().raw("count(*) as n"));
   const bins = examples.length
     ? ((await db()("item_bins")
         .whereIn(

@@ -1,12 +1,15 @@
 "use client";
 
+import Link from "next/link";
 import useSWR from "swr";
 import { useMemo, useState } from "react";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { ImportPanel } from "@/components/imports/ImportPanel";
+import { useDateStyle } from "@/components/SiteFormat";
 import type { VersionOption } from "@/lib/contracts/layout-versions";
-import type { OrderDTO } from "@/lib/contracts/orders";
+import { PICK_STATE_LABEL, type OrderDTO } from "@/lib/contracts/orders";
 import { swrFetcher } from "@/lib/client/fetch-json";
+import { formatDateTime, type DateStyle } from "@/lib/format/dates";
 
 type Order = OrderDTO;
 
@@ -17,8 +20,20 @@ const STATUSES = [
   { value: "all", label: "All orders" },
 ] as const;
 
-const columns = (timeZone: string): DataColumn<Order>[] => [
-  { accessorKey: "orderNumber", header: "Order" },
+const STATUS_LABEL: Record<Order["status"], string> = { open: "Open", planned: "In a wave", released: "Released" };
+
+const n = (x: number) => x.toLocaleString("en-GB");
+
+const columns = (style: DateStyle): DataColumn<Order>[] => [
+  {
+    accessorKey: "orderNumber",
+    header: "Order",
+    cell: ({ row }) => (
+      <Link className="font-semibold underline" href={`/orders/${row.original.id}`}>
+        {row.original.orderNumber}
+      </Link>
+    ),
+  },
   { id: "customerRef", accessorFn: (o) => o.customerRef ?? "", header: "Customer reference" },
   { accessorKey: "priority", header: "Priority" },
   {
@@ -26,12 +41,37 @@ const columns = (timeZone: string): DataColumn<Order>[] => [
     accessorFn: (o) => o.cutoffAt ?? "",
     header: "Cut-off",
     cell: ({ row }) =>
-      row.original.cutoffAt
-        ? new Date(row.original.cutoffAt).toLocaleString("en-GB", { timeZone, dateStyle: "medium", timeStyle: "short" })
-        : "—",
+      row.original.cutoffAt ? (
+        <span className={row.original.overdue ? "font-semibold text-alarm" : ""}>
+          {formatDateTime(row.original.cutoffAt, style)}
+          {row.original.overdue && <span className="block text-sm">⚠ Overdue</span>}
+        </span>
+      ) : (
+        <span className="text-ink-soft">No cut-off</span>
+      ),
   },
   { accessorKey: "lineCount", header: "Lines" },
-  { accessorKey: "status", header: "Status" },
+  {
+    id: "status",
+    // Searchable by the words shown, e.g. "short" or "awaiting".
+    accessorFn: (o) => `${STATUS_LABEL[o.status]} ${o.pickState ? PICK_STATE_LABEL[o.pickState] : ""}`,
+    header: "Status",
+    cell: ({ row }) => (
+      <span className="block min-w-32">
+        {STATUS_LABEL[row.original.status]}
+        {row.original.pickState && (
+          <span
+            className={`block text-sm ${row.original.pickState === "short" ? "font-semibold text-alarm" : "text-ink-soft"}`}
+          >
+            {PICK_STATE_LABEL[row.original.pickState]}
+          </span>
+        )}
+        {row.original.parent && (
+          <span className="block text-sm text-ink-soft">Re-pick of {row.original.parent.orderNumber}</span>
+        )}
+      </span>
+    ),
+  },
   // Set when a released wave handed the order back because no batch could hold it.
   {
     id: "note",
@@ -42,20 +82,16 @@ const columns = (timeZone: string): DataColumn<Order>[] => [
 ];
 
 /** Orders by status, and (for planners) the order lines import. Cut-offs show in the site's time. */
-export function OrdersScreen({
-  canPlan,
-  versions,
-  timeZone,
-}: {
-  canPlan: boolean;
-  versions: VersionOption[];
-  timeZone: string;
-}) {
+export function OrdersScreen({ canPlan, versions }: { canPlan: boolean; versions: VersionOption[] }) {
+  const style = useDateStyle();
   const [status, setStatus] = useState<(typeof STATUSES)[number]["value"]>("open");
+  const [shown, setShown] = useState<number | null>(null);
   const { data, error, isLoading } = useSWR<{ orders: Order[] }>(`/api/orders?status=${status}`, swrFetcher);
   const orders = useMemo(() => data?.orders ?? [], [data]);
-  const cols = useMemo(() => columns(timeZone), [timeZone]);
-  const lines = orders.reduce((n, o) => n + o.lineCount, 0);
+  const cols = useMemo(() => columns(style), [style]);
+  const lines = orders.reduce((a, o) => a + o.lineCount, 0);
+  const overdue = orders.filter((o) => o.overdue).length;
+  const showing = shown === null ? orders.length : Math.min(shown, orders.length);
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-end gap-4">
@@ -69,10 +105,11 @@ export function OrdersScreen({
             ))}
           </select>
         </label>
-        <p className="pb-3">
+        <p className="pb-3" data-testid="orders-count">
           {isLoading
             ? "Loading orders…"
-            : `${orders.length.toLocaleString("en-GB")} orders, ${lines.toLocaleString("en-GB")} order lines. Cut-offs in ${timeZone} time.`}
+            : `${showing === orders.length ? "" : `${n(showing)} of `}${n(orders.length)} orders, ${n(lines)} order lines` +
+              `${overdue ? `, ${n(overdue)} overdue` : ""}. Cut-offs in ${style.timeZone} time.`}
         </p>
       </div>
       {error && (
@@ -83,9 +120,10 @@ export function OrdersScreen({
       <DataTable
         data={orders}
         columns={cols}
-        searchLabel="order or customer reference"
+        searchLabel="order, customer reference or status"
         rowId={(o) => String(o.id)}
         empty="No orders with this status. Import order lines below."
+        onShownChange={setShown}
       />
       {canPlan && (
         <ImportPanel kind="orders" title="Import order lines" versions={versions} refreshPrefix="/api/orders" />

@@ -19,6 +19,8 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
   const [busy, setBusy] = useState(false);
   const [cutoff, setCutoff] = useState("");
   const [priorities, setPriorities] = useState([1, 2, 3]);
+  // Orders without a cut-off are left out by a cut-off filter unless the planner takes them too.
+  const [includeNoCutoff, setIncludeNoCutoff] = useState(false);
   const layout = layouts.find((l) => l.id === layoutId);
   const cutoffIso = isoOf(cutoff);
   // The same filter the wave is created with, so the count shown is the count taken.
@@ -29,6 +31,7 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
           layoutVersionId: String(layoutId),
           priorities: priorities.join(","),
           ...(cutoffIso ? { cutoffBefore: cutoffIso } : {}),
+          ...(cutoffIso && includeNoCutoff ? { includeNoCutoff: "1" } : {}),
         }).toString();
 
   if (layouts.length === 0) {
@@ -63,6 +66,7 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
       },
       cutoffBefore: cutoffIso,
       priorities,
+      ...(cutoffIso ? { includeNoCutoff } : {}),
     });
     if (r.ok) return window.location.assign(`/waves/${r.data.id}`);
     setFailure(r);
@@ -121,7 +125,13 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
           </div>
         </div>
       </fieldset>
-      <WavePreview query={previewQuery} layoutLabel={layout?.label ?? "this layout version"} noCutoff={!cutoffIso} />
+      <WavePreview
+        query={previewQuery}
+        layoutLabel={layout?.label ?? "this layout version"}
+        noCutoff={!cutoffIso}
+        includeNoCutoff={includeNoCutoff}
+        onIncludeNoCutoff={setIncludeNoCutoff}
+      />
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="label">Cart</legend>
         <label>

@@ -11,10 +11,15 @@ export function WavePreview({
   query,
   layoutLabel,
   noCutoff,
+  includeNoCutoff = false,
+  onIncludeNoCutoff,
 }: {
   query: string | null;
   layoutLabel: string;
   noCutoff: boolean;
+  /** With a cut-off set: whether the orders that have none are taken too, and the choice to change it. */
+  includeNoCutoff?: boolean;
+  onIncludeNoCutoff?: (include: boolean) => void;
 }) {
   const { data, error, isLoading } = useSWR<WavePreviewDTO>(query ? `/api/waves/preview?${query}` : null, swrFetcher, {
     keepPreviousData: true,
@@ -48,6 +53,29 @@ export function WavePreview({
           noCutoff &&
           ` No cut-off is set, so that is every open order of the ticked priorities${data.ordersWithoutCutoff > 0 ? `, ${n(data.ordersWithoutCutoff)} of them without any cut-off` : ""}.`}
       </p>
+      {!noCutoff && data.ordersWithoutCutoff > 0 && (
+        <div className="notice-info" data-testid="no-cutoff-orders">
+          <p>
+            {n(data.ordersWithoutCutoff)} open {data.ordersWithoutCutoff === 1 ? "order has" : "orders have"} no
+            cut-off.{" "}
+            {includeNoCutoff
+              ? "They are included in this wave's count above."
+              : "A cut-off filter leaves them out: they are not in the count above."}
+          </p>
+          {onIncludeNoCutoff && (
+            <label className="mt-2 flex min-h-tap items-center gap-2">
+              <input
+                type="checkbox"
+                className="h-5 w-5"
+                checked={includeNoCutoff}
+                onChange={(e) => onIncludeNoCutoff(e.target.checked)}
+              />
+              Include the {n(data.ordersWithoutCutoff)} {data.ordersWithoutCutoff === 1 ? "order" : "orders"} without a
+              cut-off
+            </label>
+          )}
+        </div>
+      )}
       {off.lines > 0 && (
         <div className="notice-error">
           <p className="font-semibold">

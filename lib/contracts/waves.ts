@@ -35,12 +35,17 @@ export type WaveDTO = {
   releasedBy: string | null;
 };
 
-export type WaveFilter = { cutoffBefore?: Date; priorities?: number[] };
+/**
+ * Which open orders a wave takes. With a cut-off, orders that have none are left out unless
+ * includeNoCutoff says to take them too (the preview counts them either way, so none go unseen).
+ */
+export type WaveFilter = { cutoffBefore?: Date; priorities?: number[]; includeNoCutoff?: boolean };
 
 export type WavePreviewDTO = {
   /** What starting a wave with this filter takes now. */
   orders: number;
   lines: number;
+  /** Open orders of the ticked priorities that have no cut-off, whether the filter takes them or not. */
   ordersWithoutCutoff: number;
   /** Lines whose item has no bin on the layout version: their orders cannot be batched on it. */
   offLayout: { orders: number; lines: number; examples: { orderNumber: string; sku: string; binCodes: string[] }[] };

@@ -12,6 +12,7 @@ export type NewWave = {
   settings: WaveSettings;
   cutoffBefore?: string;
   priorities?: number[];
+  includeNoCutoff?: boolean;
 };
 
 /**
@@ -35,6 +36,7 @@ export async function openWave(
   const orderIds = await unclaimedOpenOrderIds(user.siteId, {
     cutoffBefore: input.cutoffBefore ? new Date(input.cutoffBefore) : undefined,
     priorities: input.priorities,
+    includeNoCutoff: input.includeNoCutoff,
   });
   if (orderIds.length === 0)
     throw new HttpError(

@@ -31,9 +31,10 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
       .waitFor()),
   // Only those who plan see the form; a supervisor reads the list.
   "/waves": async (page, role) =>
-    void (await (roleMay(role, "waves.plan")
-      ? page.getByRole("button", { name: "Create the wave" })
-      : page.getByRole("heading", { name: "Waves", level: 1 })
+    void (await (
+      roleMay(role, "waves.plan")
+        ? page.getByRole("button", { name: "Create the wave" })
+        : page.getByRole("heading", { name: "Waves", level: 1 })
     ).waitFor()),
   "/waves/[id]": async (page) => void (await page.getByRole("link", { name: "#1", exact: true }).waitFor()),
   "/waves/[id]/batches/[number]": async (page) =>
@@ -48,6 +49,8 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
   "/admin/mail": async (page) => void (await page.getByRole("heading", { name: /^Received \(\d+\)$/ }).waitFor()),
   "/items": async (page) => void (await page.getByText(/^[\d,]+ SKUs/).waitFor()),
   "/orders": async (page) => void (await page.getByText(/[\d,]+ orders, [\d,]+ order lines/).waitFor()),
+  "/orders/[id]": async (page) => void (await page.getByTestId("order-line").first().waitFor()),
+  "/short-picks": async (page) => void (await page.getByTestId("short-picks-count").waitFor()),
 };
 
 /** The barcode is inline SVG markup from the server: it must be there and drawn at a real size. */

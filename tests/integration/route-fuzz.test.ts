@@ -14,6 +14,7 @@ import {
 import { API_ACCESS } from "@/lib/auth/access-table";
 import { ROLES, roleMay, type Access, type Role } from "@/lib/auth/permissions";
 import { SHORT_REASONS } from "@/lib/picking/rules";
+import { FOLLOW_UP_ACTIONS } from "@/lib/contracts/short-picks";
 import { closeDb } from "@/db/knex";
 import { databaseSnapshot } from "@/db/snapshot";
 
@@ -218,6 +219,35 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
   "/api/items": { GET: {} },
   "/api/items/export": { GET: {} },
   "/api/orders": { GET: { query: { status: ["zzz", "", "OPEN ", "__proto__", "x".repeat(5000)] } } },
+  "/api/orders/[id]": { GET: { params: () => ({ id: "1" }) } },
+  "/api/short-picks": {
+    GET: {
+      query: {
+        date: ["yesterday", "2026-13-40", "2026-02-30", "x".repeat(5000)],
+        waveId: ["abc", "0", "-1", "9".repeat(30)],
+      },
+    },
+  },
+  "/api/short-picks/[lineId]/follow-up": {
+    POST: {
+      params: () => ({ lineId: "999998" }),
+      body: {
+        example: () => ({ action: "cancel", version: 1 }),
+        fields: { action: { kind: "enum", values: FOLLOW_UP_ACTIONS }, version: id },
+        probe: { params: { lineId: "999999" }, status: 404 },
+      },
+    },
+  },
+  "/api/replenishments/[id]/clear": {
+    POST: {
+      params: () => ({ id: "999998" }),
+      body: {
+        example: () => ({ version: 1 }),
+        fields: { version: id },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
+  },
   "/api/imports/[kind]": { POST: { params: () => ({ kind: "orders" }), upload: true } },
   "/api/imports/[kind]/preview": { POST: { params: () => ({ kind: "items" }), upload: true } },
   "/api/imports/[kind]/template": { GET: { params: () => ({ kind: "orders" }) } },
@@ -301,6 +331,7 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
           cutoffBefore: { kind: "datetime" },
           priorities: { kind: "array", max: 3, element: 1 },
           "priorities.0": { kind: "int", min: 1, max: 3 },
+          includeNoCutoff: { kind: "bool" },
         },
         probe: {
           body: (f) => ({ ...SPECS["/api/waves"]!.POST!.body!.example(f), layoutVersionId: 999999 }),
@@ -315,6 +346,7 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
         layoutVersionId: ["", "0", "abc", "1.5", "9".repeat(30)],
         cutoffBefore: ["yesterday", "2026-13-40T99:00:00Z"],
         priorities: ["4", "a", "1,,2", "0"],
+        includeNoCutoff: ["yes", "2", "true"],
       },
     },
   },

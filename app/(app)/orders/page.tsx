@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { requireRole } from "@/lib/auth/guard";
 import { roleMay } from "@/lib/auth/permissions";
-import { getSite } from "@/db/sites";
 import { PageHeader } from "@/components/PageHeader";
 import { OrdersScreen } from "@/components/orders/OrdersScreen";
 import { importVersionOptions } from "@/lib/layout-versions/choices";
@@ -11,7 +10,6 @@ export const metadata: Metadata = { title: "Orders" };
 export default async function OrdersPage() {
   const user = await requireRole("waves.read", "/orders");
   const canPlan = roleMay(user.role, "waves.plan");
-  const site = await getSite(user.siteId);
   return (
     <>
       <PageHeader
@@ -27,11 +25,7 @@ export default async function OrdersPage() {
           (Saturday&apos;s invented orders for Bramblegate), then plan a wave from them.
         </p>
       )}
-      <OrdersScreen
-        canPlan={canPlan}
-        versions={canPlan ? await importVersionOptions(user.siteId) : []}
-        timeZone={site?.timezone ?? "UTC"}
-      />
+      <OrdersScreen canPlan={canPlan} versions={canPlan ? await importVersionOptions(user.siteId) : []} />
     </>
   );
 }

@@ -19,6 +19,8 @@ const NewWave = z.object({
   }),
   cutoffBefore: z.iso.datetime({ offset: true }).optional(),
   priorities: z.array(z.number().int().min(1).max(3)).max(3).optional(),
+  // With a cut-off: also take the open orders that have none.
+  includeNoCutoff: z.boolean().optional(),
 });
 
 export const GET = route({ access: "waves.read" }, async ({ user }) =>

@@ -18,6 +18,9 @@ const Query = z.object({
     .regex(/^[1-3](,[1-3]){0,2}$/, "Priorities are 1, 2 or 3, separated by commas.")
     .transform((s) => [...new Set(s.split(",").map(Number))])
     .optional(),
+  includeNoCutoff: z
+    .enum(["0", "1"], { error: "includeNoCutoff is 1 (take orders without a cut-off) or 0." })
+    .optional(),
 });
 
 export const GET = route({ access: "waves.plan" }, async ({ user, req }) => {
@@ -26,6 +29,7 @@ export const GET = route({ access: "waves.plan" }, async ({ user, req }) => {
     layoutVersionId: search.get("layoutVersionId") ?? undefined,
     cutoffBefore: search.get("cutoffBefore") ?? undefined,
     priorities: search.get("priorities") ?? undefined,
+    includeNoCutoff: search.get("includeNoCutoff") ?? undefined,
   });
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
@@ -41,6 +45,7 @@ export const GET = route({ access: "waves.plan" }, async ({ user, req }) => {
     await previewWave(user.siteId, version.id, {
       cutoffBefore: q.cutoffBefore ? new Date(q.cutoffBefore) : undefined,
       priorities: q.priorities,
+      includeNoCutoff: q.includeNoCutoff === "1",
     }),
   );
 });

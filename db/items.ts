@@ -23,13 +23,24 @@ export async function listItems(siteId: number): Promise<ItemDTO[]> {
     list.push(b.bin_code);
     byItem.set(b.item_id, list);
   }
-  return (items as { id: number; sku: string; description: string; uom: string; unit_weight_g: number }[]).map((i) => ({
-    sku: i.sku,
-    description: i.description,
-    uom: i.uom,
-    unitWeightG: i.unit_weight_g,
-    bins: byItem.get(i.id) ?? [],
-  }));
+  const flagged = new Set(
+    (await db()("bin_replenishments")
+      .where({ site_id: siteId })
+      .whereNotNull("open_bin")
+      .pluck("bin_code")) as string[],
+  );
+  return (items as { id: number; sku: string; description: string; uom: string; unit_weight_g: number }[]).map((i) => {
+    const replenishBins = (byItem.get(i.id) ?? []).filter((b) => flagged.has(b));
+    return {
+      sku: i.sku,
+      description: i.description,
+      uom: i.uom,
+      unitWeightG: i.unit_weight_g,
+      bins: byItem.get(i.id) ?? [],
+      // Only when there is one: the export and the import's checks read the same shape as before.
+      ...(replenishBins.length ? { replenishBins } : {}),
+    };
+  });
 }
 
 /** How many SKUs exist at the site already, ignoring case as the unique key does. */

@@ -23,7 +23,17 @@ const columns: DataColumn<Item>[] = [
     id: "bins",
     accessorFn: (i) => i.bins.join(" "),
     header: "Pick bins",
-    cell: ({ row }) => row.original.bins.join(", ") || "—",
+    cell: ({ row }) => {
+      const { bins, replenishBins = [] } = row.original;
+      if (bins.length === 0) return "—";
+      return bins.map((b, k) => (
+        <span key={b}>
+          {k > 0 && ", "}
+          {b}
+          {replenishBins.includes(b) && <span className="font-semibold text-signal"> ⚑ to replenish</span>}
+        </span>
+      ));
+    },
   },
 ];
 

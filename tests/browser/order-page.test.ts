@@ -24,7 +24,7 @@ beforeAll(async () => {
   await fixtures.addOrder(`${TAG}-OPEN`, "2026-01-21T09:00:00Z", [items[0]!]);
   const none = await fixtures.addOrder(`${TAG}-NOCUT`, "2026-01-21T09:00:00Z", [items[1]!]);
   await db()("orders").where({ id: none }).update({ cutoff_at: null });
-});
+}, 120_000);
 afterAll(async () => {
   await browser?.close();
   await fixtures.cleanUp();
@@ -55,7 +55,7 @@ describe("a planner looks up an order", () => {
       .getByText(/Overdue/)
       .waitFor();
     await page.getByTestId("order-status").getByText("Not started").waitFor();
-    await page.getByRole("link", { name: `Order page ${TAG}` }).waitFor();
+    await page.getByRole("link", { name: `Order page ${TAG}`, exact: true }).waitFor();
     const lines = page.getByTestId("order-line");
     await lines.nth(1).waitFor();
     await lines

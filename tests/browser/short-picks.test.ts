@@ -24,7 +24,7 @@ beforeAll(async () => {
   waveId = wave.waveId;
   fixtures.waveIds.push(waveId);
   for (const batch of wave.batches) await pickBatch(batch.id, () => 1);
-});
+}, 120_000);
 afterAll(async () => {
   await browser?.close();
   const lines = await db()("order_lines").whereIn("order_id", fixtures.orderIds).pluck("id");
@@ -36,7 +36,7 @@ afterAll(async () => {
 describe("a supervisor follows up the shift's short picks", () => {
   it("re-picks one later, flags the bin and cancels the other, then clears the flag, on a handheld-sized screen", async () => {
     const { context, page } = await signedInPage(browser, "supervisor", { width: 390, height: 900 });
-    await page.getByRole("link", { name: "Short picks" }).click();
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Short picks" }).click();
     await page.waitForURL(/\/short-picks$/);
     await page.locator("option", { hasText: `Short picks screen ${TAG}` }).waitFor({ state: "attached" });
     await page.getByLabel("Wave").selectOption({ label: `Short picks screen ${TAG}` });

@@ -35,7 +35,7 @@ beforeAll(async () => {
   future = await fixtures.addOrder(`${TAG}-FUTURE`, "2030-06-01T08:00:00Z", [items[0]!]);
   noCutoff = await fixtures.addOrder(`${TAG}-NOCUT`, CUTOFF, [items[1]!]);
   await db()("orders").where({ id: noCutoff }).update({ cutoff_at: null });
-});
+}, 120_000);
 
 afterAll(async () => {
   await fixtures.cleanUp();

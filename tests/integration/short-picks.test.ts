@@ -55,7 +55,7 @@ beforeAll(async () => {
   );
   for (const b of wave.batches) await pickBatch(b.id, (l) => (shortLines.has(l.orderLineId) ? 3 : l.quantity));
   shorts = (await list(`?waveId=${waveId}`)).shortPicks;
-});
+}, 120_000);
 
 afterAll(async () => {
   // Re-pick orders go with their originals (the foreign key cascades); their waves first.

@@ -108,8 +108,10 @@ export function OrdersScreen({ canPlan, versions }: { canPlan: boolean; versions
         <p className="pb-3" data-testid="orders-count">
           {isLoading
             ? "Loading orders…"
-            : `${showing === orders.length ? "" : `${n(showing)} of `}${n(orders.length)} orders, ${n(lines)} order lines` +
-              `${overdue ? `, ${n(overdue)} overdue` : ""}. Cut-offs in ${style.timeZone} time.`}
+            : (showing === orders.length
+                ? `${n(orders.length)} orders, ${n(lines)} order lines${overdue ? `, ${n(overdue)} overdue` : ""}.`
+                : `${n(showing)} of ${n(orders.length)} orders match the search (in all: ${n(lines)} order lines` +
+                  `${overdue ? `, ${n(overdue)} overdue` : ""}).`) + ` Cut-offs in ${style.timeZone} time.`}
         </p>
       </div>
       {error && (

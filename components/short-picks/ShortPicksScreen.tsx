@@ -7,7 +7,7 @@ import { EmptyState } from "@/components/EmptyState";
 import { FailureNotice } from "@/components/FailureNotice";
 import { useDateStyle } from "@/components/SiteFormat";
 import { postJson, swrFetcher, type ApiFailure } from "@/lib/client/fetch-json";
-import { formatDate, formatDateTime, formatWhen } from "@/lib/format/dates";
+import { formatDate, formatWhen } from "@/lib/format/dates";
 import type { FollowUpAction, ReplenishmentDTO, ShortPickRowDTO, ShortPicksDTO } from "@/lib/contracts/short-picks";
 
 function outcomeText(s: ShortPickRowDTO): string | null {
@@ -79,7 +79,7 @@ function ShortPickCard({ s, onChanged }: { s: ShortPickRowDTO; onChanged: () => 
           <p className="font-semibold">Follow-up needed: what happens to the {s.short} not picked?</p>
         )}
         {s.replenishAt && (
-          <p className="text-sm">⚑ Bin flagged for replenishment, {formatDateTime(s.replenishAt, style)}</p>
+          <p className="text-sm">⚑ Bin flagged for replenishment, {formatWhen(s.replenishAt, style)}</p>
         )}
       </div>
       <div className="flex flex-wrap gap-2">

@@ -38,7 +38,7 @@ describe("a planner looks up an order", () => {
     await page.getByLabel("Show").selectOption("all");
     await page.getByText(/^[\d,]+ orders, [\d,]+ order lines/).waitFor();
     await page.getByLabel("Search order, customer reference or status").fill(TAG);
-    await page.getByText(/^3 of [\d,]+ orders, [\d,]+ order lines/).waitFor();
+    await page.getByText(/^3 of [\d,]+ orders match the search \(in all: [\d,]+ order lines/).waitFor();
     const row = page.getByRole("row").filter({ hasText: `${TAG}-WAVE` });
     await row.getByText("⚠ Overdue").waitFor();
     await page

@@ -111,8 +111,8 @@ export function WaveFinish({
                   {f.cutoffMs <= now
                     ? "It has already passed: these orders are late whatever happens now."
                     : f.meetsCutoff
-                      ? `${p} picker${p === 1 ? "" : "s"} make it`
-                      : `${p} picker${p === 1 ? "" : "s"} miss it by ${minutes((f.finishMs - f.cutoffMs) / 1000)}`}
+                      ? `${p === 1 ? "1 picker makes" : `${p} pickers make`} it`
+                      : `${p === 1 ? "1 picker misses" : `${p} pickers miss`} it by ${minutes((f.finishMs - f.cutoffMs) / 1000)}`}
                   {f.cutoffMs > now && f.needed?.kind === "met" && (
                     <>
                       ; it needs at least <span className="font-semibold">{f.needed.pickers}</span> picker

@@ -31,9 +31,10 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
       .waitFor()),
   // Only those who plan see the form; a supervisor reads the list.
   "/waves": async (page, role) =>
-    void (await (roleMay(role, "waves.plan")
-      ? page.getByRole("button", { name: "Create the wave" })
-      : page.getByRole("heading", { name: "Waves", level: 1 })
+    void (await (
+      roleMay(role, "waves.plan")
+        ? page.getByRole("button", { name: "Create the wave" })
+        : page.getByRole("heading", { name: "Waves", level: 1 })
     ).waitFor()),
   "/waves/[id]": async (page) => void (await page.getByRole("link", { name: "#1", exact: true }).waitFor()),
   "/waves/[id]/batches/[number]": async (page) =>
@@ -46,6 +47,7 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
   // Admins sort first, so the demo admin is on the first page however many users other tests made.
   "/admin/users": async (page) => void (await page.getByText(demoAccount("admin").email).first().waitFor()),
   "/admin/mail": async (page) => void (await page.getByRole("heading", { name: /^Received \(\d+\)$/ }).waitFor()),
+  "/admin/settings": async (page) => void (await page.getByTestId("estimate-preview").waitFor()),
   "/items": async (page) => void (await page.getByText(/^[\d,]+ SKUs/).waitFor()),
   "/orders": async (page) => void (await page.getByText(/[\d,]+ orders, [\d,]+ order lines/).waitFor()),
 };

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { rowVersion } from "@/lib/http/body-fields";
 import { CLOCKS, DATE_ORDERS } from "@/lib/format/dates";
 import { isTimeZone } from "@/lib/format/time-zones";
-import { SITE_LIMITS as L, UNITS } from "@/lib/contracts/site";
+import { SITE_LIMITS as L, UNITS, type SiteChange, type SiteDTO } from "@/lib/contracts/site";
 
 const whole = (what: string, r: { min: number; max: number }, unit: string) =>
   z
@@ -24,6 +24,7 @@ export const SiteChangeBody = z
     timezone: z
       .string({ message: "Choose the site's time zone from the list." })
       .trim()
+      .max(64, "Choose a time zone from the list, such as Europe/London or America/Chicago.")
       .refine(isTimeZone, "Choose a time zone from the list, such as Europe/London or America/Chicago.")
       .optional(),
     walkingSpeedMPerS: z
@@ -40,3 +41,33 @@ export const SiteChangeBody = z
   })
   .strict()
   .refine((b) => Object.keys(b).some((k) => k !== "version"), "Say what to change, such as walkingSpeedMPerS.");
+
+const LABELS: Record<keyof SiteChange, string> = {
+  name: "site name",
+  timezone: "time zone",
+  walkingSpeedMPerS: "walking speed",
+  secondsPerLine: "time per line",
+  setupSecondsPerBatch: "set-up time per batch",
+  maxOpenBatchesPerPicker: "open batches per picker",
+  dateOrder: "date order",
+  clock: "clock",
+  units: "units",
+};
+
+/** The settings a refused save asked for that the stored site now has otherwise, in people's words. */
+export function differingFields(stored: SiteDTO, change: SiteChange): string[] {
+  const now: Required<SiteChange> = {
+    name: stored.name,
+    timezone: stored.timezone,
+    walkingSpeedMPerS: stored.walkingSpeedMmPerS / 1000,
+    secondsPerLine: stored.secondsPerLine,
+    setupSecondsPerBatch: stored.setupSecondsPerBatch,
+    maxOpenBatchesPerPicker: stored.maxOpenBatchesPerPicker,
+    dateOrder: stored.dateOrder,
+    clock: stored.clock,
+    units: stored.units,
+  };
+  return (Object.keys(LABELS) as (keyof SiteChange)[])
+    .filter((k) => change[k] !== undefined && change[k] !== now[k])
+    .map((k) => LABELS[k]);
+}

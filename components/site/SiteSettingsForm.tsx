@@ -37,6 +37,19 @@ const formOf = (s: SiteDTO): Form => ({
 // An empty field is sent as it is typed (not as 0), so the server names it.
 const num = (v: string) => (v.trim() === "" ? v : Number(v));
 
+// The server names fields as the API does; people see the form's words.
+const FIELD_LABELS: Record<string, string> = {
+  name: "Site name",
+  timezone: "Time zone",
+  walkingSpeedMPerS: "Walking speed",
+  secondsPerLine: "Time per pick line",
+  setupSecondsPerBatch: "Set-up time per batch",
+  maxOpenBatchesPerPicker: "Open batches per picker",
+  dateOrder: "Date order",
+  clock: "Clock",
+  units: "Units",
+};
+
 // The sample batch of the preview: a typical cart of a busy morning.
 const SAMPLE = { distanceMm: 180_000, lines: 12 };
 
@@ -61,7 +74,12 @@ export function SiteSettingsForm({ initial, nowIso, zones }: { initial: SiteDTO;
   const speed = Number(f.walkingSpeed);
   const perLine = Number(f.secondsPerLine);
   const setup = Number(f.setupSeconds);
-  const timingOk = speed >= L.walkingSpeedMPerS.min && perLine >= 0 && setup >= 0 && f.walkingSpeed.trim() !== "";
+  const within = (v: number, r: { min: number; max: number }) => v >= r.min && v <= r.max;
+  const timingOk =
+    [f.walkingSpeed, f.secondsPerLine, f.setupSeconds].every((v) => v.trim() !== "") &&
+    within(speed, L.walkingSpeedMPerS) &&
+    within(perLine, L.secondsPerLine) &&
+    within(setup, L.setupSecondsPerBatch);
   const timing = {
     walkingSpeedMmPerS: Math.round(speed * 1000),
     secondsPerLine: perLine,
@@ -87,7 +105,7 @@ export function SiteSettingsForm({ initial, nowIso, zones }: { initial: SiteDTO;
     });
     setBusy(false);
     if (!r.ok) {
-      setFailure(r);
+      setFailure({ ...r, issues: r.issues?.map((i) => ({ ...i, path: FIELD_LABELS[i.path] ?? i.path })) });
       const theirs = (r.body as { site?: SiteDTO } | undefined)?.site;
       if (r.status === 409 && theirs) {
         setSite(theirs);
@@ -244,7 +262,7 @@ export function SiteSettingsForm({ initial, nowIso, zones }: { initial: SiteDTO;
               value={f.setupSeconds}
               onChange={set("setupSeconds")}
             />
-            {setup >= 0 && f.setupSeconds.trim() !== "" && (
+            {within(setup, L.setupSecondsPerBatch) && f.setupSeconds.trim() !== "" && (
               <span className="mt-1 block text-sm text-ink-soft">= {setupText(setup)}</span>
             )}
           </label>

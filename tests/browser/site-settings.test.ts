@@ -48,8 +48,8 @@ afterAll(async () => {
   await closeDb();
 });
 
-const DMY = /\d{2}\/\d{2}\/\d{4} \d{2}:\d{2}\b/;
-const YMD_12H = /\d{4}-\d{2}-\d{2} \d{1,2}:\d{2} (AM|PM)\b/;
+const DMY = /\d{2}\/\d{2}\/\d{4} \d{2}:\d{2}/;
+const YMD_12H = /\d{4}-\d{2}-\d{2} \d{1,2}:\d{2} (AM|PM)/;
 
 describe("an admin sets the site's date order", () => {
   it("sees the preview follow the form, saves, and every page writes dates the new way", async () => {

@@ -14,6 +14,7 @@ const LINKS: { href: string; label: string; access: Access }[] = [
   { href: "/my-batches", label: "My batches", access: "picks.work" },
   { href: "/admin/users", label: "Users", access: "users.manage" },
   { href: "/admin/mail", label: "Mail", access: "users.manage" },
+  { href: "/admin/settings", label: "Settings", access: "site.manage" },
 ];
 
 export function NavBar({ user }: { user: SignedInUser }) {

@@ -14,6 +14,7 @@ export type AuditEvent =
   | "origin.refused"
   | "user.created"
   | "user.changed"
+  | "site.changed"
   | "user.invited"
   | "password.set"
   | "password.set_refused"

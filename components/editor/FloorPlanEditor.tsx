@@ -6,6 +6,8 @@ import useSWR from "swr";
 import { swrFetcher } from "@/lib/client/fetch-json";
 import { draftUrl, type DraftResponse } from "./api";
 import { EditorSession } from "./EditorSession";
+import { useDateStyle } from "@/components/SiteFormat";
+import { formatDateTime } from "@/lib/format/dates";
 
 type Props = { floorPlanId: number; canEdit: boolean };
 
@@ -15,6 +17,7 @@ type Props = { floorPlanId: number; canEdit: boolean };
  */
 export function FloorPlanEditor({ floorPlanId, canEdit }: Props) {
   const [loads, setLoads] = useState(0);
+  const style = useDateStyle();
   const { data, error, isLoading, mutate } = useSWR<DraftResponse>(draftUrl(floorPlanId), swrFetcher, {
     revalidateOnFocus: false,
     revalidateOnReconnect: false,
@@ -37,8 +40,7 @@ export function FloorPlanEditor({ floorPlanId, canEdit }: Props) {
   return (
     <div className="space-y-3">
       <p className="text-sm text-ink-soft">
-        Draft version {draft.version}, last saved{" "}
-        {new Date(draft.updatedAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}
+        Draft version {draft.version}, last saved {formatDateTime(draft.updatedAt, style)}
         {draft.updatedByName ? ` by ${draft.updatedByName}` : ""}.{" "}
         {latestVersion ? (
           <>
@@ -46,9 +48,7 @@ export function FloorPlanEditor({ floorPlanId, canEdit }: Props) {
             <Link className="underline" href={`/floor-plans/${floorPlanId}/versions/${latestVersion.number}`}>
               layout version {latestVersion.number}
             </Link>
-            , published{" "}
-            {new Date(latestVersion.publishedAt).toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" })}
-            .
+            , published {formatDateTime(latestVersion.publishedAt, style)}.
           </>
         ) : (
           "Nothing is published yet, so no routes can be planned on this floor."

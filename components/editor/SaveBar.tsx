@@ -4,6 +4,8 @@ import { FieldErrors } from "@/components/FieldErrors";
 import type { SyncNotice } from "./useDraftSync";
 import type { SaveConflict } from "./api";
 import { PublishProgress } from "./PublishProgress";
+import { useDateStyle } from "@/components/SiteFormat";
+import { formatDateTime, type DateStyle } from "@/lib/format/dates";
 
 type Props = {
   planId: number;
@@ -21,15 +23,14 @@ type Props = {
   onKeepEditing: () => void;
 };
 
-function when(iso: string): string {
+function when(iso: string, style: DateStyle): string {
   const d = new Date(iso);
-  return Number.isNaN(d.getTime())
-    ? "just now"
-    : d.toLocaleString(undefined, { dateStyle: "medium", timeStyle: "short" });
+  return Number.isNaN(d.getTime()) ? "just now" : formatDateTime(d, style);
 }
 
 /** Save and publish, the draft's state, and what the server said. */
 export function SaveBar(p: Props) {
+  const style = useDateStyle();
   return (
     <div className="card space-y-3">
       <div className="flex flex-wrap items-center gap-3">
@@ -58,7 +59,7 @@ export function SaveBar(p: Props) {
         <div className="notice-error space-y-2" role="alert">
           <p>
             Someone else saved this draft{p.conflict.updatedByName ? ` (${p.conflict.updatedByName})` : ""} at{" "}
-            {when(p.conflict.updatedAt)}. Your changes were not saved, and theirs were not overwritten.
+            {when(p.conflict.updatedAt, style)}. Your changes were not saved, and theirs were not overwritten.
           </p>
           <div className="flex flex-wrap gap-2">
             <button type="button" className="btn-danger" onClick={p.onReload}>

@@ -10,6 +10,8 @@ import { MappingFields } from "./MappingFields";
 import { PreviewTable } from "./PreviewTable";
 import { ProblemList } from "./ProblemList";
 import { importedSentence } from "./import-text";
+import { useDateStyle } from "@/components/SiteFormat";
+import { formatDateTime } from "@/lib/format/dates";
 import type { ImportAnswer, PreviewAnswer, RowProblem } from "@/lib/contracts/imports";
 import type { VersionOption } from "@/lib/contracts/layout-versions";
 
@@ -34,6 +36,7 @@ function form(file: File, versionId: number, mapping: Record<string, number | nu
 /** Layout version → file → preview with column choices and row problems → import, all or nothing. */
 export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
   const { mutate } = useSWRConfig();
+  const style = useDateStyle();
   const [versionId, setVersionId] = useState<number | null>(versions[0]?.id ?? null);
   const [file, setFile] = useState<File | null>(null);
   const [mapping, setMapping] = useState<Record<string, number | null> | null>(null);
@@ -77,7 +80,7 @@ export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
     const r = await requestJson<ImportAnswer>("POST", `/api/imports/${kind}`, form(file, versionId, mapping));
     setBusy(null);
     if (r.ok) {
-      setDone(importedSentence(kind, r.data));
+      setDone(importedSentence(kind, r.data, style));
       setAnswer(null);
       setFile(null);
       setMapping(null);
@@ -155,7 +158,7 @@ export function ImportPanel({ kind, title, versions, refreshPrefix }: Props) {
         <>
           {answer.duplicate && (
             <p className="notice-info">
-              This exact file was imported on {new Date(answer.duplicate.importedAt).toLocaleString("en-GB")} as “
+              This exact file was imported on {formatDateTime(answer.duplicate.importedAt, style)} as “
               {answer.duplicate.filename}”.
               {kind === "orders"
                 ? " Importing it again adds nothing."

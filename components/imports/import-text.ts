@@ -1,10 +1,11 @@
 import type { ImportKind } from "@/lib/imports/fields";
 import type { ImportAnswer } from "@/lib/contracts/imports";
+import { formatDateTime, type DateStyle } from "@/lib/format/dates";
 
-export function importedSentence(kind: ImportKind, a: ImportAnswer): string {
+export function importedSentence(kind: ImportKind, a: ImportAnswer, style?: DateStyle): string {
   const c = a.counts;
   if (a.alreadyImported) {
-    return `This file was already imported on ${new Date(a.importedAt).toLocaleString("en-GB")} (as “${a.filename}”, ${c.orders ?? 0} orders, ${c.lines ?? 0} lines). Nothing was added again.`;
+    return `This file was already imported on ${formatDateTime(a.importedAt, style)} (as “${a.filename}”, ${c.orders ?? 0} orders, ${c.lines ?? 0} lines). Nothing was added again.`;
   }
   if (kind === "items")
     return `Imported ${c.items ?? 0} SKUs: ${c.inserted ?? 0} new, ${c.updated ?? 0} updated (their bins replaced).`;

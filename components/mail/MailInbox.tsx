@@ -6,10 +6,10 @@ import { swrFetcher } from "@/lib/client/fetch-json";
 import { linkParts } from "@/lib/mail/link-text";
 import type { SinkMessage } from "@/lib/contracts/mail";
 import type { OutboxRow } from "@/lib/contracts/mail";
+import { useDateStyle } from "@/components/SiteFormat";
+import { formatDateTime } from "@/lib/format/dates";
 
 type OutboxState = Omit<OutboxRow, "text" | "html">;
-
-const when = (iso: string) => new Date(iso).toLocaleString();
 
 function MessageText({ text }: { text: string }) {
   // Plain text only, never the message's HTML; http(s) links become links.
@@ -29,6 +29,8 @@ function MessageText({ text }: { text: string }) {
 }
 
 export function MailInbox() {
+  const style = useDateStyle();
+  const when = (iso: string) => formatDateTime(iso, style);
   const { data, error, isLoading } = useSWR<{ messages: SinkMessage[]; outbox: OutboxState[] }>(
     "/api/mail",
     swrFetcher,

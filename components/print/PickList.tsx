@@ -14,6 +14,7 @@ export function PickList({
   batch,
   printedBefore,
   seconds,
+  estimateNote,
   document,
   routeCells,
   dropoff,
@@ -40,6 +41,7 @@ export function PickList({
           <p className="mt-2 text-sm">
             {batch.stops.length} stops · {batch.lineCount} lines · {batch.toteCount} totes · {kilograms(batch.weightG)}{" "}
             · walk {metres(batch.distanceMm)} · about {minutes(seconds)}
+            {estimateNote && <span className="block text-xs">Estimated {estimateNote}.</span>}
           </p>
         </div>
         <div className="w-64 max-w-full" data-testid="batch-barcode" dangerouslySetInnerHTML={{ __html: barcodeSvg }} />

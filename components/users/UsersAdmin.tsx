@@ -7,12 +7,15 @@ import { swrFetcher, patchJson } from "@/lib/client/fetch-json";
 import { ROLE_LABEL, ROLES, type Role } from "@/lib/auth/permissions";
 import type { UserDTO } from "@/lib/contracts/users";
 import { NewUserForm } from "./NewUserForm";
+import { useDateStyle } from "@/components/SiteFormat";
+import { formatDateTime, type DateStyle } from "@/lib/format/dates";
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : "never");
+const when = (iso: string | null, style: DateStyle) => (iso ? formatDateTime(iso, style) : "never");
 
 export function UsersAdmin({ myId }: { myId: string }) {
   const { data, error, isLoading, mutate } = useSWR<{ users: UserDTO[] }>("/api/users", swrFetcher);
   const [message, setMessage] = useState<{ kind: "error" | "info"; text: string } | null>(null);
+  const style = useDateStyle();
 
   const columns = useMemo<DataColumn<UserDTO>[]>(() => {
     async function change(user: UserDTO, patch: { role?: Role; disabled?: boolean }, done: string) {
@@ -69,7 +72,7 @@ export function UsersAdmin({ myId }: { myId: string }) {
         id: "lastSignIn",
         accessorFn: (u) => u.lastSignInAt ?? "",
         header: "Last sign-in",
-        cell: ({ row }) => when(row.original.lastSignInAt),
+        cell: ({ row }) => when(row.original.lastSignInAt, style),
       },
       {
         id: "actions",
@@ -98,7 +101,7 @@ export function UsersAdmin({ myId }: { myId: string }) {
         },
       },
     ];
-  }, [mutate, myId]);
+  }, [mutate, myId, style]);
 
   return (
     <div className="space-y-6">

@@ -1,5 +1,6 @@
 import "server-only";
 import { countAttempt, keepAttempt, uncountAttempt, type Count } from "@/db/throttle";
+import { formatTime } from "@/lib/format/dates";
 
 export const THROTTLE_WINDOW_MS = 15 * 60 * 1000;
 export const MAX_FAILURES_PER_ACCOUNT = 10;
@@ -56,8 +57,9 @@ export const signInLimits = (email: string, ip: string): Limit[] => [
   { scope: "sign_in:address", subject: ip, max: MAX_FAILURES_PER_IP },
 ];
 
+/** "09:05" in a zone, on the 24-hour clock: through the one formatter. */
 export function formatClock(at: Date, timeZone: string): string {
-  return new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", hour12: false, timeZone }).format(at);
+  return formatTime(at, { timeZone, dateOrder: "dmy", clock: "24h" });
 }
 
 /**

@@ -10,6 +10,8 @@ export type PickListData = {
   batch: BatchDetailDTO;
   printedBefore: number;
   seconds: number;
+  /** Which figures the estimate uses ("at 1.0 m/s walking, …"). */
+  estimateNote?: string;
   document: EditorDocument;
   routeCells: number[];
   dropoff: string;

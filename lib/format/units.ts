@@ -13,3 +13,7 @@ export function savingsPct(distanceMm: number, baselineMm: number): string {
   if (!(baselineMm > 0)) return "—";
   return `${(Math.round((1 - distanceMm / baselineMm) * 1000) / 10).toLocaleString("en-GB")} %`;
 }
+
+/** A distance in the site's units: metres, or whole feet at an imperial site. */
+export const distance = (mm: number, units: "metric" | "imperial" = "metric") =>
+  units === "imperial" ? `${Math.round(mm / 304.8).toLocaleString("en-GB")} ft` : metres(mm);

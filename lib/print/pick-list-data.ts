@@ -7,7 +7,7 @@ import { getSite } from "@/db/sites";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { batchRouteCells } from "@/lib/waves/batch-route";
 import { documentBins } from "@/lib/floor-plan/bin-codes";
-import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
+import { estimateSeconds, siteTiming, timingNote } from "@/lib/batching/estimate";
 import type { PickListData } from "@/lib/contracts/print";
 import { HIGH_LEVEL } from "@/lib/picking/rules";
 import { code128Svg } from "./barcode";
@@ -46,6 +46,7 @@ export async function pickListsOf(siteId: number, wave: WaveDTO, numbers?: numbe
       batch,
       printedBefore: counts.get(batch.number) ?? 0,
       seconds: estimateSeconds({ distanceMm: batch.distanceMm, lines: batch.lineCount }, timing),
+      estimateNote: timingNote(timing, site?.units),
       document: version.document,
       routeCells: batchRouteCells(
         graph,

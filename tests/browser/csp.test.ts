@@ -47,6 +47,7 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
   // Admins sort first, so the demo admin is on the first page however many users other tests made.
   "/admin/users": async (page) => void (await page.getByText(demoAccount("admin").email).first().waitFor()),
   "/admin/mail": async (page) => void (await page.getByRole("heading", { name: /^Received \(\d+\)$/ }).waitFor()),
+  "/admin/settings": async (page) => void (await page.getByTestId("estimate-preview").waitFor()),
   "/items": async (page) => void (await page.getByText(/^[\d,]+ SKUs/).waitFor()),
   "/orders": async (page) => void (await page.getByText(/[\d,]+ orders, [\d,]+ order lines/).waitFor()),
   "/orders/[id]": async (page) => void (await page.getByTestId("order-line").first().waitFor()),

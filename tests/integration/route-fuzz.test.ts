@@ -123,6 +123,39 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
     },
   },
   "/api/mail": { GET: {} },
+  "/api/site": {
+    GET: {},
+    PATCH: {
+      body: {
+        // A version no site has: whatever slips past the schema is refused as stale, never saved.
+        example: () => ({
+          version: MAX_ID,
+          name: "Fuzz site",
+          timezone: "Europe/London",
+          walkingSpeedMPerS: 1,
+          secondsPerLine: 15,
+          setupSecondsPerBatch: 120,
+          maxOpenBatchesPerPicker: 3,
+          dateOrder: "dmy",
+          clock: "24h",
+          units: "metric",
+        }),
+        fields: {
+          version: id,
+          name: { kind: "string", min: 1, max: 120, trimmed: true },
+          timezone: { kind: "string", min: 1, max: 64, pattern: /^[A-Za-z]+\/[A-Za-z_]+$/ },
+          walkingSpeedMPerS: { kind: "number", min: 0.3, max: 2.5 },
+          secondsPerLine: { kind: "int", min: 1, max: 600 },
+          setupSecondsPerBatch: { kind: "int", min: 0, max: 3600 },
+          maxOpenBatchesPerPicker: { kind: "int", min: 1, max: 10 },
+          dateOrder: { kind: "enum", values: ["dmy", "mdy", "ymd"] },
+          clock: { kind: "enum", values: ["24h", "12h"] },
+          units: { kind: "enum", values: ["metric", "imperial"] },
+        },
+        probe: { status: 409 },
+      },
+    },
+  },
   "/api/password/reset-request": {
     POST: {
       body: {

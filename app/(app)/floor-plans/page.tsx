@@ -3,6 +3,8 @@ import Link from "next/link";
 import { requireRole } from "@/lib/auth/guard";
 import { roleMay } from "@/lib/auth/permissions";
 import { listFloorPlans } from "@/db/floor-plans";
+import { getSite } from "@/db/sites";
+import { formatDateTime } from "@/lib/format/dates";
 import { PageHeader } from "@/components/PageHeader";
 import { EmptyState } from "@/components/EmptyState";
 import { NewFloorPlanForm } from "@/components/floor-plans/NewFloorPlanForm";
@@ -11,7 +13,8 @@ export const metadata: Metadata = { title: "Floor plans" };
 
 export default async function FloorPlansPage() {
   const user = await requireRole("floorplans.read", "/floor-plans");
-  const plans = await listFloorPlans(user.siteId);
+  const [plans, site] = await Promise.all([listFloorPlans(user.siteId), getSite(user.siteId)]);
+  const style = site?.dateStyle;
   const canEdit = roleMay(user.role, "floorplans.edit");
   return (
     <>
@@ -31,7 +34,7 @@ export default async function FloorPlansPage() {
             <li key={p.id} className="card flex flex-col gap-3">
               <h2>{p.name}</h2>
               <p className="text-ink-soft">
-                Draft last saved {new Date(p.draftUpdatedAt).toLocaleString("en-GB")}
+                Draft last saved {formatDateTime(p.draftUpdatedAt, style)}
                 {p.latestVersion && p.latestVersion.fromDraftVersion === p.draftVersion
                   ? " — the same as the published version."
                   : p.latestVersion
@@ -39,7 +42,7 @@ export default async function FloorPlansPage() {
                     : "."}
                 <br />
                 {p.latestVersion
-                  ? `Published as version ${p.latestVersion.number} on ${new Date(p.latestVersion.publishedAt).toLocaleString("en-GB")} with ${p.latestVersion.binCount.toLocaleString("en")} bins.`
+                  ? `Published as version ${p.latestVersion.number} on ${formatDateTime(p.latestVersion.publishedAt, style)} with ${p.latestVersion.binCount.toLocaleString("en")} bins.`
                   : "Not published yet."}
               </p>
               <div className="flex flex-wrap gap-2">

@@ -12,8 +12,10 @@ import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
 import { UnbatchedOrders } from "@/components/waves/UnbatchedOrders";
-import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
-import { metres, minutes, savingsPct } from "@/lib/format/units";
+import { estimateSeconds, siteTiming, timingNote } from "@/lib/batching/estimate";
+import { distance, minutes, savingsPct } from "@/lib/format/units";
+import { WaveFinish } from "@/components/waves/WaveFinish";
+import { activePickerCount, earliestCutoffOfWave } from "@/db/wave-timing";
 
 export const metadata: Metadata = { title: "Wave" };
 
@@ -28,6 +30,11 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
     shortPicksOfWave(wave.id),
   ]);
   const timing = siteTiming(site);
+  const units = site?.units ?? "metric";
+  const [earliestCutoff, pickersOnShift] = await Promise.all([
+    earliestCutoffOfWave(wave.id),
+    activePickerCount(user.siteId),
+  ]);
   const rows = batches.map((b) => ({
     ...b,
     seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing),
@@ -68,21 +75,27 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
             <dt className="text-ink-soft">Batches</dt>
             <dd className="text-xl font-bold">{batches.length}</dd>
             <dt className="text-ink-soft">Planned walk</dt>
-            <dd className="text-xl font-bold">{metres(wave.distanceMm)}</dd>
+            <dd className="text-xl font-bold">{distance(wave.distanceMm, units)}</dd>
             <dt className="text-ink-soft">Usual walk</dt>
-            <dd className="text-xl">{metres(wave.baselineMm)}</dd>
+            <dd className="text-xl">{distance(wave.baselineMm, units)}</dd>
             <dt className="text-ink-soft">Savings</dt>
             <dd className="text-xl font-bold text-trail-dark">{savingsPct(wave.distanceMm, wave.baselineMm)}</dd>
             <dt className="text-ink-soft">Estimated time</dt>
             <dd className="text-xl">{minutes(totalSeconds)}</dd>
-            <dd className="col-span-2 text-sm text-ink-soft">
-              Estimates assume {timing.walkingSpeedMmPerS / 1000} m/s walking and {timing.secondsPerLine} s per line
-              (common practice; set your site&apos;s own figures).
-            </dd>
+            <dd className="col-span-2 text-sm text-ink-soft">Estimated {timingNote(timing, units)}.</dd>
           </dl>
           <SavingsChart batches={batches} />
         </section>
       )}
+      <WaveFinish
+        wave={wave}
+        batches={batches}
+        timing={timing}
+        units={units}
+        earliestCutoff={earliestCutoff}
+        pickersOnShift={pickersOnShift}
+        nowIso={new Date().toISOString()}
+      />
       <section className="mt-6" aria-labelledby="batches-title">
         <div className="mb-3 flex flex-wrap items-center justify-between gap-3">
           <h2 id="batches-title">Batches</h2>

@@ -4,6 +4,8 @@ import { notFound } from "next/navigation";
 import { requireRole } from "@/lib/auth/guard";
 import { pageId } from "@/lib/http/page-params";
 import { getFloorPlan } from "@/db/floor-plans";
+import { getSite } from "@/db/sites";
+import { formatDateTime } from "@/lib/format/dates";
 import { getLayoutVersion, listLayoutBins } from "@/db/layout-versions";
 import { VersionExplorer } from "@/components/floor-plans/VersionExplorer";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
@@ -19,7 +21,11 @@ export default async function LayoutVersionPage({ params }: { params: Promise<{ 
   const plan = await getFloorPlan(user.siteId, planId);
   const version = plan ? await getLayoutVersion(user.siteId, plan.id, n) : null;
   if (!plan || !version) notFound();
-  const [rows, { graph, matrix }] = await Promise.all([listLayoutBins(version.id), layoutGraph(version.id)]);
+  const [rows, { graph, matrix }, site] = await Promise.all([
+    listLayoutBins(version.id),
+    layoutGraph(version.id),
+    getSite(user.siteId),
+  ]);
   const fromDepot = binDistancesFromDepots(graph, matrix);
   const depotName = new Map(version.document.depots.map((d) => [d.id, d.name]));
   const bins = rows.map((b) => {
@@ -42,7 +48,7 @@ export default async function LayoutVersionPage({ params }: { params: Promise<{ 
         {plan.name}: layout version {version.number}
       </h1>
       <p className="mt-1 mb-5 text-ink-soft">
-        Published {new Date(version.publishedAt).toLocaleString("en-GB")}
+        Published {formatDateTime(version.publishedAt, site?.dateStyle)}
         {version.publishedByName ? ` by ${version.publishedByName}` : ""}. It never changes: waves planned on it keep
         their routes. {version.nodeCount} junctions, {version.edgeCount} corridors,{" "}
         {version.binCount.toLocaleString("en")} bins. Distance matrix checksum{" "}

@@ -11,7 +11,7 @@ import { layoutGraph } from "@/lib/layout-versions/graph-cache";
 import { batchRouteCells } from "@/lib/waves/batch-route";
 import { BatchRoute } from "@/components/waves/BatchRoute";
 import { BatchLiveStatus } from "@/components/waves/BatchLiveStatus";
-import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
+import { estimateSeconds, siteTiming, timingNote } from "@/lib/batching/estimate";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 
 export const metadata: Metadata = { title: "Batch" };
@@ -59,7 +59,7 @@ export default async function BatchPage({ params }: { params: Promise<{ id: stri
         {metres(batch.distanceMm)} (
         {batch.optimal ? "exact route, proven shortest" : "heuristic route: good, not proven shortest"}) against{" "}
         {metres(batch.baselineMm)} in the usual order: {savingsPct(batch.distanceMm, batch.baselineMm)} less. About{" "}
-        {minutes(seconds)}.
+        {minutes(seconds)}, {timingNote(siteTiming(site), site?.units)}.
       </p>
       <BatchLiveStatus waveId={wave.id} number={batch.number} live={wave.status === "released"} />
       <BatchRoute

@@ -10,8 +10,6 @@ const FOLDERS = ["app", "components", "lib", "db"];
 // Allowed, each with its reason. Intl's zone data is also how a typed local time becomes an instant.
 const ALLOWED: { file: string; why: string }[] = [
   { file: "lib/imports/cutoff.ts", why: "reads a zone's offset to parse a typed cut-off; shows nothing" },
-  // The orders screen belongs to another change that moves it to formatDateTime; remove this line then.
-  { file: "components/orders/OrdersScreen.tsx", why: "pending: its cut-off column is being rewritten" },
 ];
 
 function sourceFiles(dir: string): string[] {

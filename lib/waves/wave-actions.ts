@@ -51,7 +51,8 @@ export async function discardWaveBy(
   if (r.outcome === "released")
     throw new HttpError(
       409,
-      "This wave is released: its batches are on the pickers' handhelds and it cannot be discarded.",
+      "This wave is released: its batches are on the pickers' handhelds and it cannot be cancelled. " +
+        "Recall each batch nobody has started (its orders go back to open); a started batch is reassigned on the floor.",
     );
   if (r.outcome !== "discarded")
     throw new HttpError(409, "The wave changed (re-planned?) since you loaded it. Reload it and decide again.");

@@ -12,6 +12,9 @@ import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
 import { UnbatchedOrders } from "@/components/waves/UnbatchedOrders";
+import { RecallBatches } from "@/components/waves/RecallBatches";
+import { recallableBatches } from "@/db/wave-control";
+import { waveEnds } from "@/lib/waves/wave-control";
 import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
 import { metres, minutes, savingsPct } from "@/lib/format/units";
 
@@ -26,6 +29,11 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
     listBatches(wave.id),
     getSite(user.siteId),
     shortPicksOfWave(wave.id),
+  ]);
+  const canPlan = roleMay(user.role, "waves.plan");
+  const [ends, recallable] = await Promise.all([
+    canPlan && wave.status !== "released" ? waveEnds(user, wave) : null,
+    canPlan && wave.status === "released" ? recallableBatches(wave.id) : [],
   ]);
   const timing = siteTiming(site);
   const rows = batches.map((b) => ({
@@ -56,11 +64,13 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
         waveId={wave.id}
         status={wave.status}
         version={wave.version}
-        canPlan={roleMay(user.role, "waves.plan")}
+        canPlan={canPlan}
         batchCount={batches.length}
         unbatchedCount={wave.unbatchable.length}
         orderCount={wave.orderCount}
+        editor={ends ? { name: wave.name, settings: wave.settings, ends } : undefined}
       />
+      {canPlan && <RecallBatches waveId={wave.id} batches={recallable} />}
       <UnbatchedOrders wave={wave} />
       {batches.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
         <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">

@@ -302,3 +302,17 @@ export async function batchState(
   const r = await db()("batches").where({ wave_id: waveId, number }).first("status", "version", "recalled_by");
   return r ? { status: r.status, version: Number(r.version), recalledBy: r.recalled_by } : null;
 }
+
+/** Who cancelled (discarded) a wave that is gone, from the audit line written with the deletion. */
+export async function cancellationOf(
+  waveId: number,
+): Promise<{ actorUserId: string | null; actorName: string | null; orders: number } | null> {
+  const r = await db()("audit_log as a")
+    .leftJoin("users as u", "u.id", "a.actor_user_id")
+    .where({ "a.event": "wave.discarded", "a.subject": `wave:${waveId}` })
+    .orderBy("a.id", "desc")
+    .first("a.actor_user_id", "u.display_name", "a.detail");
+  if (!r) return null;
+  const detail = (typeof r.detail === "string" ? JSON.parse(r.detail) : r.detail) as { orders?: number } | null;
+  return { actorUserId: r.actor_user_id, actorName: r.display_name ?? null, orders: Number(detail?.orders ?? 0) };
+}

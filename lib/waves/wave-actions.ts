@@ -49,9 +49,8 @@ export async function discardWaveBy(
   );
   if (r.outcome === "missing") {
     const earlier = await cancellationOf(id);
-    // The same planner's repeat (a double click, a lost answer) went through already.
-    if (earlier?.actorUserId === user.id) return { orders: earlier.orders };
-    if (earlier)
+    // Someone else cancelled it first; the same planner's repeat keeps its 404 below.
+    if (earlier && earlier.actorUserId !== user.id)
       throw new HttpError(
         409,
         `This wave was already cancelled${earlier.actorName ? ` by ${earlier.actorName}` : " by someone else"}; its orders are open again on the orders page.`,

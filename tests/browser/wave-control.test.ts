@@ -40,7 +40,7 @@ describe("a planner edits, re-plans and releases a wave, then recalls a batch", 
     // Edit the draft: a new name, first come, and one order taken out by hand.
     await page.getByRole("button", { name: "Edit wave" }).click();
     const editor = page.getByRole("region", { name: "Edit the wave" });
-    await editor.getByLabel("Name").fill(`Edited ${TAG}`);
+    await editor.getByLabel("Name", { exact: true }).fill(`Edited ${TAG}`);
     await editor.getByLabel("Batching").selectOption("first-come");
     await editor.getByRole("button", { name: "Save changes" }).click();
     await page.getByRole("heading", { name: `Edited ${TAG}`, level: 1 }).waitFor();

@@ -14,15 +14,14 @@ export function releaseWords(batchCount: number, unbatchedCount: number): { butt
     };
   }
   const batches = plural(batchCount, "batch", "batches");
-  const summary = `${batches} ${batchCount === 1 ? "goes" : "go"} to the pickers' handhelds`;
   if (unbatchedCount === 0)
     return {
       button: "Release to pickers",
-      question: `Release ${batches} to the pickers? ${summary}; every order of the wave is in a batch, none goes back to open. Released batches are locked: a batch nobody has started can still be recalled.`,
+      question: `Release ${batches} to the pickers' handhelds? Every order of the wave is in a batch; none goes back to open. Released batches are locked: a batch nobody has started can still be recalled.`,
     };
   return {
     button: `Release ${batches}; ${orders} back to open`,
-    question: `Release ${batches} to the pickers? ${summary}. The ${orders} no batch holds ${unbatchedCount === 1 ? "goes" : "go"} back to open orders, with ${unbatchedCount === 1 ? "its reason" : "their reasons"} kept on the orders page, to go in a later wave once fixed. Released batches are locked.`,
+    question: `Release ${batches} to the pickers' handhelds? The ${orders} no batch holds ${unbatchedCount === 1 ? "goes" : "go"} back to open orders, with ${unbatchedCount === 1 ? "its reason" : "their reasons"} kept on the orders page, to go in a later wave once fixed. Released batches are locked.`,
   };
 }
 

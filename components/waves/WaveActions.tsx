@@ -109,7 +109,7 @@ export function WaveActions({
                 ref={releaseButton}
                 className="btn-quiet"
                 onClick={() => setAsking(true)}
-                disabled={busy || asking}
+                disabled={busy}
               >
                 {words.button}
               </button>

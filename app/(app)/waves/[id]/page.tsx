@@ -36,7 +36,9 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
     canPlan && wave.status === "released" ? recallableBatches(wave.id) : [],
   ]);
   const timing = siteTiming(site);
-  const rows = batches.map((b) => ({
+  // Recalled batches stay in the table as history; the summary counts only the batches still to pick.
+  const working = batches.filter((b) => b.status !== "recalled");
+  const rows = working.map((b) => ({
     ...b,
     seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing),
   }));
@@ -76,7 +78,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
         <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">
           <dl className="card grid grid-cols-2 gap-3">
             <dt className="text-ink-soft">Batches</dt>
-            <dd className="text-xl font-bold">{batches.length}</dd>
+            <dd className="text-xl font-bold">{working.length}</dd>
             <dt className="text-ink-soft">Planned walk</dt>
             <dd className="text-xl font-bold">{metres(wave.distanceMm)}</dd>
             <dt className="text-ink-soft">Usual walk</dt>
@@ -90,7 +92,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
               (common practice; set your site&apos;s own figures).
             </dd>
           </dl>
-          <SavingsChart batches={batches} />
+          <SavingsChart batches={working} />
         </section>
       )}
       <section className="mt-6" aria-labelledby="batches-title">

@@ -74,7 +74,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
       />
       {canPlan && <RecallBatches waveId={wave.id} batches={recallable} />}
       <UnbatchedOrders wave={wave} />
-      {batches.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
+      {working.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
         <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">
           <dl className="card grid grid-cols-2 gap-3">
             <dt className="text-ink-soft">Batches</dt>

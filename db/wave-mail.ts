@@ -50,7 +50,7 @@ export async function queueShortPickSummaryIfWaveDone(
   if (!b) return;
   const open = await trx("batches")
     .where({ wave_id: b.wave_id })
-    .whereNot({ status: "done" })
+    .whereNotIn("status", ["done", "recalled"])
     .count({ n: "*" })
     .first();
   if (Number(open?.n ?? 0) > 0) return;

@@ -246,6 +246,7 @@ export async function discardWave(
   siteId: number,
   waveId: number,
   expectedVersion: number,
+  beforeCommit?: (trx: Knex.Transaction, orders: number) => Promise<void>,
 ): Promise<{ outcome: "discarded"; orders: number } | { outcome: "missing" | "released" | "stale" }> {
   return db().transaction(async (trx) => {
     const w = await trx("waves").where({ id: waveId, site_id: siteId }).forUpdate().first("version", "status");
@@ -256,6 +257,7 @@ export async function discardWave(
     for (const part of chunks(orderIds)) await trx("orders").whereIn("id", part).update({ status: "open" });
     // Its wave_orders, batches and their lines and print history go with it (foreign keys cascade).
     await trx("waves").where({ id: waveId }).delete();
+    await beforeCommit?.(trx, orderIds.length);
     return { outcome: "discarded" as const, orders: orderIds.length };
   });
 }

@@ -19,7 +19,8 @@ function secondsLeft(batches: BatchSummaryDTO[], timing: SiteTiming): number[] {
   const out: number[] = [];
   for (const b of batches) {
     const done = b.pickedLines + b.shortLines;
-    if (b.status === "done" || done >= b.lineCount) continue;
+    // A recalled batch is history: nobody will pick it.
+    if (b.status === "done" || b.status === "recalled" || done >= b.lineCount) continue;
     const full = estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing);
     out.push(b.lineCount > 0 ? (full * (b.lineCount - done)) / b.lineCount : full);
   }

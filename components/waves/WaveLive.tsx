@@ -16,8 +16,10 @@ export function WaveLive({ initial, timing }: { initial: WaveAnswer; timing: Sit
     refreshInterval: initial.wave.status === "released" ? 5000 : 0,
   });
   const { batches, shortPicks } = data ?? initial;
-  const picked = batches.reduce((a, b) => a + b.pickedLines + b.shortLines, 0);
-  const lines = batches.reduce((a, b) => a + b.lineCount, 0);
+  // A recalled batch stays listed as history but is no work for anyone.
+  const live = batches.filter((b) => b.status !== "recalled");
+  const picked = live.reduce((a, b) => a + b.pickedLines + b.shortLines, 0);
+  const lines = live.reduce((a, b) => a + b.lineCount, 0);
   return (
     <>
       {initial.wave.status === "released" && (
@@ -26,7 +28,7 @@ export function WaveLive({ initial, timing }: { initial: WaveAnswer; timing: Sit
           <span className="font-semibold">
             {picked} of {lines} lines
           </span>{" "}
-          ({batches.filter((b) => b.status === "done").length} of {batches.length} batches done). Updates by itself.
+          ({live.filter((b) => b.status === "done").length} of {live.length} batches done). Updates by itself.
         </p>
       )}
       <WaveResults waveId={initial.wave.id} batches={batches} timing={timing} />

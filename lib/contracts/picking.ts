@@ -1,7 +1,7 @@
 // What a picker's handheld gets from the picking API. Types only.
 import type { Caution } from "@/lib/picking/rules";
 
-export type PickBatchStatus = "planned" | "released" | "picking" | "done";
+export type PickBatchStatus = "planned" | "released" | "picking" | "done" | "recalled";
 
 export type PickStatus = "open" | "picked" | "short";
 

@@ -27,6 +27,13 @@ export async function workableBatch(
 ): Promise<PickBatchRow> {
   const batch = await getPickBatch(user.siteId, batchId);
   if (!batch) throw new BatchRefusal(404, "No such batch at this site. Check the link or go back to your batches.");
+  // Whoever held it has lost it: say why, rather than "not assigned to you".
+  if (batch.status === "recalled")
+    throw new BatchRefusal(
+      409,
+      "This batch was recalled by the planner: its orders went back to be planned again. Go back to your batches and take the next one.",
+      batch,
+    );
   if (user.role !== "admin" && batch.assignedTo !== user.id) {
     await audit({
       event: "access.denied",

@@ -30,6 +30,8 @@ export async function takeBatchFor(user: SignedInUser, id: number, version: numb
   if (outcome === "lost") {
     if (wentThrough(batch, heldBy(user))) return batch;
     if (batch.status === "planned") throw new HttpError(409, "This batch is not released yet.");
+    if (batch.status === "recalled")
+      throw new HttpError(409, "This batch was recalled by the planner. Take the next one.");
     if (batch.status === "done")
       throw new HttpError(409, "This batch is already picked to the end. Take the next one.");
     if (batch.assignedTo) throw new HttpError(409, "Someone else took this batch first. Take the next one.");

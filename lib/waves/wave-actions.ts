@@ -6,6 +6,7 @@ import type { SignedInUser } from "@/lib/auth/session";
 import { HttpError } from "@/lib/http/errors";
 import { wentThrough } from "@/lib/http/repeat";
 import { appOrigin } from "@/lib/mail/config";
+import { cancellationOf } from "@/db/wave-control";
 
 const noWave = () => new HttpError(404, "No such wave at this site.");
 
@@ -42,26 +43,31 @@ export async function discardWaveBy(
   version: number,
   ip: string,
 ): Promise<{ orders: number }> {
-  const r = await discardWave(user.siteId, id, version);
-  if (r.outcome === "missing")
+  // The audit line commits with the deletion, so a planner who lost the race learns who cancelled it.
+  const r = await discardWave(user.siteId, id, version, (trx, orders) =>
+    audit({ event: "wave.discarded", actorUserId: user.id, subject: `wave:${id}`, ip, detail: { orders } }, trx),
+  );
+  if (r.outcome === "missing") {
+    const earlier = await cancellationOf(id);
+    // Someone else cancelled it first; the same planner's repeat keeps its 404 below.
+    if (earlier && earlier.actorUserId !== user.id)
+      throw new HttpError(
+        409,
+        `This wave was already cancelled${earlier.actorName ? ` by ${earlier.actorName}` : " by someone else"}; its orders are open again on the orders page.`,
+      );
     throw new HttpError(
       404,
       "No such wave at this site: it may have been discarded already. Its orders are then open again on the orders page.",
     );
+  }
   if (r.outcome === "released")
     throw new HttpError(
       409,
-      "This wave is released: its batches are on the pickers' handhelds and it cannot be discarded.",
+      "This wave is released: its batches are on the pickers' handhelds and it cannot be cancelled. " +
+        "Recall each batch nobody has started (its orders go back to open); a started batch is reassigned on the floor.",
     );
   if (r.outcome !== "discarded")
     throw new HttpError(409, "The wave changed (re-planned?) since you loaded it. Reload it and decide again.");
-  await audit({
-    event: "wave.discarded",
-    actorUserId: user.id,
-    subject: `wave:${id}`,
-    ip,
-    detail: { orders: r.orders },
-  });
   return { orders: r.orders };
 }
 

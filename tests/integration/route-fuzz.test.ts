@@ -383,7 +383,59 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
       },
     },
   },
-  "/api/waves/[id]": { GET: { params: (f) => ({ id: String(f.wave.id) }) } },
+  "/api/waves/[id]": {
+    GET: { params: (f) => ({ id: String(f.wave.id) }) },
+    PATCH: {
+      params: (f) => ({ id: String(f.wave.id) }),
+      body: {
+        example: (f) => ({ version: f.wave.version, name: "Fuzzed name", settings: { totesPerCart: 3 } }),
+        fields: {
+          version: id,
+          name: { kind: "string", min: 1, max: 120, trimmed: true },
+          "settings.totesPerCart": { kind: "int", min: 1, max: 40 },
+          "settings.maxLines": { kind: "int", min: 1, max: 500 },
+          "settings.maxWeightG": { kind: "int", min: 1000, max: 1_000_000 },
+          "settings.depotId": { kind: "string", min: 1, max: 24, pattern: SHORT_ID },
+          "settings.method": { kind: "enum", values: ["first-come", "savings"] },
+        },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
+  },
+  "/api/waves/[id]/orders": {
+    GET: { params: (f) => ({ id: String(f.wave.id) }) },
+    POST: {
+      params: (f) => ({ id: String(f.wave.id) }),
+      body: {
+        example: (f) => ({
+          version: f.wave.version,
+          add: [1],
+          remove: [2],
+          addMatching: { cutoffBefore: "2019-01-01T00:00:00Z" },
+          removeMatching: { priorities: [1] },
+        }),
+        fields: {
+          version: id,
+          add: { kind: "array", max: 5000, element: 1 },
+          "add.0": id,
+          "remove.0": id,
+          "addMatching.cutoffBefore": { kind: "datetime" },
+          "removeMatching.priorities.0": { kind: "int", min: 1, max: 3 },
+        },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
+  },
+  "/api/waves/[id]/batches/[number]/recall": {
+    POST: {
+      params: (f) => ({ id: String(f.wave.id), number: "1" }),
+      body: {
+        example: () => ({ version: 1 }),
+        fields: { version: id },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
+  },
   "/api/waves/[id]/plan": {
     POST: {
       params: (f) => ({ id: String(f.wave.id) }),

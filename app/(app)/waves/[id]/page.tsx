@@ -16,6 +16,9 @@ import { estimateSeconds, siteTiming, timingNote } from "@/lib/batching/estimate
 import { distance, minutes, savingsPct } from "@/lib/format/units";
 import { WaveFinish } from "@/components/waves/WaveFinish";
 import { activePickerCount, earliestCutoffOfWave } from "@/db/wave-timing";
+import { RecallBatches } from "@/components/waves/RecallBatches";
+import { recallableBatches } from "@/db/wave-control";
+import { waveEnds } from "@/lib/waves/wave-control";
 
 export const metadata: Metadata = { title: "Wave" };
 
@@ -29,13 +32,20 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
     getSite(user.siteId),
     shortPicksOfWave(wave.id),
   ]);
+  const canPlan = roleMay(user.role, "waves.plan");
+  const [ends, recallable] = await Promise.all([
+    canPlan && wave.status !== "released" ? waveEnds(user, wave) : null,
+    canPlan && wave.status === "released" ? recallableBatches(wave.id) : [],
+  ]);
   const timing = siteTiming(site);
   const units = site?.units ?? "metric";
   const [earliestCutoff, pickersOnShift] = await Promise.all([
     earliestCutoffOfWave(wave.id),
     activePickerCount(user.siteId),
   ]);
-  const rows = batches.map((b) => ({
+  // Recalled batches stay in the table as history; the summary counts only the batches still to pick.
+  const working = batches.filter((b) => b.status !== "recalled");
+  const rows = working.map((b) => ({
     ...b,
     seconds: estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing),
   }));
@@ -63,17 +73,19 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
         waveId={wave.id}
         status={wave.status}
         version={wave.version}
-        canPlan={roleMay(user.role, "waves.plan")}
+        canPlan={canPlan}
         batchCount={batches.length}
         unbatchedCount={wave.unbatchable.length}
         orderCount={wave.orderCount}
+        editor={ends ? { name: wave.name, settings: wave.settings, ends } : undefined}
       />
+      {canPlan && <RecallBatches waveId={wave.id} batches={recallable} />}
       <UnbatchedOrders wave={wave} />
-      {batches.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
+      {working.length > 0 && wave.distanceMm !== null && wave.baselineMm !== null && (
         <section className="mt-6 grid gap-4 md:grid-cols-[1fr_2fr]" aria-label="Wave summary">
           <dl className="card grid grid-cols-2 gap-3">
             <dt className="text-ink-soft">Batches</dt>
-            <dd className="text-xl font-bold">{batches.length}</dd>
+            <dd className="text-xl font-bold">{working.length}</dd>
             <dt className="text-ink-soft">Planned walk</dt>
             <dd className="text-xl font-bold">{distance(wave.distanceMm, units)}</dd>
             <dt className="text-ink-soft">Usual walk</dt>
@@ -84,12 +96,12 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
             <dd className="text-xl">{minutes(totalSeconds)}</dd>
             <dd className="col-span-2 text-sm text-ink-soft">Estimated {timingNote(timing, units)}.</dd>
           </dl>
-          <SavingsChart batches={batches} />
+          <SavingsChart batches={working} />
         </section>
       )}
       <WaveFinish
         wave={wave}
-        batches={batches}
+        batches={working}
         timing={timing}
         units={units}
         earliestCutoff={earliestCutoff}

@@ -1,0 +1,48 @@
+import { z } from "zod";
+import { rowId, rowVersion } from "@/lib/http/body-fields";
+import { elementId } from "@/lib/floor-plan/document";
+
+// The bodies of the wave editor's requests. The limits are those of a new wave (app/api/waves/route.ts).
+
+export const WaveEditBody = z
+  .object({
+    version: rowVersion(),
+    name: z.string().trim().min(1, "Name the wave, e.g. “Tuesday morning”.").max(120).optional(),
+    settings: z
+      .object({
+        totesPerCart: z.number().int().min(1, "A cart carries at least one tote.").max(40),
+        maxLines: z.number().int().min(1).max(500),
+        maxWeightG: z.number().int().min(1000, "Allow at least 1 kg per cart.").max(1_000_000),
+        depotId: elementId,
+        dropoffId: elementId,
+        method: z.enum(["first-come", "savings"]),
+      })
+      .partial()
+      .optional(),
+  })
+  .refine((b) => b.name !== undefined || (b.settings && Object.keys(b.settings).length > 0), {
+    message: "Change the name or a setting: nothing was sent to save.",
+    path: ["name"],
+  });
+
+const OrderFilter = z.object({
+  cutoffBefore: z.iso.datetime({ offset: true, error: "Give the cut-off as a date and time." }).optional(),
+  priorities: z.array(z.number().int().min(1).max(3)).min(1, "Tick at least one priority.").max(3).optional(),
+});
+
+const ids = z.array(rowId("order")).max(5000, "At most 5,000 orders at a time.");
+
+export const WaveOrdersBody = z
+  .object({
+    version: rowVersion(),
+    add: ids.optional(),
+    remove: ids.optional(),
+    addMatching: OrderFilter.optional(),
+    removeMatching: OrderFilter.optional(),
+  })
+  .refine((b) => !!(b.add?.length || b.remove?.length || b.addMatching || b.removeMatching), {
+    message: "Choose orders to add or remove, or a filter.",
+    path: ["add"],
+  });
+
+export const RecallBody = z.object({ version: rowVersion() });

@@ -12,6 +12,7 @@ import { WaveLive } from "@/components/waves/WaveLive";
 import { WaveActions } from "@/components/waves/WaveActions";
 import { SavingsChart } from "@/components/waves/SavingsChart";
 import { UnbatchedOrders } from "@/components/waves/UnbatchedOrders";
+import { PlanComparison } from "@/components/waves/PlanComparison";
 import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
 import { metres, minutes, savingsPct } from "@/lib/format/units";
 
@@ -83,6 +84,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
           <SavingsChart batches={batches} />
         </section>
       )}
+      <PlanComparison waveId={wave.id} status={wave.status} canPlan={roleMay(user.role, "waves.plan")} settings={s} />
       <section className="mt-6" aria-labelledby="batches-title">
         <div className="mb-3 flex flex-wrap items-center justify-between gap-3">
           <h2 id="batches-title">Batches</h2>

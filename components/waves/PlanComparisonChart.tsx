@@ -4,8 +4,8 @@ import { metres, savingsPct } from "@/lib/format/units";
 const BAR = 18;
 const GAP = 4;
 const LABEL_W = 150;
-const WIDTH = 640;
-const VALUE_W = 120;
+const WIDTH = 560;
+const VALUE_W = 70;
 
 /** Each plan's total walk between its two baselines: order by order above it, the usual walk of its batches below. */
 export function PlanComparisonChart({ plans }: { plans: WavePlanDTO[] }) {
@@ -30,8 +30,9 @@ export function PlanComparisonChart({ plans }: { plans: WavePlanDTO[] }) {
         <span className="inline-block h-3 w-3 bg-trail align-middle" aria-hidden="true" /> the plan
       </figcaption>
       <svg
+        width={WIDTH}
+        height={height}
         viewBox={`0 0 ${WIDTH} ${height}`}
-        className="h-auto w-full min-w-[22rem]"
         role="img"
         aria-label={`Bar chart of ${plans.length} plans: total walk against order by order and against the usual walk`}
       >

@@ -79,8 +79,8 @@ describe("a planner compares plans of a wave and keeps one", () => {
     expect(vsUsual).toMatch(/% (less|more) than the usual walk/);
     const chart = section.getByRole("img", { name: /total walk against order by order and against the usual walk/ });
     await chart.waitFor();
-    expect(await chart.getByText("Order by order (baseline)").count()).toBe(2);
-    expect(await chart.getByText("Usual walk (baseline)").count()).toBe(2);
+    expect(await chart.getByText("Order by order (baseline)", { exact: true }).count()).toBe(2);
+    expect(await chart.getByText("Usual walk (baseline)", { exact: true }).count()).toBe(2);
     await section.screenshot({ path: path.join(ARTIFACTS, "wave-plans-compared.png") });
 
     await table.getByRole("button", { name: "Keep plan 2" }).click();

@@ -378,3 +378,23 @@ describe("who may compare and keep plans", () => {
     expect(res.status).toBe(404);
   });
 });
+
+describe("a plan whose carts are too small for some orders", () => {
+  it("leaves those orders out and sets it only against order by order of the orders it holds", async () => {
+    const waveId = await ownWave();
+    const big = ORDER_SIZES.filter((n) => n > 3).length;
+    const { plans } = await compare(waveId, [VARIANTS[0]!, { ...VARIANTS[0]!, maxLines: 3 }]);
+    const [roomy, small] = plans as [WavePlanDTO, WavePlanDTO];
+    expect(roomy.summary).toMatchObject({ orders: ORDER_SIZES.length, unbatchedOrders: 0 });
+    expect(small.summary).toMatchObject({ orders: ORDER_SIZES.length - big, unbatchedOrders: big });
+    const left = await db()("wave_plans").where({ id: small.id }).first("unbatchable");
+    const reasons = (typeof left.unbatchable === "string" ? JSON.parse(left.unbatchable) : left.unbatchable) as {
+      reason: string;
+    }[];
+    expect(reasons).toHaveLength(big);
+    for (const r of reasons) expect(r.reason).toMatch(/a cart takes at most 3/);
+    // Its order-by-order walk counts only the orders it batched, so both sides of its savings cover the same orders.
+    expect(small.summary.orderByOrderMm).toBeLessThan(roomy.summary.orderByOrderMm);
+    expect(small.summary.lines).toBe(roomy.summary.lines - ORDER_SIZES.filter((n) => n > 3).reduce((a, n) => a + n, 0));
+  });
+});

@@ -2,9 +2,8 @@ import "server-only";
 import { createHash } from "node:crypto";
 import type { JobDTO } from "@/lib/contracts/jobs";
 import type { WaveDTO, WaveSettings } from "@/lib/contracts/waves";
-import type { PlanVariant, WavePlanSummary } from "@/lib/contracts/wave-plans";
+import type { PlanVariant } from "@/lib/contracts/wave-plans";
 import type { WaveOrder } from "@/lib/batching/types";
-import type { StoredBatch } from "@/lib/contracts/batches";
 import { defineJob, startJob } from "@/lib/jobs/server";
 import { getWave, ordersOfWave } from "@/db/waves";
 import { getSite } from "@/db/sites";
@@ -13,11 +12,12 @@ import { getWavePlan, markPlanKept, storeWavePlans, waveOrderIds, type NewWavePl
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
-import { estimateSeconds, siteTiming, type SiteTiming } from "@/lib/batching/estimate";
+import { siteTiming } from "@/lib/batching/estimate";
 import { TaskError } from "@/lib/workers/worker-pool";
 import type { SignedInUser } from "@/lib/auth/session";
 import { kilograms } from "@/lib/format/units";
 import { planOrders, type PlanSettings } from "./plan-orders";
+import { perOrderTrips, summarisePlan } from "./plan-summary";
 
 type CompareInput = { waveId: number; version: number; variants: PlanVariant[] };
 
@@ -40,56 +40,6 @@ function failureMessage(e: unknown): string {
   if (e instanceof TaskError && e.reason === "crashed")
     return `Comparing plans failed: the planning worker stopped unexpectedly. ${unchanged} Try again; if it fails again, make the wave smaller or tell your admin.`;
   return `Comparing plans failed: ${(e as Error).message}`;
-}
-
-type PerOrder = Map<number, { distanceMm: number; lines: number; optimal: boolean }>;
-
-/** Each order's own trip, from the single-order batches (one order, so every line of a batch is that order's). */
-function perOrderTrips(stored: StoredBatch[], orderOfLine: Map<number, number>): PerOrder {
-  const trips: PerOrder = new Map();
-  for (const b of stored) {
-    const orderId = orderOfLine.get(b.lines[0]?.orderLineId ?? -1);
-    if (orderId !== undefined) trips.set(orderId, { distanceMm: b.distanceMm, lines: b.lineCount, optimal: b.optimal });
-  }
-  return trips;
-}
-
-/** Batching and routing sum; so do the estimates, batch by batch and order by order (one set-up each, once the estimate has one). */
-function summarise(
-  stored: StoredBatch[],
-  unbatched: number,
-  trips: PerOrder,
-  orderOfLine: Map<number, number>,
-  timing: SiteTiming,
-): WavePlanSummary {
-  const batched = new Set(stored.flatMap((b) => b.lines.map((l) => orderOfLine.get(l.orderLineId) as number)));
-  let orderByOrderMm = 0;
-  let orderByOrderSeconds = 0;
-  let orderByOrderOptimal = true;
-  for (const id of batched) {
-    const t = trips.get(id);
-    if (!t) throw new Error(`order ${id} could be batched but not walked on its own; plan the wave instead`);
-    orderByOrderMm += t.distanceMm;
-    orderByOrderSeconds += estimateSeconds({ distanceMm: t.distanceMm, lines: t.lines }, timing);
-    orderByOrderOptimal &&= t.optimal;
-  }
-  return {
-    batches: stored.length,
-    orders: batched.size,
-    lines: stored.reduce((a, b) => a + b.lineCount, 0),
-    totes: stored.reduce((a, b) => a + b.toteCount, 0),
-    unbatchedOrders: unbatched,
-    distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0),
-    usualWalkMm: stored.reduce((a, b) => a + b.baselineMm, 0),
-    orderByOrderMm,
-    orderByOrderOptimal,
-    estimatedSeconds: stored.reduce(
-      (a, b) => a + estimateSeconds({ distanceMm: b.distanceMm, lines: b.lineCount }, timing),
-      0,
-    ),
-    orderByOrderSeconds,
-    timing: { walkingSpeedMmPerS: timing.walkingSpeedMmPerS, secondsPerLine: timing.secondsPerLine },
-  };
 }
 
 export const comparePlansJob = defineJob<CompareInput>("compare-plans", {
@@ -133,7 +83,7 @@ export const comparePlansJob = defineJob<CompareInput>("compare-plans", {
       plans.push({
         label,
         settings,
-        summary: summarise(planned.stored, planned.unbatchable.length, trips, orderOfLine, timing),
+        summary: summarisePlan(planned.stored, planned.unbatchable.length, trips, orderOfLine, timing),
         batches: planned.stored,
         unbatchable: planned.unbatchable,
         orderIds: orders.map((o) => o.orderId),

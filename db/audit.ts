@@ -25,6 +25,8 @@ export type AuditEvent =
   | "floor_plan.saved"
   | "wave.created"
   | "wave.plan_started"
+  | "wave.plans_compared"
+  | "wave.plan_kept"
   | "wave.released"
   | "wave.discarded"
   | "wave.edited"

@@ -74,4 +74,6 @@ export const API_ACCESS: Record<string, Partial<Record<Method, Access>>> = {
   "/api/waves/[id]/release": { POST: "waves.plan" },
   "/api/waves/[id]/discard": { POST: "waves.plan" },
   "/api/waves/[id]/printed": { POST: "waves.plan" },
+  "/api/waves/[id]/plans": { GET: "waves.read", POST: "waves.plan" },
+  "/api/waves/[id]/plans/[planId]/keep": { POST: "waves.plan" },
 };

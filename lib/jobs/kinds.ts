@@ -3,3 +3,4 @@ import "server-only";
 // (the jobs API, a worker process) needs all of them, whichever route started the job.
 import "@/lib/layout-versions/publish";
 import "@/lib/waves/plan-wave";
+import "@/lib/waves/compare-plans";

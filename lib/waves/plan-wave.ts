@@ -6,10 +6,10 @@ import { storePlan } from "@/db/batches";
 import { audit } from "@/db/audit";
 import { HttpError } from "@/lib/http/errors";
 import { layoutGraph } from "@/lib/layout-versions/graph-cache";
-import { WAVE_TIME_LIMIT_MS, wavePool } from "@/lib/workers/pools";
+import { WAVE_TIME_LIMIT_MS } from "@/lib/workers/pools";
 import { TaskError } from "@/lib/workers/worker-pool";
 import type { SignedInUser } from "@/lib/auth/session";
-import { toStoredBatch } from "./to-stored";
+import { planOrders } from "./plan-orders";
 
 function duration(ms: number): string {
   if (ms < 1000) return `${ms} ms`;
@@ -43,26 +43,11 @@ export const planWaveJob = defineJob<PlanInput>("plan-wave", {
     const s = wave.settings;
     const message = `Cutting ${orders.length} orders into batches and routing each (${s.method === "savings" ? "by route savings" : "first come by cut-off"})`;
     progress(0.02, message);
-    const result = await wavePool().run(
-      {
-        graph,
-        matrix,
-        orders,
-        limits: { totesPerCart: s.totesPerCart, maxLines: s.maxLines, maxWeightG: s.maxWeightG },
-        method: s.method,
-        from: s.depotId,
-        to: s.dropoffId,
-      },
-      { signal, onProgress: (f) => progress(0.02 + f * 0.9, message) },
-    );
-    progress(0.95, `Storing ${result.batches.length} batches`);
-    const byId = new Map(orders.map((o) => [o.orderId, o]));
-    const stored = result.batches.map((b) => toStoredBatch(graph, b, byId));
-    const totals = {
-      distanceMm: stored.reduce((a, b) => a + b.distanceMm, 0),
-      baselineMm: stored.reduce((a, b) => a + b.baselineMm, 0),
-    };
-    const unbatchable = result.unbatchable.map((u) => ({ ...u, orderNumber: byId.get(u.orderId)?.orderNumber }));
+    const { stored, totals, unbatchable } = await planOrders({ graph, matrix }, orders, s, {
+      signal,
+      onProgress: (f) => progress(0.02 + f * 0.9, message),
+    });
+    progress(0.95, `Storing ${stored.length} batches`);
     const saved = totals.baselineMm > 0 ? Math.round((1 - totals.distanceMm / totals.baselineMm) * 1000) / 10 : 0;
     const done = {
       message: `Planned ${stored.length} batches; ${saved}% less walking than the usual order`,

@@ -61,6 +61,7 @@ type Spec = {
 const MAX_ID = 2_147_483_647;
 const id: FieldKind = { kind: "int", min: 1, max: MAX_ID };
 const SHORT_ID = /^[A-Za-z0-9_-]{1,24}$/;
+const PLAN_VARIANT = { method: "first-come", totesPerCart: 4, maxLines: 20, maxWeightG: 60_000 };
 
 const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
   "/api/health": { GET: {} },
@@ -463,6 +464,36 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
         example: (f) => ({ version: f.wave.version }),
         fields: { version: id },
         probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
+  },
+  "/api/waves/[id]/plans": {
+    GET: { params: (f) => ({ id: String(f.wave.id) }) },
+    POST: {
+      params: (f) => ({ id: String(f.wave.id) }),
+      body: {
+        example: (f) => ({ version: f.wave.version, variants: [PLAN_VARIANT, { ...PLAN_VARIANT, method: "savings" }] }),
+        fields: {
+          version: id,
+          variants: { kind: "array", min: 2, max: 4, element: PLAN_VARIANT },
+          "variants.0": { kind: "enum", values: [] },
+          "variants.0.method": { kind: "enum", values: ["first-come", "savings"] },
+          "variants.0.totesPerCart": { kind: "int", min: 1, max: 40 },
+          "variants.0.maxLines": { kind: "int", min: 1, max: 500 },
+          "variants.0.maxWeightG": { kind: "int", min: 1000, max: 1_000_000 },
+        },
+        probe: { params: { id: "999999" }, status: 404 },
+      },
+    },
+  },
+  "/api/waves/[id]/plans/[planId]/keep": {
+    POST: {
+      // No plan of the fixture wave is made here: a plan id that names none still lets each segment be refused in turn.
+      params: (f) => ({ id: String(f.wave.id), planId: "999999" }),
+      body: {
+        example: (f) => ({ version: f.wave.version }),
+        fields: { version: id },
+        probe: { params: { planId: "999998" }, status: 404 },
       },
     },
   },

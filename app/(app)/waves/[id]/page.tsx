@@ -19,6 +19,7 @@ import { activePickerCount, earliestCutoffOfWave } from "@/db/wave-timing";
 import { RecallBatches } from "@/components/waves/RecallBatches";
 import { recallableBatches } from "@/db/wave-control";
 import { waveEnds } from "@/lib/waves/wave-control";
+import { PlanComparison } from "@/components/waves/PlanComparison";
 
 export const metadata: Metadata = { title: "Wave" };
 
@@ -108,6 +109,7 @@ export default async function WavePage({ params }: { params: Promise<{ id: strin
         pickersOnShift={pickersOnShift}
         nowIso={new Date().toISOString()}
       />
+      <PlanComparison waveId={wave.id} status={wave.status} canPlan={canPlan} settings={s} />
       <section className="mt-6" aria-labelledby="batches-title">
         <div className="mb-3 flex flex-wrap items-center justify-between gap-3">
           <h2 id="batches-title">Batches</h2>

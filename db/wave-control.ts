@@ -3,7 +3,7 @@ import type { Knex } from "knex";
 import { db } from "./knex";
 import { chunks, isDuplicateKey } from "./rows";
 import { OrdersTakenError } from "./waves";
-import type { WaveSettings } from "@/lib/contracts/waves";
+import type { WaveFilter, WaveSettings } from "@/lib/contracts/waves";
 import type { RecallableBatchDTO, WaveOrderRowDTO } from "@/lib/contracts/wave-control";
 
 // What a planner changes on a wave before it is released, and the recall of a released batch nobody
@@ -136,12 +136,11 @@ export async function changeWaveOrders(
 }
 
 /** Orders of the wave that match a filter (for "remove all matching"). */
-export async function waveOrderIdsMatching(
-  waveId: number,
-  filter: { cutoffBefore?: Date; priorities?: number[] },
-): Promise<number[]> {
+export async function waveOrderIdsMatching(waveId: number, filter: WaveFilter): Promise<number[]> {
   const q = db()("wave_orders as wo").join("orders as o", "o.id", "wo.order_id").where("wo.wave_id", waveId);
-  if (filter.cutoffBefore) q.where("o.cutoff_at", "<=", filter.cutoffBefore);
+  const cutoff = filter.cutoffBefore;
+  if (cutoff && filter.includeNoCutoff) q.where((w) => w.where("o.cutoff_at", "<=", cutoff).orWhereNull("o.cutoff_at"));
+  else if (cutoff) q.where("o.cutoff_at", "<=", cutoff);
   if (filter.priorities?.length) q.whereIn("o.priority", filter.priorities);
   return (await q.pluck("o.id")).map(Number);
 }

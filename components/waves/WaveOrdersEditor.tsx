@@ -85,6 +85,7 @@ export function WaveOrdersEditor({ waveId, version, planned }: { waveId: number;
   const inWave = useTicks();
   const open = useTicks();
   const [cutoff, setCutoff] = useState("");
+  const [noCutoffToo, setNoCutoffToo] = useState(false);
   const [priorities, setPriorities] = useState([1, 2, 3]);
   const [failure, setFailure] = useState<ApiFailure | null>(null);
   const [busy, setBusy] = useState(false);
@@ -104,7 +105,7 @@ export function WaveOrdersEditor({ waveId, version, planned }: { waveId: number;
       return null;
     }
     const at = isoOf(cutoff);
-    return { priorities, ...(at ? { cutoffBefore: at } : {}) };
+    return { priorities, ...(at ? { cutoffBefore: at, includeNoCutoff: noCutoffToo } : {}) };
   };
   const planNote = planned ? " This throws the plan away." : "";
 
@@ -166,6 +167,10 @@ export function WaveOrdersEditor({ waveId, version, planned }: { waveId: number;
               onChange={(e) => setCutoff(e.target.value)}
               aria-label="Filter cut-off up to"
             />
+          </label>
+          <label className="flex min-h-tap items-center gap-2">
+            <input type="checkbox" checked={noCutoffToo} onChange={(e) => setNoCutoffToo(e.target.checked)} />
+            <span className="text-sm">and orders with no cut-off</span>
           </label>
           <div>
             <span className="label text-sm">Priorities</span>

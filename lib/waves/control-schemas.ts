@@ -28,6 +28,8 @@ export const WaveEditBody = z
 const OrderFilter = z.object({
   cutoffBefore: z.iso.datetime({ offset: true, error: "Give the cut-off as a date and time." }).optional(),
   priorities: z.array(z.number().int().min(1).max(3)).min(1, "Tick at least one priority.").max(3).optional(),
+  // With a cut-off set, orders that have none are left out unless the planner asks for them.
+  includeNoCutoff: z.boolean().optional(),
 });
 
 const ids = z.array(rowId("order")).max(5000, "At most 5,000 orders at a time.");

@@ -86,7 +86,7 @@ export async function editWaveBy(
   return { wave: await waveOf(user, id), planDropped: r.planDropped };
 }
 
-export type OrderFilter = { cutoffBefore?: string; priorities?: number[] };
+export type OrderFilter = { cutoffBefore?: string; priorities?: number[]; includeNoCutoff?: boolean };
 export type OrdersChange = {
   version: number;
   add?: number[];
@@ -98,6 +98,7 @@ export type OrdersChange = {
 const toFilter = (f: OrderFilter) => ({
   cutoffBefore: f.cutoffBefore ? new Date(f.cutoffBefore) : undefined,
   priorities: f.priorities,
+  includeNoCutoff: f.includeNoCutoff,
 });
 
 const firstOf = (ns: string[]) =>

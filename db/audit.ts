@@ -29,6 +29,9 @@ export type AuditEvent =
   | "batch.printed"
   | "batch.taken"
   | "batch.given-back"
+  | "batch.assigned"
+  | "batch.taken-back"
+  | "batch.moved"
   | "pick.confirmed"
   | "pick.short";
 

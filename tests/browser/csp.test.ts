@@ -31,15 +31,17 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
       .waitFor()),
   // Only those who plan see the form; a supervisor reads the list.
   "/waves": async (page, role) =>
-    void (await (roleMay(role, "waves.plan")
-      ? page.getByRole("button", { name: "Create the wave" })
-      : page.getByRole("heading", { name: "Waves", level: 1 })
+    void (await (
+      roleMay(role, "waves.plan")
+        ? page.getByRole("button", { name: "Create the wave" })
+        : page.getByRole("heading", { name: "Waves", level: 1 })
     ).waitFor()),
   "/waves/[id]": async (page) => void (await page.getByRole("link", { name: "#1", exact: true }).waitFor()),
   "/waves/[id]/batches/[number]": async (page) =>
     void (await page.getByRole("img", { name: /Route of this batch/ }).waitFor()),
   "/waves/[id]/batches/[number]/print": async (page) => expectBarcode(page),
   "/waves/[id]/print": async (page) => expectBarcode(page),
+  "/floor": async (page) => void (await page.getByText(/^Updated \d/).waitFor()),
   "/my-batches": async (page) => void (await page.getByRole("heading", { name: "My batches" }).waitFor()),
   "/pick/[batchId]": async (page) =>
     void (await page.locator("[data-testid=stop-progress], [data-testid=batch-done], .notice-error").first().waitFor()),

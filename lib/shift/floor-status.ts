@@ -1,11 +1,14 @@
 // Pure rules of the floor page, shared by the server (which answers) and its tests.
 import type { FloorStatus } from "@/lib/contracts/shift";
 
-/** Where a batch out on the floor is: picked to the end, lines being confirmed, held, or waiting for a picker. */
+/**
+ * Where a batch out on the floor is: picked to the end, waiting for a picker (a half-picked one given
+ * or taken back too: what it needs is someone to continue it), being picked, or held and not begun.
+ */
 export function floorStatusOf(b: { status: string; pickerId: string | null; doneLines: number }): FloorStatus {
   if (b.status === "done") return "done";
-  if (b.status === "picking" || b.doneLines > 0) return "in progress";
-  return b.pickerId ? "taken" : "waiting";
+  if (!b.pickerId) return "waiting";
+  return b.status === "picking" || b.doneLines > 0 ? "in progress" : "taken";
 }
 
 /**

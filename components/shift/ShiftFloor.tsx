@@ -71,7 +71,11 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
           const h = b.lastHandover;
           return (
             <span>
-              {b.pickerName ?? <span className="text-ink-soft">nobody</span>}
+              {b.pickerName ? (
+                <span data-testid="floor-picker">{b.pickerName}</span>
+              ) : (
+                <span className="text-ink-soft">nobody</span>
+              )}
               {h && (
                 <span className="block text-sm text-ink-soft">
                   {h.kind === "taken-back" ? "taken back" : h.kind} by {h.byName ?? "someone"} {formatWhen(h.at, style)}

@@ -70,9 +70,11 @@ export function AssignPanel({ batch, current, pickers, cap, onClose, onChanged }
       )}
       {!done && (
         <div className="flex flex-wrap items-end gap-3">
-          <label className="block min-w-64">
-            <span className="label">{batch.pickerId ? "Move to" : "Assign to"}</span>
-            <select className="field" value={pickerId} onChange={(e) => setPickerId(e.target.value)}>
+          <div className="min-w-64">
+            <label className="label" htmlFor="assign-picker">
+              {batch.pickerId ? "Move to" : "Assign to"}
+            </label>
+            <select id="assign-picker" className="field" value={pickerId} onChange={(e) => setPickerId(e.target.value)}>
               {choices.length === 0 && <option value="">No other active picker at this site</option>}
               {choices.map((p) => (
                 <option key={p.id} value={p.id}>
@@ -82,7 +84,7 @@ export function AssignPanel({ batch, current, pickers, cap, onClose, onChanged }
                 </option>
               ))}
             </select>
-          </label>
+          </div>
           <button
             type="button"
             className="btn-primary"

@@ -240,9 +240,11 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
       )}
 
       <div className="flex flex-wrap gap-4">
-        <label className="block min-w-56">
-          <span className="label">Wave</span>
-          <select className="field" value={wave} onChange={(e) => setWave(e.target.value)}>
+        <div className="min-w-56">
+          <label className="label" htmlFor="floor-wave">
+            Wave
+          </label>
+          <select id="floor-wave" className="field" value={wave} onChange={(e) => setWave(e.target.value)}>
             <option value="all">All waves on the floor</option>
             {waves.map(([id, name]) => (
               <option key={id} value={String(id)}>
@@ -250,10 +252,13 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
               </option>
             ))}
           </select>
-        </label>
-        <label className="block min-w-56">
-          <span className="label">Status</span>
+        </div>
+        <div className="min-w-56">
+          <label className="label" htmlFor="floor-status">
+            Status
+          </label>
           <select
+            id="floor-status"
             className="field"
             value={status}
             onChange={(e) => setStatus(e.target.value as FloorStatus | "all" | "late")}
@@ -266,7 +271,7 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
             ))}
             <option value="late">Over their estimate</option>
           </select>
-        </label>
+        </div>
       </div>
 
       <DataTable

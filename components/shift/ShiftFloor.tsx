@@ -40,13 +40,13 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
     for (const b of floor.batches) seen.set(b.waveId, b.waveName);
     return [...seen.entries()];
   }, [floor.batches]);
-  const shown = floor.batches.filter(
-    (b) =>
-      (wave === "all" || String(b.waveId) === wave) &&
-      (status === "all" || (status === "late" ? b.late && b.floorStatus !== "done" : b.floorStatus === status)),
+  // The counts follow the wave chosen; the table follows the wave and the status.
+  const ofWave = floor.batches.filter((b) => wave === "all" || String(b.waveId) === wave);
+  const shown = ofWave.filter(
+    (b) => status === "all" || (status === "late" ? b.late && b.floorStatus !== "done" : b.floorStatus === status),
   );
-  const count = (s: FloorStatus) => floor.batches.filter((b) => b.floorStatus === s).length;
-  const lateNow = floor.batches.filter((b) => b.late && b.floorStatus !== "done").length;
+  const count = (s: FloorStatus) => ofWave.filter((b) => b.floorStatus === s).length;
+  const lateNow = ofWave.filter((b) => b.late && b.floorStatus !== "done").length;
   const idle = floor.pickers.filter((p) => p.onShift && p.openBatches === 0);
 
   const columns = useMemo<DataColumn<FloorBatchDTO>[]>(
@@ -90,7 +90,7 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
         header: "Status",
         accessorFn: (b) => FLOOR_STATUSES.indexOf(b.floorStatus),
         cell: ({ row }) => (
-          <span data-testid="floor-status">
+          <span className="block min-w-32" data-testid="floor-status">
             {STATUS_LABEL[row.original.floorStatus]}
             {row.original.late && (
               <span className="block font-semibold text-alarm">
@@ -162,7 +162,7 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
                 const b = row.original;
                 if (b.floorStatus === "done") return <span className="text-sm text-ink-soft">finished</span>;
                 return (
-                  <button type="button" className="btn-quiet" onClick={() => setChosen(b)}>
+                  <button type="button" className="btn-quiet whitespace-nowrap" onClick={() => setChosen(b)}>
                     {b.pickerId ? "Move or take back" : "Assign"}
                     <span className="sr-only">
                       {" "}

@@ -62,6 +62,8 @@ describe("the supervisor's floor page", () => {
       .filter({ hasText: `#${batch.number}` })
       .filter({ hasText: WAVE });
     await expect(row.getByTestId("floor-status").textContent()).resolves.toBe("Waiting for a picker");
+    // The counts follow the wave chosen: this test's three batches, all waiting.
+    await expect(page.getByTestId("count-waiting").textContent()).resolves.toMatch(/^3\D/);
 
     // Assign the waiting batch to the first picker.
     await row.getByRole("button", { name: `Assign batch ${batch.number} of ${WAVE}` }).click();
@@ -95,6 +97,7 @@ describe("the supervisor's floor page", () => {
       .filter({ hasText: /^1 of 2/ })
       .waitFor({ timeout: 20_000 });
     await expect(row.getByTestId("floor-status").textContent()).resolves.toMatch(/^Being picked/);
+    await expect(page.getByTestId("count-in-progress").textContent()).resolves.toMatch(/^1\D/);
     expect(await page.getByText(/^Updated \d/).textContent()).not.toBe(updated);
     await page.screenshot({ path: path.join(ARTIFACTS, "shift-floor-in-progress.png"), fullPage: true });
 

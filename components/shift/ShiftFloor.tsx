@@ -210,7 +210,11 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
         ) : (
           <ul className="mt-2 flex flex-wrap gap-2" data-testid="idle-pickers">
             {idle.map((p) => (
-              <li key={p.id} className="rounded-md border border-rack-light bg-paper-sunk px-3 py-1">
+              <li
+                key={p.id}
+                className="rounded-md border border-rack-light bg-paper-sunk px-3 py-1"
+                data-picker-id={p.id}
+              >
                 <span className="font-semibold">{p.name}</span>
                 <span className="text-sm text-ink-soft">
                   {" "}

@@ -127,7 +127,10 @@ describe("the supervisor's floor page", () => {
     await hand.screenshot({ path: path.join(ARTIFACTS, "shift-pick-moved-phone.png"), fullPage: true });
 
     // The idle list names the first picker, who holds nothing now.
-    await page.getByTestId("idle-pickers").getByText(p1.name, { exact: true }).waitFor({ timeout: 20_000 });
+    // (Test accounts of other runs can share a display name: the entry is found by the account.)
+    const idle = page.getByTestId("idle-pickers").locator(`[data-picker-id="${p1.id}"]`);
+    await idle.waitFor({ timeout: 20_000 });
+    await expect(idle.textContent()).resolves.toMatch(new RegExp(`^${p1.name} idle since \\d{1,2}:\\d{2}`));
     await page.screenshot({ path: path.join(ARTIFACTS, "shift-floor.png"), fullPage: true });
   });
 });

@@ -241,6 +241,8 @@ describe("assigning, taking back and moving", () => {
     expect(lost.body.error).toContain(`${winner.name} holds it now`);
     expect(await floorRow(supervisor, batch.id)).toMatchObject({ pickerId: winner.id, version: row.version + 1 });
     expect(Number((await db()("batch_handovers").where({ batch_id: batch.id }).count({ n: "*" }).first())!.n)).toBe(1);
+    // Back to the pool, so whoever won holds nothing of it in the tests that follow.
+    expect((await assign(supervisor, batch.id, { pickerId: null, version: row.version + 1 })).status).toBe(200);
   });
 
   it("a picker who took the batch meanwhile wins over the supervisor's stale assignment", async () => {

@@ -23,6 +23,8 @@ export function AssignPanel({ batch, current, pickers, cap, onClose, onChanged }
   const [busy, setBusy] = useState(false);
   const [failure, setFailure] = useState<ApiFailure | null>(null);
   const [done, setDone] = useState<string | null>(null);
+  // After a change, the latest update says where the batch is now; before it, what was chosen.
+  const now = done && current ? current : batch;
   const started = batch.doneLines > 0 || batch.status === "picking";
   const changed = current !== null && current.version !== batch.version && !done;
 
@@ -45,8 +47,8 @@ export function AssignPanel({ batch, current, pickers, cap, onClose, onChanged }
         Batch #{batch.number} of {batch.waveName}
       </h2>
       <p>
-        {batch.pickerName ? `Held by ${batch.pickerName}` : "Waiting for a picker"}: {batch.doneLines} of{" "}
-        {batch.lineCount} lines done.
+        {now.pickerName ? `Held by ${now.pickerName}` : "Waiting for a picker"}: {now.doneLines} of {now.lineCount}{" "}
+        lines done.
       </p>
       {changed && (
         <p className="notice-info">

@@ -7,6 +7,7 @@ import type { SignedInUser } from "@/lib/contracts/users";
 
 const LINKS: { href: string; label: string; access: Access }[] = [
   { href: "/floor-plans", label: "Floor plans", access: "floorplans.read" },
+  { href: "/floor", label: "Floor", access: "floor.watch" },
   { href: "/waves", label: "Waves", access: "waves.read" },
   { href: "/orders", label: "Orders", access: "waves.read" },
   { href: "/items", label: "Item master", access: "waves.read" },

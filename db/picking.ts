@@ -179,7 +179,7 @@ export async function takeBatch(
       .whereIn("status", OPEN_STATUSES)
       .whereNull("assigned_to")
       .whereIn("wave_id", trx("waves").where({ site_id: siteId }).select("id"))
-      .update({ assigned_to: userId, version: version + 1 });
+      .update({ assigned_to: userId, taken_at: trx.fn.now(3), version: version + 1 });
     return Number(n) === 1 ? ("taken" as const) : ("lost" as const);
   });
 }
@@ -202,7 +202,7 @@ export async function giveBackBatch(
     .whereNotNull("assigned_to")
     .whereIn("wave_id", db()("waves").where({ site_id: siteId }).select("id"));
   if (!anyHolder) q.where({ assigned_to: userId });
-  return Number(await q.update({ assigned_to: null, version: version + 1 })) === 1;
+  return Number(await q.update({ assigned_to: null, taken_at: null, version: version + 1 })) === 1;
 }
 
 /** Every unfinished batch a user holds goes back to the pool (when they are disabled or stop being a picker). */
@@ -211,7 +211,7 @@ export async function releaseBatchesOf(userId: string): Promise<number> {
     await db()("batches")
       .where({ assigned_to: userId })
       .whereIn("status", OPEN_STATUSES)
-      .update({ assigned_to: null, version: db().raw("version + 1") }),
+      .update({ assigned_to: null, taken_at: null, version: db().raw("version + 1") }),
   );
 }
 

@@ -6,6 +6,8 @@ import useSWR from "swr";
 import { postJson, swrFetcher } from "@/lib/client/fetch-json";
 import { ProgressBar } from "@/components/ProgressBar";
 import type { MyBatchDTO } from "@/lib/contracts/picking";
+import { useDateStyle } from "@/components/SiteFormat";
+import { formatWhen } from "@/lib/format/dates";
 
 type Answer = { batches: MyBatchDTO[]; next: MyBatchDTO | null };
 
@@ -13,11 +15,13 @@ type Answer = { batches: MyBatchDTO[]; next: MyBatchDTO | null };
 export function MyBatches({ initial }: { initial: Answer }) {
   const { data, mutate } = useSWR<Answer>("/api/my-batches", swrFetcher, {
     fallbackData: initial,
-    refreshInterval: 30_000,
+    // Often enough that a batch a supervisor assigns shows up while the picker looks.
+    refreshInterval: 10_000,
   });
   const [busy, setBusy] = useState(false);
   const [message, setMessage] = useState<{ kind: "error" | "info"; text: string } | null>(null);
   const { batches, next } = data ?? initial;
+  const dateStyle = useDateStyle();
 
   async function takeNext() {
     if (!next) return;
@@ -72,6 +76,11 @@ export function MyBatches({ initial }: { initial: Answer }) {
                   <span className="text-sm text-ink-soft">{b.status === "picking" ? "being picked" : "ready"}</span>
                 </p>
                 <p className="text-sm text-ink-soft">{b.waveName}</p>
+                {b.assignedBy && (
+                  <p className="text-sm font-semibold" data-testid="assigned-by">
+                    Assigned to you by {b.assignedBy.name} at {formatWhen(b.assignedBy.at, dateStyle)}
+                  </p>
+                )}
                 <p className="mt-1">
                   {b.stopCount} stops, {b.lineCount} lines: {done} of {b.lineCount} done
                   {b.shortLines ? `, ${b.shortLines} short` : ""}

@@ -20,12 +20,26 @@ import {
 import type { PickAction } from "@/lib/picking/queue";
 import { usePickQueue } from "@/components/picking/usePickQueue";
 
+/** How often the handheld asks whether its batch is still its own. */
+const PICK_POLL_MS = 5000;
+
 type Feedback = { kind: "wrong" | "ok" | "error"; text: string } | null;
 
 /** The handheld: one stop at a time, confirmed by a scan or a tap, queued on the device when offline. */
 export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; document: EditorDocument | null }) {
   const url = `/api/batches/${initial.batch.id}/pick`;
-  const { data, mutate } = useSWR<PickViewDTO>(url, swrFetcher, { fallbackData: initial, revalidateOnFocus: false });
+  // Set when the server says this batch is no longer the picker's (a supervisor moved it or took it back).
+  const [gone, setGone] = useState<string | null>(null);
+  const { data, error, mutate } = useSWR<PickViewDTO>(url, swrFetcher, {
+    fallbackData: initial,
+    revalidateOnFocus: false,
+    // Polling, so a batch moved to someone else says so at once instead of at the next tap.
+    refreshInterval: gone ? 0 : PICK_POLL_MS,
+  });
+  useEffect(() => {
+    const status = (error as { status?: number } | undefined)?.status;
+    if (error && (status === 403 || status === 404)) setGone(error.message);
+  }, [error]);
   const view = data ?? initial;
   const batchId = view.batch.id;
   const [skipped, setSkipped] = useState<number[]>([]);
@@ -180,6 +194,21 @@ export function PickScreen({ initial, document: doc }: { initial: PickViewDTO; d
       <ProgressBar className="mt-1" label="Stops done" value={doneStops} max={view.stops.length} />
     </div>
   );
+
+  if (gone) {
+    return (
+      <div className="mx-auto max-w-md space-y-4">
+        <h1>Batch {view.batch.number}</h1>
+        <p className="notice-error text-lg font-semibold" role="alert" data-testid="batch-gone">
+          {gone}
+        </p>
+        <p>Leave the cart and its totes as they are, and tell your supervisor where the cart stands.</p>
+        <Link className="btn-primary w-full" href="/my-batches">
+          Back to my batches
+        </Link>
+      </div>
+    );
+  }
 
   if (!stop || !line) {
     const shorts = view.stops.flatMap((s) => s.lines).filter((l) => stateOf(l) === "short").length;

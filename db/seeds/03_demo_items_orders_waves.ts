@@ -131,7 +131,10 @@ export async function seed(knex: Knex): Promise<void> {
     await releaseWave(site.id, monday, mondayWave!.version, planner.id, appOrigin());
     // Monday's first two batches are on Priya's handheld; the rest wait to be taken.
     const picker = await knex("users").where({ site_id: site.id, email: "picker@bramblegate.example" }).first("id");
-    await knex("batches").where({ wave_id: monday }).whereIn("number", [1, 2]).update({ assigned_to: picker.id });
+    await knex("batches")
+      .where({ wave_id: monday })
+      .whereIn("number", [1, 2])
+      .update({ assigned_to: picker.id, taken_at: knex.fn.now(3) });
   } finally {
     await closeDb();
   }

@@ -33,7 +33,7 @@ export const ROLE_HOME: Record<Role, string> = {
   admin: "/floor-plans",
   planner: "/waves",
   picker: "/my-batches",
-  supervisor: "/waves",
+  supervisor: "/floor",
 };
 
 export const ROLE_LABEL: Record<Role, string> = {

@@ -36,6 +36,8 @@ export type MyBatchDTO = PickBatchRef & {
   lineCount: number;
   openLines: number;
   shortLines: number;
+  /** Who put it on this picker's handheld, when a supervisor did (not the picker's own take). */
+  assignedBy?: { name: string; at: string } | null;
 };
 
 export type PickStopDTO = {

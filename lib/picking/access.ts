@@ -1,6 +1,8 @@
 import "server-only";
 import { audit } from "@/db/audit";
 import { getPickBatch, type PickBatchRow } from "@/db/picking";
+import { handoverAwayFrom } from "@/db/shift-floor";
+import { movedAwayMessage } from "@/lib/shift/moved-away";
 import type { SignedInUser } from "@/lib/auth/session";
 import { HttpError } from "@/lib/http/errors";
 
@@ -10,6 +12,8 @@ export class BatchRefusal extends HttpError {
     status: 403 | 404 | 409,
     message: string,
     readonly batch?: PickBatchRow,
+    /** The batch was the user's until a supervisor moved it or took it back: the page says so, not 403. */
+    readonly movedAway = false,
   ) {
     super(status, message);
   }
@@ -35,6 +39,9 @@ export async function workableBatch(
       batch,
     );
   if (user.role !== "admin" && batch.assignedTo !== user.id) {
+    // The picker who had it is told who moved it and when (their handheld polls, so not audited as a denial).
+    const away = await handoverAwayFrom(batchId, user.id);
+    if (away) throw new BatchRefusal(403, await movedAwayMessage(user.siteId, away), batch, true);
     await audit({
       event: "access.denied",
       actorUserId: user.id,

@@ -41,6 +41,7 @@ const WORKS: Record<string, (page: Page, role: Role) => Promise<void>> = {
     void (await page.getByRole("img", { name: /Route of this batch/ }).waitFor()),
   "/waves/[id]/batches/[number]/print": async (page) => expectBarcode(page),
   "/waves/[id]/print": async (page) => expectBarcode(page),
+  "/floor": async (page) => void (await page.getByText(/^Updated \d/).waitFor()),
   "/my-batches": async (page) => void (await page.getByRole("heading", { name: "My batches" }).waitFor()),
   "/pick/[batchId]": async (page) =>
     void (await page.locator("[data-testid=stop-progress], [data-testid=batch-done], .notice-error").first().waitFor()),

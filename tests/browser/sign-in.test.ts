@@ -16,7 +16,12 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const HOME_HEADING = { admin: "Floor plans", planner: "Waves", picker: "My batches", supervisor: "Waves" } as const;
+const HOME_HEADING = {
+  admin: "Floor plans",
+  planner: "Waves",
+  picker: "My batches",
+  supervisor: "Shift floor",
+} as const;
 
 describe("signing in through the browser", () => {
   for (const role of ROLES) {

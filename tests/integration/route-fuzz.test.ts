@@ -306,6 +306,17 @@ const SPECS: Record<string, Partial<Record<Method, Spec>>> = {
       },
     },
   },
+  "/api/floor": { GET: {} },
+  "/api/floor/batches/[batchId]/assign": {
+    POST: {
+      params: (f) => ({ batchId: String(f.pickerBatch.id) }),
+      body: {
+        example: (f) => ({ pickerId: f.target.id, version: f.pickerBatch.version }),
+        fields: { pickerId: { kind: "string", min: 1, max: 32, trimmed: true, nullable: true }, version: id },
+        probe: { params: { batchId: "999999" }, status: 404 },
+      },
+    },
+  },
   "/api/batches/[batchId]/pick": { GET: { params: (f) => ({ batchId: String(f.pickerBatch.id) }) } },
   "/api/batches/[batchId]/confirm": {
     POST: {

@@ -8,7 +8,7 @@ import fc from "fast-check";
 export type FieldKind =
   | { kind: "int"; min: number; max: number }
   | { kind: "number"; min: number; max: number; above?: boolean }
-  | { kind: "string"; min?: number; max: number; trimmed?: boolean; pattern?: RegExp }
+  | { kind: "string"; min?: number; max: number; trimmed?: boolean; pattern?: RegExp; nullable?: boolean }
   | { kind: "enum"; values: readonly (string | number)[] }
   | { kind: "bool" }
   | { kind: "email" }
@@ -85,7 +85,8 @@ export function badValues(k: FieldKind): unknown[] {
     case "string": {
       const min = k.min ?? 0;
       return [
-        ...NOT_A_STRING,
+        // A nullable field (a batch assigned to nobody) takes null: every other wrong type still applies.
+        ...NOT_A_STRING.filter((v) => !(k.nullable && v === null)),
         ...(min > 0 ? ["", ...(k.trimmed ? [" ".repeat(min + 2), "\t\n"] : [])] : []),
         ...(min > 1 ? [word(min - 1)] : []),
         word(k.max + 1),
@@ -172,7 +173,7 @@ export function badArbitrary(k: FieldKind): fc.Arbitrary<unknown> {
         ...(k.pattern ? [fc.string({ minLength: 1, maxLength: 30 }).filter((s) => !k.pattern!.test(s))] : []),
         fc.integer(),
         fc.double(),
-        jsonJunk,
+        k.nullable ? jsonJunk.filter((v) => v !== null) : jsonJunk,
       );
     case "enum":
       return fc.oneof(

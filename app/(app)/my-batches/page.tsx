@@ -3,6 +3,7 @@ import { requireRole } from "@/lib/auth/guard";
 import { PageHeader } from "@/components/PageHeader";
 import { myBatches, nextUnassignedBatch } from "@/db/picking";
 import { MyBatches } from "@/components/picking/MyBatches";
+import { withAssigners } from "@/lib/shift/assigned-by";
 
 export const metadata: Metadata = { title: "My batches" };
 
@@ -12,7 +13,7 @@ export default async function MyBatchesPage() {
   return (
     <div className="mx-auto max-w-xl">
       <PageHeader title="My batches" lead={`Batches assigned to ${user.displayName}, in the order to pick them.`} />
-      <MyBatches initial={{ batches, next }} />
+      <MyBatches initial={{ batches: await withAssigners(user.id, batches), next }} />
     </div>
   );
 }

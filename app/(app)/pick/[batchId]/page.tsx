@@ -22,11 +22,13 @@ export default async function PickPage({ params }: { params: Promise<{ batchId: 
   });
   if (batch instanceof BatchRefusal) {
     if (batch.status === 404) notFound();
-    if (batch.status === 403) forbidden();
+    if (batch.status === 403 && !batch.movedAway) forbidden();
     return (
       <div className="mx-auto max-w-md">
         <h1>Batch {batch.batch?.number ?? id}</h1>
-        <p className="notice-error mt-4">{batch.message}</p>
+        <p className="notice-error mt-4" data-testid="batch-gone">
+          {batch.message}
+        </p>
         <Link className="btn-quiet mt-4 w-full" href="/my-batches">
           Back to my batches
         </Link>

@@ -6,7 +6,7 @@ import { swrFetcher } from "@/lib/client/fetch-json";
 import { DataTable, type DataColumn } from "@/components/DataTable";
 import { ProgressBar } from "@/components/ProgressBar";
 import { useDateStyle } from "@/components/SiteFormat";
-import { formatClock, formatWhen } from "@/lib/format/dates";
+import { formatTimeWithSeconds, formatWhen } from "@/lib/format/dates";
 import { minutes } from "@/lib/format/units";
 import { FLOOR_STATUSES, type FloorBatchDTO, type FloorDTO, type FloorStatus } from "@/lib/contracts/shift";
 import { AssignPanel } from "./AssignPanel";
@@ -181,11 +181,12 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
   return (
     <div className="space-y-5">
       <p className="text-sm text-ink-soft" role="status" aria-live="polite">
-        Updated {formatClock(floor.at, style)}. Updates by itself every few seconds.
+        Updated {formatTimeWithSeconds(floor.at, style)}. Updates by itself every few seconds.
         {error && (
           <span className="font-semibold text-alarm">
             {" "}
-            The last update failed ({error.message}); showing what was known at {formatClock(floor.at, style)}.
+            The last update failed ({error.message}); showing what was known at {formatTimeWithSeconds(floor.at, style)}
+            .
           </span>
         )}
       </p>

@@ -70,7 +70,7 @@ export const formatMaybe = (at: Date | string | null | undefined, style?: DateSt
   at === null || at === undefined ? empty : formatDateTime(at, style);
 
 /** The clock with seconds, "09:46:07" or "9:46:07 AM": a live screen's "updated" line. */
-export function formatClock(at: Date | string | number, style: DateStyle = DEFAULT_DATE_STYLE): string {
+export function formatTimeWithSeconds(at: Date | string | number, style: DateStyle = DEFAULT_DATE_STYLE): string {
   const d = toDate(at);
   // Every zone in use today is offset from UTC by whole minutes, so the seconds are UTC's.
   const seconds = String(d.getUTCSeconds()).padStart(2, "0");

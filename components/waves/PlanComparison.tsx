@@ -348,8 +348,9 @@ function PlanTable({
       </table>
       {timing && (
         <p className="mt-2 text-sm text-ink-soft">
-          Estimated times assume {timing.walkingSpeedMmPerS / 1000} m/s walking and {timing.secondsPerLine} s per line,
-          the site&apos;s figures when the plans were computed; order by order counts each order as its own trip.
+          Estimated times assume {timing.walkingSpeedMmPerS / 1000} m/s walking, {timing.secondsPerLine} s per line and{" "}
+          {timing.setupSecondsPerBatch} s set-up per cart, the site&apos;s figures when the plans were computed; order
+          by order counts each order as its own trip, with its own set-up.
         </p>
       )}
     </div>

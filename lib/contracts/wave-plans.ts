@@ -27,7 +27,7 @@ export type WavePlanSummary = {
   estimatedSeconds: number;
   orderByOrderSeconds: number;
   /** The figures the two estimates used. */
-  timing: { walkingSpeedMmPerS: number; secondsPerLine: number };
+  timing: { walkingSpeedMmPerS: number; secondsPerLine: number; setupSecondsPerBatch: number };
 };
 
 export type WavePlanDTO = {

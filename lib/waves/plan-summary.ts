@@ -49,6 +49,10 @@ export function summarisePlan(
       0,
     ),
     orderByOrderSeconds,
-    timing: { walkingSpeedMmPerS: timing.walkingSpeedMmPerS, secondsPerLine: timing.secondsPerLine },
+    timing: {
+      walkingSpeedMmPerS: timing.walkingSpeedMmPerS,
+      secondsPerLine: timing.secondsPerLine,
+      setupSecondsPerBatch: timing.setupSecondsPerBatch ?? 0,
+    },
   };
 }

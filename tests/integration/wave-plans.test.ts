@@ -190,7 +190,7 @@ describe("plans compared on the same orders", () => {
     }
   });
 
-  it("estimates walking plus handling time with the site's figures, batch by batch and order by order", async () => {
+  it("estimates walking, handling and set-up time with the site's figures, batch by batch and order by order", async () => {
     const site = await db()("sites")
       .where({ id: await fixtures.siteId() })
       .first();
@@ -199,11 +199,16 @@ describe("plans compared on the same orders", () => {
       expect(p.summary.timing).toEqual({
         walkingSpeedMmPerS: site.walking_speed_mm_s,
         secondsPerLine: site.seconds_per_line,
+        setupSecondsPerBatch: site.setup_seconds_per_batch,
       });
       const handling = lines * site.seconds_per_line;
-      expect(p.summary.estimatedSeconds).toBeCloseTo(p.summary.distanceMm / site.walking_speed_mm_s + handling, 6);
+      // One set-up per cart: per batch for a plan, per order when every order is its own trip.
+      expect(p.summary.estimatedSeconds).toBeCloseTo(
+        p.summary.distanceMm / site.walking_speed_mm_s + handling + p.summary.batches * site.setup_seconds_per_batch,
+        6,
+      );
       expect(p.summary.orderByOrderSeconds).toBeCloseTo(
-        p.summary.orderByOrderMm / site.walking_speed_mm_s + handling,
+        p.summary.orderByOrderMm / site.walking_speed_mm_s + handling + p.summary.orders * site.setup_seconds_per_batch,
         6,
       );
     }

@@ -5,8 +5,9 @@ import type { StoredBatch } from "@/lib/contracts/batches";
 // A worked example by hand. Three orders: 10 has lines 101 and 102, 20 has line 201, 30 has lines
 // 301–303. Picked one per trip their shortest walks are 40 m, 30 m and 50 m (120 m in all). The plan
 // puts orders 10 and 20 on one cart (60 m, usual walk 70 m) and order 30 alone (50 m, usual 55 m).
-// At 1 m/s and 15 s a line: the plan takes 60 + 3·15 + 50 + 3·15 = 200 s, order by order
-// 40 + 2·15 + 30 + 15 + 50 + 3·15 = 210 s (the same lines, 10 m more walking).
+// At 1 m/s, 15 s a line and 60 s set-up per cart: the plan takes 60 + 3·15 + 60 + 50 + 3·15 + 60
+// = 320 s; order by order 40 + 2·15 + 60 + 30 + 15 + 60 + 50 + 3·15 + 60 = 390 s (the same lines,
+// 10 m more walking and one cart more to set up).
 const orderOfLine = new Map([
   [101, 10],
   [102, 10],
@@ -57,7 +58,7 @@ const plan = [
     [303, 1],
   ]),
 ];
-const timing = { walkingSpeedMmPerS: 1000, secondsPerLine: 15 };
+const timing = { walkingSpeedMmPerS: 1000, secondsPerLine: 15, setupSecondsPerBatch: 60 };
 
 describe("a compared plan's summary", () => {
   it("matches the worked example: walks, both baselines and both estimates", () => {
@@ -71,8 +72,8 @@ describe("a compared plan's summary", () => {
       usualWalkMm: 125_000,
       orderByOrderMm: 120_000,
       orderByOrderOptimal: true,
-      estimatedSeconds: 200,
-      orderByOrderSeconds: 210,
+      estimatedSeconds: 320,
+      orderByOrderSeconds: 390,
       timing,
     });
   });

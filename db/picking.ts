@@ -2,6 +2,7 @@ import "server-only";
 import { db } from "./knex";
 import { queueShortPickSummaryIfWaveDone } from "./wave-mail";
 import { audit } from "./audit";
+import { BATCH_WAVE_COLUMNS, OPEN_STATUSES, shortLinesColumn, toBatchWave } from "./batch-columns";
 import { isDuplicateKey, iso, json } from "./rows";
 import type { MyBatchDTO, PickBatchRef, PickBatchStatus, PickLineState, PickStatus } from "@/lib/contracts/picking";
 
@@ -99,28 +100,16 @@ function batchesWithCounts(siteId: number) {
     .join("waves as w", "w.id", "b.wave_id")
     .where("w.site_id", siteId)
     .select(
-      "b.id",
-      "b.wave_id",
-      "w.name as wave_name",
-      "b.number",
-      "b.status",
-      "b.version",
+      ...BATCH_WAVE_COLUMNS,
       db().raw("(select count(*) from batch_stops s where s.batch_id = b.id) as stop_count"),
       db().raw("(select count(*) from batch_lines l where l.batch_id = b.id) as line_count"),
       db().raw("(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'open') as open_lines"),
-      db().raw(
-        "(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_lines",
-      ),
+      shortLinesColumn(),
     );
 }
 
 const toMyBatch = (r: Record<string, unknown>): MyBatchDTO => ({
-  id: Number(r.id),
-  waveId: Number(r.wave_id),
-  waveName: String(r.wave_name),
-  number: Number(r.number),
-  status: r.status as PickBatchStatus,
-  version: Number(r.version),
+  ...toBatchWave<PickBatchStatus>(r),
   stopCount: Number(r.stop_count),
   lineCount: Number(r.line_count),
   openLines: Number(r.open_lines),
@@ -135,9 +124,6 @@ export async function myBatches(siteId: number, userId: string): Promise<MyBatch
     .orderByRaw("b.status = 'picking' desc, w.released_at, b.wave_id, b.number");
   return rows.map(toMyBatch);
 }
-
-/** Taken and not finished: what counts against a picker's cap, and what goes back to the pool. */
-const OPEN_STATUSES = ["released", "picking"] as const;
 
 /**
  * The batch "Take the next batch" offers: nobody holds it and it has work left. One already started

@@ -1,31 +1,31 @@
 import "server-only";
 import { db } from "./knex";
 import { audit } from "./audit";
+import { BATCH_WAVE_COLUMNS, OPEN_STATUSES, shortLinesColumn, toBatchWave } from "./batch-columns";
 import { iso } from "./rows";
-import type { HandoverKind } from "@/lib/contracts/shift";
+import type { FloorBatchDTO, HandoverKind } from "@/lib/contracts/shift";
 
-/** Taken and not finished: what counts against a picker's cap (the same two as db/picking.ts). */
-const OPEN_STATUSES = ["released", "picking"] as const;
 /** Statuses the floor shows; anything else (planned, or a status added later) is not out on the floor. */
 const FLOOR_BATCH_STATUSES = ["released", "picking", "done"] as const;
 
-export type FloorBatchRow = {
-  id: number;
-  waveId: number;
-  waveName: string;
-  number: number;
-  status: string;
-  version: number;
-  pickerId: string | null;
-  pickerName: string | null;
-  takenAt: string | null;
-  startedAt: string | null;
-  finishedAt: string | null;
-  lineCount: number;
-  doneLines: number;
-  shortLines: number;
-  distanceMm: number;
-};
+/** The stored part of a floor batch: the contract's fields that come straight from the row, and its walk. */
+export type FloorBatchRow = Pick<
+  FloorBatchDTO,
+  | "id"
+  | "waveId"
+  | "waveName"
+  | "number"
+  | "status"
+  | "version"
+  | "pickerId"
+  | "pickerName"
+  | "takenAt"
+  | "startedAt"
+  | "finishedAt"
+  | "lineCount"
+  | "doneLines"
+  | "shortLines"
+> & { distanceMm: number };
 
 export type HandoverRow = {
   batchId: number;
@@ -55,12 +55,7 @@ export async function floorBatches(siteId: number): Promise<FloorBatchRow[]> {
         .where((q) => q.whereIn("o.status", OPEN_STATUSES).orWhereRaw("o.finished_at > now(3) - interval 24 hour"));
     })
     .select(
-      "b.id",
-      "b.wave_id",
-      "w.name as wave_name",
-      "b.number",
-      "b.status",
-      "b.version",
+      ...BATCH_WAVE_COLUMNS,
       "b.assigned_to",
       "u.display_name as picker_name",
       "b.taken_at",
@@ -71,18 +66,11 @@ export async function floorBatches(siteId: number): Promise<FloorBatchRow[]> {
       db().raw(
         "(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status <> 'open') as done_lines",
       ),
-      db().raw(
-        "(select count(*) from batch_lines l where l.batch_id = b.id and l.pick_status = 'short') as short_lines",
-      ),
+      shortLinesColumn(),
     )
     .orderBy([{ column: "w.released_at" }, { column: "b.wave_id" }, { column: "b.number" }]);
   return rows.map((r: Record<string, unknown>) => ({
-    id: Number(r.id),
-    waveId: Number(r.wave_id),
-    waveName: String(r.wave_name),
-    number: Number(r.number),
-    status: String(r.status),
-    version: Number(r.version),
+    ...toBatchWave(r),
     pickerId: (r.assigned_to as string | null) ?? null,
     pickerName: (r.picker_name as string | null) ?? null,
     takenAt: iso(r.taken_at as Date | null),

@@ -18,17 +18,12 @@ export type NewWavePlan = {
   orderIds: number[];
 };
 
-export type StoredWavePlan = {
+/** A plan as stored: what was computed, with the wave and wave version it was computed for. */
+export type StoredWavePlan = NewWavePlan & {
   id: number;
   waveId: number;
   waveVersion: number;
   keptVersion: number | null;
-  label: string;
-  settings: WaveSettings;
-  summary: WavePlanSummary;
-  batches: StoredBatch[];
-  unbatchable: UnbatchableOrder[];
-  orderIds: number[];
 };
 
 /** How many plans the wave page lists, newest first: enough for a few comparisons. */

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { postJson, type ApiFailure } from "@/lib/client/fetch-json";
 import { FailureNotice } from "@/components/FailureNotice";
 import { WavePreview } from "./WavePreview";
+import { CartSettingsFields, readCartSettings } from "./CartSettingsFields";
 import type { LayoutChoice } from "@/lib/contracts/layout-versions";
 
 /** A datetime-local value (the planner's local time) as an ISO instant, or undefined when empty or unfinished. */
@@ -12,6 +13,9 @@ function isoOf(local: string): string | undefined {
   const d = new Date(local);
   return Number.isNaN(d.getTime()) ? undefined : d.toISOString();
 }
+
+/** A new wave's cart fields start here; its depot and drop-off at the layout version's first. */
+const NEW_WAVE_DEFAULTS = { totesPerCart: 6, maxLines: 30, maxWeightG: 120_000, method: "savings" } as const;
 
 export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
   const [layoutId, setLayoutId] = useState(layouts[0]?.id ?? 0);
@@ -56,14 +60,7 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
     const r = await postJson<{ id: number }>("/api/waves", {
       name: String(f.get("name") ?? ""),
       layoutVersionId: layoutId,
-      settings: {
-        totesPerCart: Number(f.get("totesPerCart")),
-        maxLines: Number(f.get("maxLines")),
-        maxWeightG: Math.round(Number(f.get("maxWeightKg")) * 1000),
-        depotId: String(f.get("depotId")),
-        dropoffId: String(f.get("dropoffId")),
-        method: String(f.get("method")),
-      },
+      settings: readCartSettings(f),
       cutoffBefore: cutoffIso,
       priorities,
       ...(cutoffIso ? { includeNoCutoff } : {}),
@@ -132,52 +129,7 @@ export function NewWaveForm({ layouts }: { layouts: LayoutChoice[] }) {
         includeNoCutoff={includeNoCutoff}
         onIncludeNoCutoff={setIncludeNoCutoff}
       />
-      <fieldset className="grid gap-4 sm:grid-cols-3">
-        <legend className="label">Cart</legend>
-        <label>
-          <span className="label text-sm">Totes per cart (one order per tote)</span>
-          <input name="totesPerCart" type="number" min={1} max={40} defaultValue={6} className="field" />
-        </label>
-        <label>
-          <span className="label text-sm">Most lines per batch</span>
-          <input name="maxLines" type="number" min={1} max={500} defaultValue={30} className="field" />
-        </label>
-        <label>
-          <span className="label text-sm">Most weight per cart (kg)</span>
-          <input name="maxWeightKg" type="number" min={1} step="0.5" defaultValue={120} className="field" />
-        </label>
-        <label>
-          <span className="label text-sm">Carts start at</span>
-          <select name="depotId" className="field">
-            {layout?.depots.map((d) => (
-              <option key={d.id} value={d.id}>
-                {d.name} ({d.id})
-              </option>
-            ))}
-          </select>
-        </label>
-        <label>
-          <span className="label text-sm">Carts end at</span>
-          <select name="dropoffId" className="field">
-            {layout?.dropoffs.map((d) => (
-              <option key={d.id} value={d.id}>
-                {d.name} ({d.id})
-              </option>
-            ))}
-          </select>
-        </label>
-        <label>
-          <span className="label text-sm">Batching</span>
-          <select name="method" className="field" defaultValue="savings">
-            <option value="savings">By route savings (least added walking)</option>
-            <option value="first-come">First come, by cut-off</option>
-          </select>
-        </label>
-      </fieldset>
-      <p className="text-sm text-ink-soft">
-        Check the cart weight limit against your site&apos;s rules for pushing carts and lifting; Trailbin does not know
-        them.
-      </p>
+      <CartSettingsFields legend="Cart" defaults={NEW_WAVE_DEFAULTS} ends={layout} />
       <FailureNotice failure={failure} />
       <button className="btn-primary" disabled={busy}>
         {busy ? "Creating…" : "Create the wave"}

@@ -6,8 +6,7 @@ import { FailureNotice } from "@/components/FailureNotice";
 import { JobProgress } from "@/components/JobProgress";
 import type { WaveDTO, WaveSettings } from "@/lib/contracts/waves";
 import { WaveOrdersEditor } from "./WaveOrdersEditor";
-
-type Ends = { depots: { id: string; name: string }[]; dropoffs: { id: string; name: string }[] };
+import { CartSettingsFields, readCartSettings, type CartEnds } from "./CartSettingsFields";
 
 type Props = {
   waveId: number;
@@ -16,7 +15,7 @@ type Props = {
   version: number;
   settings: WaveSettings;
   batchCount: number;
-  ends: Ends;
+  ends: CartEnds;
   onClose: () => void;
 };
 
@@ -35,14 +34,7 @@ export function WaveEditor({ waveId, name, status, version, settings, batchCount
     const f = new FormData(form);
     return {
       name: String(f.get("name") ?? ""),
-      settings: {
-        totesPerCart: Number(f.get("totesPerCart")),
-        maxLines: Number(f.get("maxLines")),
-        maxWeightG: Math.round(Number(f.get("maxWeightKg")) * 1000),
-        depotId: String(f.get("depotId")),
-        dropoffId: String(f.get("dropoffId")),
-        method: String(f.get("method")) as WaveSettings["method"],
-      },
+      settings: readCartSettings(f),
     };
   }
 
@@ -108,73 +100,7 @@ export function WaveEditor({ waveId, name, status, version, settings, batchCount
             <span className="label">Name</span>
             <input name="name" className="field" required maxLength={120} defaultValue={name} />
           </label>
-          <fieldset className="grid gap-4 sm:grid-cols-3">
-            <legend className="label">Cart and route</legend>
-            <label>
-              <span className="label text-sm">Totes per cart (one order per tote)</span>
-              <input
-                name="totesPerCart"
-                type="number"
-                min={1}
-                max={40}
-                defaultValue={settings.totesPerCart}
-                className="field"
-              />
-            </label>
-            <label>
-              <span className="label text-sm">Most lines per batch</span>
-              <input
-                name="maxLines"
-                type="number"
-                min={1}
-                max={500}
-                defaultValue={settings.maxLines}
-                className="field"
-              />
-            </label>
-            <label>
-              <span className="label text-sm">Most weight per cart (kg)</span>
-              <input
-                name="maxWeightKg"
-                type="number"
-                min={1}
-                step="0.5"
-                defaultValue={settings.maxWeightG / 1000}
-                className="field"
-              />
-            </label>
-            <label>
-              <span className="label text-sm">Carts start at</span>
-              <select name="depotId" className="field" defaultValue={settings.depotId}>
-                {ends.depots.map((d) => (
-                  <option key={d.id} value={d.id}>
-                    {d.name} ({d.id})
-                  </option>
-                ))}
-              </select>
-            </label>
-            <label>
-              <span className="label text-sm">Carts end at</span>
-              <select name="dropoffId" className="field" defaultValue={settings.dropoffId}>
-                {ends.dropoffs.map((d) => (
-                  <option key={d.id} value={d.id}>
-                    {d.name} ({d.id})
-                  </option>
-                ))}
-              </select>
-            </label>
-            <label>
-              <span className="label text-sm">Batching</span>
-              <select name="method" className="field" defaultValue={settings.method}>
-                <option value="savings">By route savings (least added walking)</option>
-                <option value="first-come">First come, by cut-off</option>
-              </select>
-            </label>
-          </fieldset>
-          <p className="text-sm text-ink-soft">
-            Check the cart weight limit against your site&apos;s rules for pushing carts and lifting; Trailbin does not
-            know them.
-          </p>
+          <CartSettingsFields legend="Cart and route" defaults={settings} ends={ends} />
           <FailureNotice failure={failure} />
           <div className="flex flex-wrap gap-2">
             <button className="btn-primary" name="then" value="plan" disabled={busy}>

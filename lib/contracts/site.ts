@@ -33,14 +33,16 @@ export type SiteDTO = {
 };
 
 /** A change to the settings; walking speed in m/s as people enter it (stored as mm/s). */
-export type SiteChange = Partial<{
-  name: string;
-  timezone: string;
-  walkingSpeedMPerS: number;
-  secondsPerLine: number;
-  setupSecondsPerBatch: number;
-  maxOpenBatchesPerPicker: number;
-  dateOrder: DateOrder;
-  clock: Clock;
-  units: Units;
-}>;
+export type SiteChange = Partial<
+  Pick<
+    SiteDTO,
+    | "name"
+    | "timezone"
+    | "secondsPerLine"
+    | "setupSecondsPerBatch"
+    | "maxOpenBatchesPerPicker"
+    | "dateOrder"
+    | "clock"
+    | "units"
+  > & { walkingSpeedMPerS: number }
+>;

@@ -3,6 +3,8 @@
  * in the site's date order and clock. Assembled from parts (not a locale's own pattern) so a site reads
  * the same text whatever language the browser or the server runs in.
  */
+import { zoneParts } from "./zone";
+
 export const DATE_ORDERS = ["dmy", "mdy", "ymd"] as const;
 export type DateOrder = (typeof DATE_ORDERS)[number];
 export const CLOCKS = ["24h", "12h"] as const;
@@ -13,39 +15,16 @@ export type DateStyle = { timeZone: string; dateOrder: DateOrder; clock: Clock }
 /** Until a site sets its own: day first and a 24-hour clock, in UTC. */
 export const DEFAULT_DATE_STYLE: DateStyle = { timeZone: "UTC", dateOrder: "dmy", clock: "24h" };
 
-type Parts = { year: string; month: string; day: string; hour: string; minute: string; weekday: string };
-
-const partFormats = new Map<string, Intl.DateTimeFormat>();
-function partsOf(at: Date, timeZone: string): Parts {
-  let f = partFormats.get(timeZone);
-  if (!f) {
-    f = new Intl.DateTimeFormat("en-GB", {
-      timeZone,
-      year: "numeric",
-      month: "2-digit",
-      day: "2-digit",
-      hour: "2-digit",
-      minute: "2-digit",
-      weekday: "short",
-      hourCycle: "h23",
-    });
-    partFormats.set(timeZone, f);
-  }
-  const out: Record<string, string> = {};
-  for (const p of f.formatToParts(at)) out[p.type] = p.value;
-  return out as Parts;
-}
-
 const toDate = (at: Date | string | number) => (at instanceof Date ? at : new Date(at));
 
 export function formatDate(at: Date | string | number, style: DateStyle = DEFAULT_DATE_STYLE): string {
-  const p = partsOf(toDate(at), style.timeZone);
+  const p = zoneParts(toDate(at), style.timeZone);
   if (style.dateOrder === "ymd") return `${p.year}-${p.month}-${p.day}`;
   return style.dateOrder === "mdy" ? `${p.month}/${p.day}/${p.year}` : `${p.day}/${p.month}/${p.year}`;
 }
 
 export function formatTime(at: Date | string | number, style: DateStyle = DEFAULT_DATE_STYLE): string {
-  const p = partsOf(toDate(at), style.timeZone);
+  const p = zoneParts(toDate(at), style.timeZone);
   if (style.clock === "24h") return `${p.hour}:${p.minute}`;
   const h = Number(p.hour);
   return `${h % 12 === 0 ? 12 : h % 12}:${p.minute} ${h < 12 ? "AM" : "PM"}`;

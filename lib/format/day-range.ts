@@ -1,30 +1,15 @@
 // A shift's day in the site's time zone as the instants it starts and ends: the short-pick list reads
 // one day at a time. Pure, like the rest of lib/format.
 
-const YMD = /^(\d{4})-(\d{2})-(\d{2})$/;
+import { zoneOffsetMs, zoneParts } from "./zone";
 
-function offsetMs(at: Date, timeZone: string): number {
-  const f = new Intl.DateTimeFormat("en-GB", {
-    timeZone,
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    second: "2-digit",
-    hourCycle: "h23",
-  });
-  const p: Record<string, string> = {};
-  for (const part of f.formatToParts(at)) p[part.type] = part.value;
-  const asUtc = Date.UTC(+p.year!, +p.month! - 1, +p.day!, +p.hour!, +p.minute!, +p.second!);
-  return asUtc - Math.floor(at.getTime() / 1000) * 1000;
-}
+const YMD = /^(\d{4})-(\d{2})-(\d{2})$/;
 
 /** Midnight of that local date, as an instant (a zone's offset can change that day: checked twice). */
 function localMidnight(y: number, m: number, d: number, timeZone: string): Date {
   const guess = Date.UTC(y, m - 1, d);
-  let at = guess - offsetMs(new Date(guess), timeZone);
-  at = guess - offsetMs(new Date(at), timeZone);
+  let at = guess - zoneOffsetMs(guess, timeZone);
+  at = guess - zoneOffsetMs(at, timeZone);
   return new Date(at);
 }
 
@@ -50,8 +35,6 @@ export function dayRange(ymd: string, timeZone: string): { start: Date; end: Dat
 
 /** The local date of an instant in `timeZone`, YYYY-MM-DD. */
 export function dayOf(at: Date, timeZone: string): string {
-  const f = new Intl.DateTimeFormat("en-GB", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" });
-  const p: Record<string, string> = {};
-  for (const part of f.formatToParts(at)) p[part.type] = part.value;
+  const p = zoneParts(at, timeZone);
   return `${p.year}-${p.month}-${p.day}`;
 }

@@ -4,6 +4,8 @@
  * The zone arithmetic uses Intl's tz database, so summer time follows the site's rules.
  */
 
+import { zoneOffsetMs } from "@/lib/format/zone";
+
 type Parsed = { ok: true; utc: Date } | { ok: false; message: string };
 
 const LOCAL = /^(\d{4})-(\d{2})-(\d{2})[ T](\d{1,2}):(\d{2})(?::(\d{2}))?$/;
@@ -11,19 +13,7 @@ const WITH_OFFSET = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(?::\d{2}(?:\.\d{1,3})?)?(?:Z
 
 /** Minutes the zone is ahead of UTC at that instant. */
 function offsetMinutes(instant: number, timeZone: string): number {
-  const parts = new Intl.DateTimeFormat("en-GB", {
-    timeZone,
-    hourCycle: "h23",
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    second: "2-digit",
-  }).formatToParts(new Date(instant));
-  const n = (t: string) => Number(parts.find((p) => p.type === t)?.value);
-  const asUtc = Date.UTC(n("year"), n("month") - 1, n("day"), n("hour"), n("minute"), n("second"));
-  return Math.round((asUtc - Math.floor(instant / 1000) * 1000) / 60_000);
+  return Math.round(zoneOffsetMs(instant, timeZone) / 60_000);
 }
 
 /**

@@ -2,23 +2,27 @@ import { z } from "zod";
 import { rowId, rowVersion } from "@/lib/http/body-fields";
 import { elementId } from "@/lib/floor-plan/document";
 
-// The bodies of the wave editor's requests. The limits are those of a new wave (app/api/waves/route.ts).
+// The bodies of the wave editor's requests. A new wave (app/api/waves/route.ts) takes the same name
+// and settings, all of them at once.
+
+export const WaveName = z.string().trim().min(1, "Name the wave, e.g. “Tuesday morning”.").max(120);
+
+/** How a wave is cut into carts and walked. */
+export const WaveSettings = z.object({
+  totesPerCart: z.number().int().min(1, "A cart carries at least one tote.").max(40),
+  maxLines: z.number().int().min(1).max(500),
+  maxWeightG: z.number().int().min(1000, "Allow at least 1 kg per cart.").max(1_000_000),
+  // The editor's ids of the layout version's depot and drop-off.
+  depotId: elementId,
+  dropoffId: elementId,
+  method: z.enum(["first-come", "savings"]),
+});
 
 export const WaveEditBody = z
   .object({
     version: rowVersion(),
-    name: z.string().trim().min(1, "Name the wave, e.g. “Tuesday morning”.").max(120).optional(),
-    settings: z
-      .object({
-        totesPerCart: z.number().int().min(1, "A cart carries at least one tote.").max(40),
-        maxLines: z.number().int().min(1).max(500),
-        maxWeightG: z.number().int().min(1000, "Allow at least 1 kg per cart.").max(1_000_000),
-        depotId: elementId,
-        dropoffId: elementId,
-        method: z.enum(["first-come", "savings"]),
-      })
-      .partial()
-      .optional(),
+    name: WaveName.optional(),
+    settings: WaveSettings.partial().optional(),
   })
   .refine((b) => b.name !== undefined || (b.settings && Object.keys(b.settings).length > 0), {
     message: "Change the name or a setting: nothing was sent to save.",

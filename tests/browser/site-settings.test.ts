@@ -6,7 +6,7 @@ import { ARTIFACTS, launchBrowser } from "../support/browser";
 import { signedInPage } from "../support/browser-session";
 import { closeDb, db } from "@/db/knex";
 import { TestOrders } from "../support/wave-orders";
-import { waitForJob } from "../support/jobs";
+import { createdWave, planWave } from "../support/wave-plan";
 import { estimateSeconds, siteTiming } from "@/lib/batching/estimate";
 import type { SiteDTO } from "@/lib/contracts/site";
 
@@ -112,36 +112,13 @@ describe("the wave page's estimated finish", () => {
     const planner = await signInAs("planner");
     const items = await fixtures.itemsOnLayout(4);
     for (let i = 0; i < 4; i++) await fixtures.addOrder(`${TAG}-${i + 1}`, "2024-03-04T08:00:00Z", [items[i]!]);
-    const res = await api()
-      .post("/api/waves")
-      .set("Cookie", planner)
-      .set("Origin", ORIGIN)
-      .send({
-        name: `Finish test ${TAG}`,
-        layoutVersionId: 1,
-        settings: {
-          totesPerCart: 2,
-          maxLines: 12,
-          maxWeightG: 60_000,
-          depotId: "D1",
-          dropoffId: "P1",
-          method: "savings",
-        },
-        cutoffBefore: "2024-03-05T00:00:00Z",
-        priorities: [1, 2, 3],
-      });
-    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const res = await createdWave(planner, fixtures, {
+      name: `Finish test ${TAG}`,
+      cutoffBefore: "2024-03-05T00:00:00Z",
+      settings: { totesPerCart: 2, method: "savings" },
+    });
     waveId = res.body.id;
-    fixtures.waveIds.push(waveId);
-    const wave = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.wave;
-    const start = await api()
-      .post(`/api/waves/${waveId}/plan`)
-      .set("Cookie", planner)
-      .set("Origin", ORIGIN)
-      .send({ version: wave.version });
-    expect(start.status, JSON.stringify(start.body)).toBe(202);
-    expect((await waitForJob(planner, start.body.jobId)).status).toBe("done");
-    const batches = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.batches as {
+    const batches = (await planWave(planner, waveId)).batches as {
       distanceMm: number;
       lineCount: number;
     }[];

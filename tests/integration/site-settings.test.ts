@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, ORIGIN, signInAs } from "../support/app";
 import { closeDb } from "@/db/knex";
-import { waitForJob } from "../support/jobs";
+import { createdWave, planWave } from "../support/wave-plan";
 import { TestOrders } from "../support/wave-orders";
 import { auditedSince, auditMark } from "../support/audit";
 import type { SiteDTO } from "@/lib/contracts/site";
@@ -210,35 +210,13 @@ describe("estimates follow the settings", () => {
     const items = await fixtures.itemsOnLayout(6);
     for (let i = 0; i < 6; i++)
       await fixtures.addOrder(`${TAG}-${i + 1}`, `2024-02-0${1 + (i % 3)}T08:00:00Z`, [items[i]!]);
-    const res = await api()
-      .post("/api/waves")
-      .set("Cookie", planner)
-      .set("Origin", ORIGIN)
-      .send({
-        name: `Settings test ${TAG}`,
-        layoutVersionId: 1,
-        settings: {
-          totesPerCart: 2,
-          maxLines: 12,
-          maxWeightG: 60_000,
-          depotId: "D1",
-          dropoffId: "P1",
-          method: "savings",
-        },
-        cutoffBefore: "2024-02-05T00:00:00Z",
-        priorities: [1, 2, 3],
-      });
-    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const res = await createdWave(planner, fixtures, {
+      name: `Settings test ${TAG}`,
+      cutoffBefore: "2024-02-05T00:00:00Z",
+      settings: { totesPerCart: 2, method: "savings" },
+    });
     waveId = res.body.id;
-    fixtures.waveIds.push(waveId);
-    const wave = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.wave;
-    const start = await api()
-      .post(`/api/waves/${waveId}/plan`)
-      .set("Cookie", planner)
-      .set("Origin", ORIGIN)
-      .send({ version: wave.version });
-    expect(start.status, JSON.stringify(start.body)).toBe(202);
-    expect((await waitForJob(planner, start.body.jobId)).status).toBe("done");
+    await planWave(planner, waveId);
   });
 
   const page = async () => {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { api, ORIGIN, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
-import { waitForJob } from "../support/jobs";
+import { planWave, postWave } from "../support/wave-plan";
 import { TestOrders } from "../support/wave-orders";
 
 // Orders of this file's own, with cut-offs in early January 2026 (long before the demo week and the
@@ -12,39 +12,19 @@ const OFF_LAYOUT = Array.from({ length: 23 }, (_, i) => `ZZ-${TAG}-${i + 1}`);
 
 let planner: string;
 const fixtures = new TestOrders();
-const { orderIds, waveIds } = fixtures;
+const { orderIds } = fixtures;
 const addItem = fixtures.addItem.bind(fixtures);
 const addOrder = fixtures.addOrder.bind(fixtures);
 const itemsOnLayout = fixtures.itemsOnLayout.bind(fixtures);
 
-async function newWave(cutoffBefore: string) {
-  const res = await api()
-    .post("/api/waves")
-    .set("Cookie", planner)
-    .set("Origin", ORIGIN)
-    .send({
-      name: `Unbatched test ${TAG} ${cutoffBefore}`,
-      layoutVersionId: 1,
-      settings: { ...LIMITS, depotId: "D1", dropoffId: "P1", method: "first-come" },
-      cutoffBefore,
-      priorities: [1, 2, 3],
-    });
-  if (res.status === 201) waveIds.push(res.body.id);
-  return res;
-}
+const newWave = (cutoffBefore: string) =>
+  postWave(planner, fixtures, {
+    name: `Unbatched test ${TAG} ${cutoffBefore}`,
+    cutoffBefore,
+    settings: { ...LIMITS, depotId: "D1", dropoffId: "P1", method: "first-come" },
+  });
 
-async function plan(id: number) {
-  const wave = (await api().get(`/api/waves/${id}`).set("Cookie", planner)).body.wave;
-  const start = await api()
-    .post(`/api/waves/${id}/plan`)
-    .set("Cookie", planner)
-    .set("Origin", ORIGIN)
-    .send({ version: wave.version });
-  expect(start.status, JSON.stringify(start.body)).toBe(202);
-  const job = await waitForJob(planner, start.body.jobId);
-  expect(job.status, job.message).toBe("done");
-  return (await api().get(`/api/waves/${id}`).set("Cookie", planner)).body;
-}
+const plan = (id: number) => planWave(planner, id);
 
 beforeAll(async () => {
   planner = await signInAs("planner");

@@ -1,7 +1,7 @@
 import { expect } from "vitest";
 import { randomUUID } from "node:crypto";
 import { api, ORIGIN } from "./app";
-import { waitForJob } from "./jobs";
+import { createdWave, planWave } from "./wave-plan";
 import { TestOrders } from "./wave-orders";
 import type { FloorBatchDTO, FloorDTO } from "@/lib/contracts/shift";
 
@@ -15,38 +15,13 @@ export async function releasedShiftWave(planner: string, tag: string, orders: nu
   expect(items.length).toBe(2 * orders);
   for (let i = 0; i < orders; i++)
     await fixtures.addOrder(`${tag}-${i + 1}`, `2024-03-04T0${i % 10}:00:00Z`, [items[2 * i]!, items[2 * i + 1]!]);
-  const created = await api()
-    .post("/api/waves")
-    .set("Cookie", planner)
-    .set("Origin", ORIGIN)
-    .send({
-      name: `Shift ${tag}`,
-      layoutVersionId: 1,
-      settings: {
-        totesPerCart: 1,
-        maxLines: 12,
-        maxWeightG: 60_000,
-        depotId: "D1",
-        dropoffId: "P1",
-        method: "first-come",
-      },
-      cutoffBefore: "2024-03-05T00:00:00Z",
-      priorities: [1, 2, 3],
-    });
-  expect(created.status, JSON.stringify(created.body)).toBe(201);
+  const created = await createdWave(planner, fixtures, {
+    name: `Shift ${tag}`,
+    cutoffBefore: "2024-03-05T00:00:00Z",
+  });
   const waveId = created.body.id as number;
-  fixtures.waveIds.push(waveId);
   expect(created.body.orders).toBe(orders);
-  let wave = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.wave;
-  const start = await api()
-    .post(`/api/waves/${waveId}/plan`)
-    .set("Cookie", planner)
-    .set("Origin", ORIGIN)
-    .send({ version: wave.version });
-  expect(start.status, JSON.stringify(start.body)).toBe(202);
-  const job = await waitForJob(planner, start.body.jobId);
-  expect(job.status, job.message).toBe("done");
-  wave = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.wave;
+  const { wave } = await planWave(planner, waveId);
   const release = await api()
     .post(`/api/waves/${waveId}/release`)
     .set("Cookie", planner)

@@ -81,7 +81,7 @@ export function DataTable<T extends RowData>({
         <span className="label">Search {searchLabel}</span>
         <input type="search" className="field" value={query} onChange={(e) => setQuery(e.target.value)} />
       </label>
-      <div className="overflow-x-auto rounded-lg border border-rack-light bg-paper-raised">
+      <div className="relative overflow-x-auto rounded-lg border border-rack-light bg-paper-raised">
         <table className="w-full border-collapse text-left">
           <thead className="bg-paper-sunk">
             {table.getHeaderGroups().map((group) => (

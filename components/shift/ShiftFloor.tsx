@@ -8,6 +8,7 @@ import { ProgressBar } from "@/components/ProgressBar";
 import { useDateStyle } from "@/components/SiteFormat";
 import { formatTimeWithSeconds, formatWhen } from "@/lib/format/dates";
 import { minutes } from "@/lib/format/units";
+import { timingNote } from "@/lib/batching/estimate";
 import { FLOOR_STATUSES, type FloorBatchDTO, type FloorDTO, type FloorStatus } from "@/lib/contracts/shift";
 import { AssignPanel } from "./AssignPanel";
 
@@ -292,8 +293,7 @@ export function ShiftFloor({ initial, canAssign }: { initial: FloorDTO; canAssig
         }
       />
       <p className="text-sm text-ink-soft">
-        Estimates use this site&apos;s walking speed ({(floor.timing.walkingSpeedMmPerS / 1000).toFixed(1)} m/s) and{" "}
-        {floor.timing.secondsPerLine} s per line; actual time runs from the first confirmed line to the last.
+        Estimated {timingNote(floor.timing, floor.units)}; actual time runs from the first confirmed line to the last.
       </p>
     </div>
   );

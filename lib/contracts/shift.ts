@@ -47,7 +47,9 @@ export type FloorDTO = {
   /** The server's clock when the answer was made: running times count to it. */
   at: string;
   capPerPicker: number;
-  timing: { walkingSpeedMmPerS: number; secondsPerLine: number };
+  /** The figures the estimates use, and the units the site shows them in. */
+  timing: { walkingSpeedMmPerS: number; secondsPerLine: number; setupSecondsPerBatch?: number };
+  units: "metric" | "imperial";
   batches: FloorBatchDTO[];
   pickers: FloorPickerDTO[];
 };

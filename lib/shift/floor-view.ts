@@ -15,6 +15,7 @@ export async function floorView(siteId: number): Promise<FloorDTO> {
     at: now.toISOString(),
     capPerPicker: site?.maxOpenBatchesPerPicker ?? 3,
     timing,
+    units: site?.units ?? "metric",
     batches: rows.map((r) => {
       const estimate = Math.round(estimateSeconds({ distanceMm: r.distanceMm, lines: r.lineCount }, timing));
       const h = handovers.get(r.id);

@@ -133,4 +133,12 @@ describe("the supervisor's floor page", () => {
     await expect(idle.textContent()).resolves.toMatch(new RegExp(`^${p1.name} idle since \\d{1,2}:\\d{2}`));
     await page.screenshot({ path: path.join(ARTIFACTS, "shift-floor.png"), fullPage: true });
   });
+
+  it("fits a phone held by a supervisor walking the floor: the table scrolls inside its box, the page does not", async () => {
+    const { page } = await signedInPage(browser, "supervisor", { width: 390, height: 844 });
+    await page.waitForURL((u) => u.pathname === "/floor");
+    await page.getByRole("row").filter({ hasText: WAVE }).first().waitFor();
+    expect(await fitsWidth(page)).toBe(true);
+    await page.screenshot({ path: path.join(ARTIFACTS, "shift-floor-phone.png"), fullPage: true });
+  });
 });

@@ -209,79 +209,39 @@ export function SiteSettingsForm({ initial, nowIso, zones }: { initial: SiteDTO;
           practice, not measured anywhere: replace them with your own time studies.
         </p>
         <div className="grid gap-4 sm:grid-cols-2">
-          <label>
-            <span className="label">
-              Walking speed with a cart (m/s, {L.walkingSpeedMPerS.min}–{L.walkingSpeedMPerS.max})
-            </span>
-            <input
-              className="field"
-              name="walkingSpeed"
-              type="number"
-              inputMode="decimal"
-              step="0.05"
-              min={L.walkingSpeedMPerS.min}
-              max={L.walkingSpeedMPerS.max}
-              value={f.walkingSpeed}
-              onChange={set("walkingSpeed")}
-            />
-            {timingOk && f.units === "imperial" && (
-              <span className="mt-1 block text-sm text-ink-soft">
-                = {speedText(timing.walkingSpeedMmPerS, "imperial")}
-              </span>
-            )}
-          </label>
-          <label>
-            <span className="label">
-              Time per pick line (seconds, {L.secondsPerLine.min}–{L.secondsPerLine.max})
-            </span>
-            <input
-              className="field"
-              name="secondsPerLine"
-              type="number"
-              inputMode="numeric"
-              step="1"
-              min={L.secondsPerLine.min}
-              max={L.secondsPerLine.max}
-              value={f.secondsPerLine}
-              onChange={set("secondsPerLine")}
-            />
-          </label>
-          <label>
-            <span className="label">
-              Set-up time per batch (seconds, {L.setupSecondsPerBatch.min}–{L.setupSecondsPerBatch.max}): collecting a
-              cart and totes, dropping them at packing
-            </span>
-            <input
-              className="field"
-              name="setupSeconds"
-              type="number"
-              inputMode="numeric"
-              step="1"
-              min={L.setupSecondsPerBatch.min}
-              max={L.setupSecondsPerBatch.max}
-              value={f.setupSeconds}
-              onChange={set("setupSeconds")}
-            />
-            {within(setup, L.setupSecondsPerBatch) && f.setupSeconds.trim() !== "" && (
-              <span className="mt-1 block text-sm text-ink-soft">= {setupText(setup)}</span>
-            )}
-          </label>
-          <label>
-            <span className="label">
-              Open batches one picker may hold ({L.maxOpenBatchesPerPicker.min}–{L.maxOpenBatchesPerPicker.max})
-            </span>
-            <input
-              className="field"
-              name="cap"
-              type="number"
-              inputMode="numeric"
-              step="1"
-              min={L.maxOpenBatchesPerPicker.min}
-              max={L.maxOpenBatchesPerPicker.max}
-              value={f.cap}
-              onChange={set("cap")}
-            />
-          </label>
+          <RangeField
+            label="Walking speed with a cart (m/s"
+            name="walkingSpeed"
+            decimal
+            step="0.05"
+            limits={L.walkingSpeedMPerS}
+            value={f.walkingSpeed}
+            onChange={set("walkingSpeed")}
+            note={timingOk && f.units === "imperial" ? speedText(timing.walkingSpeedMmPerS, "imperial") : null}
+          />
+          <RangeField
+            label="Time per pick line (seconds"
+            name="secondsPerLine"
+            limits={L.secondsPerLine}
+            value={f.secondsPerLine}
+            onChange={set("secondsPerLine")}
+          />
+          <RangeField
+            label="Set-up time per batch (seconds"
+            after=": collecting a cart and totes, dropping them at packing"
+            name="setupSeconds"
+            limits={L.setupSecondsPerBatch}
+            value={f.setupSeconds}
+            onChange={set("setupSeconds")}
+            note={within(setup, L.setupSecondsPerBatch) && f.setupSeconds.trim() !== "" ? setupText(setup) : null}
+          />
+          <RangeField
+            label="Open batches one picker may hold ("
+            name="cap"
+            limits={L.maxOpenBatchesPerPicker}
+            value={f.cap}
+            onChange={set("cap")}
+          />
         </div>
         {timingOk && (
           <p className="notice-info" data-testid="estimate-preview">
@@ -302,5 +262,43 @@ export function SiteSettingsForm({ initial, nowIso, zones }: { initial: SiteDTO;
         {busy ? "Saving…" : "Save settings"}
       </button>
     </form>
+  );
+}
+
+/** A number box with its allowed range in the label, and a worked-out reading of it beneath when known. */
+function RangeField(props: {
+  /** The label up to the range, e.g. "Time per pick line (seconds"; the range and ")" follow. */
+  label: string;
+  after?: string;
+  name: string;
+  decimal?: boolean;
+  step?: string;
+  limits: { min: number; max: number };
+  value: string;
+  onChange: (e: React.ChangeEvent<HTMLInputElement>) => void;
+  note?: string | null;
+}) {
+  const { min, max } = props.limits;
+  const sep = props.label.endsWith("(") ? "" : ", ";
+  return (
+    <label>
+      <span className="label">
+        {props.label}
+        {sep}
+        {min}–{max}){props.after}
+      </span>
+      <input
+        className="field"
+        name={props.name}
+        type="number"
+        inputMode={props.decimal ? "decimal" : "numeric"}
+        step={props.step ?? "1"}
+        min={min}
+        max={max}
+        value={props.value}
+        onChange={props.onChange}
+      />
+      {props.note && <span className="mt-1 block text-sm text-ink-soft">= {props.note}</span>}
+    </label>
   );
 }

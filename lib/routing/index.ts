@@ -11,6 +11,8 @@ export * from "./reachability";
 export * from "./floyd-warshall";
 export * from "./access";
 export * from "./cost-matrix";
+export * from "./certificate";
+export * from "./degree-bound";
 export * from "./errors";
 export * from "./held-karp";
 export * from "./local-search";

@@ -1,4 +1,5 @@
 import { accessDistance } from "./access";
+import type { RouteMethod } from "./certificate";
 import type { LocatedStop } from "./baseline";
 import { baselineOrder } from "./baseline";
 import type { CostMatrix } from "./cost-matrix";
@@ -28,8 +29,10 @@ export interface PickStop {
 export interface PickPlan {
   stops: PickStop[];
   lengthMm: number;
+  /** Never above the shortest possible walk; equals lengthMm when the route is proved shortest. */
+  lowerBoundMm: number;
   optimal: boolean;
-  method: "held-karp" | "local-search";
+  method: RouteMethod;
   baselineMm: number;
   /** baselineMm - lengthMm; never negative when optimal. */
   savingMm: number;
@@ -107,6 +110,7 @@ export function planPick(
       return { accessPoint: points[s] as AccessPoint, codes: codesAt.get(ap) ?? [] };
     }),
     lengthMm: r.length,
+    lowerBoundMm: r.lowerBound,
     optimal: r.optimal,
     method: r.method,
     baselineMm,

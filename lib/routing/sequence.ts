@@ -1,6 +1,8 @@
 import { UNREACHABLE } from "./constants";
+import type { RouteMethod } from "./certificate";
 import type { CostMatrix } from "./cost-matrix";
 import { arcCost, assertNoOverflow } from "./cost-matrix";
+import { degreeBound } from "./degree-bound";
 import { UnreachableStopError } from "./errors";
 import { HELD_KARP_MAX_STOPS, heldKarp } from "./held-karp";
 import type { HeuristicOptions } from "./local-search";
@@ -26,9 +28,11 @@ export interface SequenceRequest {
 export interface SequenceResult {
   order: number[];
   length: number;
-  /** true only when Held–Karp proved the order shortest. */
+  /** Never above the shortest possible length; equal to length when the order is proved shortest. */
+  lowerBound: number;
+  /** true exactly when lowerBound reaches length. */
   optimal: boolean;
-  method: "held-karp" | "local-search";
+  method: RouteMethod;
 }
 
 function reachable(cm: CostMatrix, from: number, pts: readonly number[], reverse: boolean): Set<number> {
@@ -77,5 +81,12 @@ export function sequenceStops(cm: CostMatrix, req: SequenceRequest): SequenceRes
     // Every stop is reachable on its own, yet no single walk covers them all (e.g. two one-way dead ends).
     throw new UnreachableStopError(stops, [], "no single walk from the start to the end visits all of them");
   }
-  return { order: r.order, length: r.length, optimal: exact, method: exact ? "held-karp" : "local-search" };
+  const lowerBound = exact ? r.length : Math.min(r.length, degreeBound(cm, req.start, req.end, stops));
+  return {
+    order: r.order,
+    length: r.length,
+    lowerBound,
+    optimal: lowerBound >= r.length,
+    method: exact ? "held-karp" : "local-search",
+  };
 }

@@ -36,7 +36,11 @@ export function gapPercent(c: Pick<RouteCertificate, "lengthMm" | "lowerBoundMm"
 
 /** The certificate in plain words, as the wave page, the batch page and the pick list print it. */
 export function certificateText(c: RouteCertificate): string {
-  if (isProved(c)) return `shortest — proved by ${METHOD_NAMES[c.method]}`;
+  // A heuristic route can be proved too, when its length meets the bound; the bound is then the proof.
+  if (isProved(c))
+    return c.method === "local-search"
+      ? "shortest — its length meets a proved lower bound"
+      : `shortest — proved by ${METHOD_NAMES[c.method]}`;
   const gap = gapPercent(c);
   if (gap === Infinity) return `found by ${METHOD_NAMES[c.method]}; no bound on how far from the shortest it is`;
   return `at most ${gap.toLocaleString("en-GB")} % above the shortest possible walk (found by ${METHOD_NAMES[c.method]})`;

@@ -11,17 +11,12 @@ export function degreeBound(cm: CostMatrix, start: number, end: number, stops: r
   if (stops.length === 0) return start === end ? 0 : arcCost(cm, start, end);
   const into = [...stops, end];
   const outOf = [start, ...stops];
-  let inSum = 0;
-  for (const b of into) {
-    let best = UNREACHABLE;
-    for (const a of outOf) if (a !== b) best = Math.min(best, arcCost(cm, a, b));
-    inSum += best;
-  }
-  let outSum = 0;
-  for (const a of outOf) {
-    let best = UNREACHABLE;
-    for (const b of into) if (a !== b) best = Math.min(best, arcCost(cm, a, b));
-    outSum += best;
-  }
+  const inSum = cheapestSum(into, (b) => outOf.map((a) => (a === b ? UNREACHABLE : arcCost(cm, a, b))));
+  const outSum = cheapestSum(outOf, (a) => into.map((b) => (a === b ? UNREACHABLE : arcCost(cm, a, b))));
   return Math.max(inSum, outSum);
+}
+
+/** Sum over points of the cheapest of each point's candidate arcs. */
+function cheapestSum(points: readonly number[], arcs: (p: number) => number[]): number {
+  return points.reduce((sum, p) => sum + Math.min(UNREACHABLE, ...arcs(p)), 0);
 }

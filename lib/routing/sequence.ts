@@ -1,5 +1,6 @@
 import { UNREACHABLE } from "./constants";
 import type { RouteMethod } from "./certificate";
+import { isProved } from "./certificate";
 import type { CostMatrix } from "./cost-matrix";
 import { arcCost, assertNoOverflow } from "./cost-matrix";
 import { degreeBound } from "./degree-bound";
@@ -86,7 +87,7 @@ export function sequenceStops(cm: CostMatrix, req: SequenceRequest): SequenceRes
     order: r.order,
     length: r.length,
     lowerBound,
-    optimal: lowerBound >= r.length,
+    optimal: isProved({ lengthMm: r.length, lowerBoundMm: lowerBound }),
     method: exact ? "held-karp" : "local-search",
   };
 }

@@ -2,6 +2,7 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import { insertInChunks } from "./rows";
+import { batchRowOf, batchSummaryOf } from "./batch-rows";
 import type { BatchDetailDTO, BatchSummaryDTO, StoredBatch } from "@/lib/contracts/batches";
 import type { UnbatchableOrder } from "@/lib/contracts/waves";
 
@@ -25,17 +26,7 @@ export async function storePlan(
     if (!w || w.version !== expectedVersion || w.status === "released") return false;
     await trx("batches").where({ wave_id: waveId }).delete();
     for (const [i, b] of batches.entries()) {
-      const [id] = await trx("batches").insert({
-        wave_id: waveId,
-        number: i + 1,
-        line_count: b.lineCount,
-        tote_count: b.toteCount,
-        weight_g: b.weightG,
-        distance_mm: b.distanceMm,
-        baseline_mm: b.baselineMm,
-        optimal: b.optimal,
-        method: b.method,
-      });
+      const [id] = await trx("batches").insert(batchRowOf(waveId, i + 1, b));
       const batchId = Number(id);
       if (b.stops.length)
         await insertInChunks(
@@ -87,21 +78,7 @@ export async function listBatches(waveId: number, number?: number): Promise<Batc
       ),
     )
     .orderBy("b.number");
-  return rows.map((r: Record<string, unknown>) => ({
-    id: Number(r.id),
-    number: Number(r.number),
-    lineCount: Number(r.line_count),
-    toteCount: Number(r.tote_count),
-    weightG: Number(r.weight_g),
-    stopCount: Number(r.stop_count),
-    distanceMm: Number(r.distance_mm),
-    baselineMm: Number(r.baseline_mm),
-    optimal: Boolean(r.optimal),
-    method: String(r.method),
-    status: String(r.status),
-    pickedLines: Number(r.picked_count),
-    shortLines: Number(r.short_count),
-  }));
+  return rows.map(batchSummaryOf);
 }
 
 export async function getBatch(waveId: number, number: number): Promise<BatchDetailDTO | null> {

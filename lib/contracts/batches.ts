@@ -1,4 +1,5 @@
 // A wave's batches as the wave pages, the pick lists and db/batches.ts see them. Types only.
+import type { RouteMethod } from "@/lib/routing/certificate";
 
 export type BatchSummaryDTO = {
   id: number;
@@ -9,8 +10,13 @@ export type BatchSummaryDTO = {
   stopCount: number;
   distanceMm: number;
   baselineMm: number;
+  /** Never above the shortest possible walk; 0 when no bound is known, distanceMm when proved shortest. */
+  lowerBoundMm: number;
+  /** The bound reaches the walk: no shorter walk exists. */
   optimal: boolean;
-  method: string;
+  method: RouteMethod;
+  /** The route's certificate in plain words (certificateText), as the pages print it. */
+  certificate: string;
   status: string;
   pickedLines: number;
   shortLines: number;
@@ -38,8 +44,10 @@ export type StoredBatch = {
   weightG: number;
   distanceMm: number;
   baselineMm: number;
+  /** Never above the shortest possible walk (PickPlan.lowerBoundMm). */
+  lowerBoundMm: number;
   optimal: boolean;
-  method: string;
+  method: RouteMethod;
   stops: { accessPoint: number; x: number; y: number }[];
   lines: { orderLineId: number; stopSeq: number; tote: number; binCode: string }[];
 };

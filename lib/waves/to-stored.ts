@@ -21,6 +21,7 @@ export function toStoredBatch(graph: CompactGraph, plan: BatchPlan, ordersById: 
     weightG: plan.weightG,
     distanceMm: plan.route.lengthMm,
     baselineMm: plan.route.baselineMm,
+    lowerBoundMm: plan.route.lowerBoundMm,
     optimal: plan.route.optimal,
     method: plan.route.method,
     stops: plan.route.stops.map((s) => ({ accessPoint: s.accessPoint.id, x: s.accessPoint.x, y: s.accessPoint.y })),

@@ -24,8 +24,9 @@ function batch(distanceMm: number, baselineMm: number, lines: [number, number][]
     weightG: 1000,
     distanceMm,
     baselineMm,
+    lowerBoundMm: optimal ? distanceMm : 0,
     optimal,
-    method: "held-karp",
+    method: optimal ? "held-karp" : "local-search",
     stops: [],
     lines: lines.map(([orderLineId, tote], i) => ({ orderLineId, tote, stopSeq: i + 1, binCode: `B${orderLineId}` })),
   };

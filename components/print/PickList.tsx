@@ -1,6 +1,7 @@
 import { FloorPlanView } from "@/components/floor/FloorPlanView";
 import type { PickListData } from "@/lib/contracts/print";
 import { kilograms, metres, minutes } from "@/lib/format/units";
+import { routeCertificateLine } from "@/lib/format/route-certificate";
 
 export type PickListProps = PickListData;
 
@@ -42,6 +43,9 @@ export function PickList({
             {batch.stops.length} stops · {batch.lineCount} lines · {batch.toteCount} totes · {kilograms(batch.weightG)}{" "}
             · walk {metres(batch.distanceMm)} · about {minutes(seconds)}
             {estimateNote && <span className="block text-xs">Estimated {estimateNote}.</span>}
+          </p>
+          <p className="mt-1 text-sm" data-testid="route-certificate">
+            <span className="font-semibold">Route:</span> {routeCertificateLine(batch)}.
           </p>
         </div>
         <div className="w-64 max-w-full" data-testid="batch-barcode" dangerouslySetInnerHTML={{ __html: barcodeSvg }} />

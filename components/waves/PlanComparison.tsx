@@ -288,7 +288,7 @@ function PlanTable({
     {
       head: "Baseline: order by order",
       cell: (p) =>
-        `${metres(p.summary.orderByOrderMm)}, ${minutes(p.summary.orderByOrderSeconds)}${p.summary.orderByOrderOptimal ? "" : " (some trips heuristic)"}`,
+        `${metres(p.summary.orderByOrderMm)}, ${minutes(p.summary.orderByOrderSeconds)}${p.summary.orderByOrderOptimal ? "" : " (some trips not proved shortest)"}`,
     },
     { head: "Baseline: usual walk", cell: (p) => metres(p.summary.usualWalkMm) },
     { head: "Computed", cell: (p) => `${formatWhen(p.createdAt, style)}${p.createdBy ? ` by ${p.createdBy}` : ""}` },

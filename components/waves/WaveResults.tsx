@@ -6,8 +6,12 @@ import { DataTable, type DataColumn } from "@/components/DataTable";
 import type { BatchSummaryDTO } from "@/lib/contracts/batches";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
 import { estimateSeconds, type SiteTiming } from "@/lib/batching/estimate";
+import { gapPercent } from "@/lib/routing/certificate";
 
 type Row = BatchSummaryDTO & { seconds: number };
+
+// Routes with no bound sort last (Infinity − Infinity would be NaN).
+const routeGap = (b: Row) => Math.min(gapPercent({ lengthMm: b.distanceMm, lowerBoundMm: b.lowerBoundMm }), 1e9);
 
 export function WaveResults({
   waveId,
@@ -51,10 +55,12 @@ export function WaveResults({
         cell: ({ row }) => savingsPct(row.original.distanceMm, row.original.baselineMm),
       },
       {
-        id: "kind",
-        accessorFn: (b) => (b.optimal ? "exact" : "heuristic"),
+        // The words are what search finds; sorting goes by how far from the shortest a route can be.
+        id: "certificate",
+        accessorFn: (b) => b.certificate,
         header: "Route",
-        cell: ({ getValue }) => (getValue() === "exact" ? "✓ exact" : "≈ heuristic"),
+        sortFn: (a, b) => routeGap(a.original) - routeGap(b.original),
+        cell: ({ row }) => <span className="block min-w-44 text-sm">{row.original.certificate}</span>,
       },
       { accessorKey: "status", header: "Status" },
       {
@@ -75,7 +81,7 @@ export function WaveResults({
       data={batches}
       columns={columns}
       rowId={(b) => String(b.id)}
-      searchLabel="batches (route kind, status)"
+      searchLabel="batches (route, status)"
       empty="Not planned yet: plan the wave to see its batches."
       pageSize={20}
     />

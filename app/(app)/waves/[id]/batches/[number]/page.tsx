@@ -13,6 +13,7 @@ import { BatchRoute } from "@/components/waves/BatchRoute";
 import { BatchLiveStatus } from "@/components/waves/BatchLiveStatus";
 import { estimateSeconds, siteTiming, timingNote } from "@/lib/batching/estimate";
 import { kilograms, metres, minutes, savingsPct } from "@/lib/format/units";
+import { routeCertificateLine } from "@/lib/format/route-certificate";
 
 export const metadata: Metadata = { title: "Batch" };
 
@@ -54,12 +55,14 @@ export default async function BatchPage({ params }: { params: Promise<{ id: stri
           Pick list
         </Link>
       </div>
-      <p className="mt-1 mb-4 text-ink-soft">
+      <p className="mt-1 text-ink-soft">
         {batch.stops.length} stops, {batch.lineCount} lines in {batch.toteCount} totes, {kilograms(batch.weightG)}. Walk{" "}
-        {metres(batch.distanceMm)} (
-        {batch.optimal ? "exact route, proven shortest" : "heuristic route: good, not proven shortest"}) against{" "}
-        {metres(batch.baselineMm)} in the usual order: {savingsPct(batch.distanceMm, batch.baselineMm)} less. About{" "}
-        {minutes(seconds)}, {timingNote(siteTiming(site), site?.units)}.
+        {metres(batch.distanceMm)} against {metres(batch.baselineMm)} in the usual order:{" "}
+        {savingsPct(batch.distanceMm, batch.baselineMm)} less. About {minutes(seconds)},{" "}
+        {timingNote(siteTiming(site), site?.units)}.
+      </p>
+      <p className="mt-1 mb-4" data-testid="route-certificate">
+        <span className="font-semibold">Route:</span> {routeCertificateLine(batch)}.
       </p>
       <BatchLiveStatus waveId={wave.id} number={batch.number} live={wave.status === "released"} />
       <BatchRoute

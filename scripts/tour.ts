@@ -1,5 +1,6 @@
 // Solves a TSPLIB TSP/ATSP file as a closed tour from city 1 with the routing engine and prints
-// one JSON line. Usage: npx tsx scripts/tour.ts FILE [--exact-limit N]
+// one JSON line: name, n, length, optimal, method (which solver ordered the stops), lowerBound (never
+// above the shortest tour; equal to length when optimal) and ms. Usage: npx tsx scripts/tour.ts FILE [--exact-limit N]
 import { readFileSync } from "node:fs";
 import { parseTsplib } from "../lib/routing/tsplib";
 import { sequenceStops } from "../lib/routing/sequence";
@@ -17,4 +18,14 @@ const stops = Array.from({ length: inst.n - 1 }, (_, i) => i + 1);
 const t0 = performance.now();
 const r = sequenceStops(inst, { start: 0, end: 0, stops, exactLimit });
 const ms = Math.round(performance.now() - t0);
-console.log(JSON.stringify({ name: inst.name, n: inst.n, length: r.length, optimal: r.optimal, ms }));
+console.log(
+  JSON.stringify({
+    name: inst.name,
+    n: inst.n,
+    length: r.length,
+    optimal: r.optimal,
+    method: r.method,
+    lowerBound: r.lowerBound,
+    ms,
+  }),
+);

@@ -6,7 +6,7 @@ import { loadLayoutGraph } from "@/db/layout-versions";
 import { accessDistance } from "@/lib/routing/access";
 import { nodeAccessPoint, type AccessPoint, type CompactGraph } from "@/lib/routing/graph";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
-import type { StoredBatch } from "@/lib/contracts/batches";
+import type { BatchSummaryDTO, StoredBatch } from "@/lib/contracts/batches";
 import type { WavePlanDTO } from "@/lib/contracts/wave-plans";
 import { waitForJob } from "../support/jobs";
 import { TestOrders } from "../support/wave-orders";
@@ -227,13 +227,15 @@ describe("plans compared on the same orders", () => {
     expect(wave.baselineMm).toBe(chosen.summary.usualWalkMm);
     const stored = await storedBatches(chosen.id);
     expect(
-      batches.map((b: { lineCount: number; toteCount: number; distanceMm: number; baselineMm: number }) => [
+      batches.map((b: BatchSummaryDTO) => [
         b.lineCount,
         b.toteCount,
         b.distanceMm,
         b.baselineMm,
+        b.lowerBoundMm,
+        b.method,
       ]),
-    ).toEqual(stored.map((b) => [b.lineCount, b.toteCount, b.distanceMm, b.baselineMm]));
+    ).toEqual(stored.map((b) => [b.lineCount, b.toteCount, b.distanceMm, b.baselineMm, b.lowerBoundMm, b.method]));
     const lines = await db()("batch_lines as bl")
       .join("batches as b", "b.id", "bl.batch_id")
       .where("b.wave_id", waveId)

@@ -1,28 +1,19 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { api, ORIGIN, signInAs } from "../support/app";
+import { api, signInAs } from "../support/app";
 import { closeDb, db } from "@/db/knex";
-import { createWave } from "@/db/waves";
 import { loadLayoutGraph } from "@/db/layout-versions";
 import { planPick } from "@/lib/routing/plan";
 import { EXACT_LIMIT } from "@/lib/routing/sequence";
 import type { CompactGraph } from "@/lib/routing/graph";
 import type { DistanceMatrix } from "@/lib/routing/floyd-warshall";
 import type { BatchSummaryDTO } from "@/lib/contracts/batches";
-import { waitForJob } from "../support/jobs";
+import { plannedCertificateWave } from "../support/certificate-wave";
 import { TestOrders } from "../support/wave-orders";
 
 // A planned wave's batches carry their route's certificate through the API and onto the batch page
 // and the pick list: the stored bound and method are the engine's own for the stored stops (a fresh
 // planPick on the stored layout), the bound never passes the walk, and the words say which case it is.
 const TAG = `C${Date.now().toString(36).toUpperCase()}`;
-const SETTINGS = {
-  totesPerCart: 3,
-  maxLines: 32,
-  maxWeightG: 500_000,
-  method: "first-come" as const,
-  depotId: "D1",
-  dropoffId: "P1",
-};
 const PROVED = /^shortest — (proved by .+|its length meets a proved lower bound)$/;
 const BOUNDED = /^at most \d+(\.\d)? % above the shortest possible walk \(found by .+\)$/;
 const UNBOUNDED = /^found by .+; no bound on how far from the shortest it is$/;
@@ -35,34 +26,8 @@ let batches: BatchSummaryDTO[];
 
 beforeAll(async () => {
   planner = await signInAs("planner");
-  const plannerId = (await api().get("/api/session").set("Cookie", planner)).body.user.id;
   layout = await loadLayoutGraph(1);
-  const items = await fixtures.itemsOnLayout(120);
-  // Two small orders Held–Karp proves (one cart, first by cut-off), and one of 30 lines spread over the
-  // floor on a cart of its own (32 lines a cart): more stops than the exact limit.
-  const ids = [
-    await fixtures.addOrder(`${TAG}-1`, "2026-02-10T09:00:00Z", [items[3]!, items[40]!]),
-    await fixtures.addOrder(`${TAG}-2`, "2026-02-10T09:00:00Z", [items[90]!, items[102]!, items[110]!]),
-    await fixtures.addOrder(
-      `${TAG}-BIG`,
-      "2026-02-10T10:00:00Z",
-      items.filter((_, i) => i % 4 === 1),
-    ),
-  ];
-  waveId = await createWave(
-    await fixtures.siteId(),
-    { name: `Certificate test ${TAG}`, layoutVersionId: 1, settings: SETTINGS, orderIds: ids },
-    plannerId,
-  );
-  fixtures.waveIds.push(waveId);
-  const start = await api()
-    .post(`/api/waves/${waveId}/plan`)
-    .set("Cookie", planner)
-    .set("Origin", ORIGIN)
-    .send({ version: 1 });
-  expect(start.status, JSON.stringify(start.body)).toBe(202);
-  const job = await waitForJob(planner, start.body.jobId);
-  expect(job.status, job.message).toBe("done");
+  waveId = await plannedCertificateWave(fixtures, planner, TAG);
   batches = (await api().get(`/api/waves/${waveId}`).set("Cookie", planner)).body.batches;
 });
 

@@ -1,7 +1,7 @@
 import type { BatchSummaryDTO } from "@/lib/contracts/batches";
 import { metres } from "./units";
 
-type Certified = Pick<BatchSummaryDTO, "certificate" | "optimal" | "distanceMm" | "lowerBoundMm">;
+type Certified = Pick<BatchSummaryDTO, "certificate" | "optimal" | "lowerBoundMm">;
 
 /**
  * The batch page's and pick list's line on the route: the certificate, and the bound itself in metres

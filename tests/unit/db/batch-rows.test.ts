@@ -114,7 +114,7 @@ describe("a planned batch as storePlan writes it", () => {
 });
 
 describe("the route line of the batch page and the pick list", () => {
-  const base = { distanceMm: 20_500, optimal: false, certificate: "CERT" };
+  const base = { optimal: false, certificate: "CERT" };
 
   it("is the certificate alone when proved or when there is no bound", () => {
     expect(routeCertificateLine({ ...base, optimal: true, lowerBoundMm: 20_500 })).toBe("CERT");

@@ -38,7 +38,13 @@ export function chainedLocalSearch(
   const cost = new Int32Array(g * g);
   for (let a = 0; a < g; a++)
     for (let b = 0; b < g; b++) if (a !== b) cost[a * g + b] = cm.cost[last(a) * cm.n + first(b)] as number;
-  const r = localSearch({ n: g, cost }, 0, 1, Array.from({ length: groups.length }, (_, i) => i + 2), opts);
+  const r = localSearch(
+    { n: g, cost },
+    0,
+    1,
+    Array.from({ length: groups.length }, (_, i) => i + 2),
+    opts,
+  );
   const order = r.order.flatMap((i) => groups[i - 2] as number[]);
   return { order, length: walkLength(cm, start, order, end) };
 }

@@ -21,7 +21,9 @@ async function main(): Promise<void> {
     twoWay: warehouseLayout({ aisles: 12, positions: 40, crossAisles: 3, oneWay: false }),
   };
   console.log(`${batches} batches each; 12 aisles x 40 positions, 3 cross-aisles; times mean/max ms`);
-  console.log("layout   stops  bound ms      proof ms       proved  LP-bound gap: chained LS  plain LS   certified gap");
+  console.log(
+    "layout   stops  bound ms      proof ms       proved  LP-bound gap: chained LS  plain LS   certified gap",
+  );
   for (const [name, m] of [
     ["one-way", 25],
     ["one-way", 60],

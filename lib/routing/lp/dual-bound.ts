@@ -6,7 +6,10 @@ import type { TourLp } from "./model";
  * c·x = y·Ax + (c - yA)·x ≥ y·b + Σ min(0, c_j - (yA)_j). So whatever HiGHS returns, the figure
  * is valid; good duals only make it tight. Reduced costs come back too, for fixing arcs.
  */
-export function dualBound(lp: TourLp, rowDual: ArrayLike<number>): { value: number; slack: number; reduced: Float64Array } {
+export function dualBound(
+  lp: TourLp,
+  rowDual: ArrayLike<number>,
+): { value: number; slack: number; reduced: Float64Array } {
   const reduced = Float64Array.from(lp.cost);
   let value = 0;
   let magnitude = 0;

@@ -9,6 +9,7 @@ import {
   type CompactGraph,
   type CostMatrix,
   type DistanceMatrix,
+  type GridDrawing,
 } from "../../../lib/routing";
 import { buildSegments, type StopSegment } from "../../../lib/routing/segments";
 
@@ -17,8 +18,18 @@ export interface WarehouseLayout {
   dm: DistanceMatrix;
 }
 
-export function warehouseLayout(spec: { aisles: number; positions: number; crossAisles: number; oneWay: boolean }) {
-  const graph = buildGraph(
+export function layoutOf(drawing: GridDrawing): WarehouseLayout {
+  const graph = buildGraph(drawing);
+  return { graph, dm: floydWarshall(graph) };
+}
+
+export function warehouseLayout(spec: {
+  aisles: number;
+  positions: number;
+  crossAisles: number;
+  oneWay: boolean;
+}): WarehouseLayout {
+  return layoutOf(
     generateWarehouse({
       aisles: spec.aisles,
       positions: spec.positions,
@@ -27,7 +38,6 @@ export function warehouseLayout(spec: { aisles: number; positions: number; cross
       oneWayAisles: spec.oneWay,
     }),
   );
-  return { graph, dm: floydWarshall(graph) };
 }
 
 export interface WarehouseBatch {
@@ -35,6 +45,8 @@ export interface WarehouseBatch {
   start: number;
   end: number;
   stops: number[];
+  /** Access point of each matrix index. */
+  points: AccessPoint[];
   segments: StopSegment[];
 }
 
@@ -52,5 +64,5 @@ export function warehouseBatch(layout: WarehouseLayout, m: number, seed: number,
   ];
   const cm = accessCostMatrix(graph, dm, points);
   const stops = codes.map((_, i) => i + 2);
-  return { cm, start: 0, end: 1, stops, segments: buildSegments(graph, points, stops, [0, 1]) };
+  return { cm, start: 0, end: 1, stops, points, segments: buildSegments(graph, points, stops, [0, 1]) };
 }

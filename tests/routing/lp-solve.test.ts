@@ -176,10 +176,16 @@ describe("lpRoute on random asymmetric matrices", () => {
           const hk = heldKarp(cm, 0, end, stops).length;
           const bound = lpRoute(cm, { start: 0, end, stops }, { integer: false, maxRounds });
           expect(bound.lowerBound).toBeLessThanOrEqual(hk);
-          const full = lpRoute(cm, { start: 0, end, stops });
-          expect(full.proved).toBe(true);
-          expect(full.length).toBe(hk);
-          expect(walkLength(cm, 0, full.order!, end)).toBe(hk);
+          const upperOrder = localSearch(cm, 0, end, stops, { kicks: 0 }).order;
+          for (const full of [
+            lpRoute(cm, { start: 0, end, stops }),
+            lpRoute(cm, { start: 0, end, stops }, { upperOrder }),
+          ]) {
+            expect(full.proved).toBe(true);
+            expect(full.length).toBe(hk);
+            expect(full.lowerBound).toBe(hk);
+            expect(walkLength(cm, 0, full.order!, end)).toBe(hk);
+          }
         },
       ),
       { numRuns: 150, seed: 20261203 },

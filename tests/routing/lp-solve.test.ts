@@ -193,6 +193,19 @@ describe("lpRoute on random asymmetric matrices", () => {
   });
 });
 
+describe("lpRoute with a time cap on the integer rounds", () => {
+  it("returns either the Held–Karp optimum proved or an unproved bound below it", () => {
+    for (let seed = 1; seed <= 6; seed++) {
+      const cm = randomInstance(16, 900 + seed, false);
+      const stops = Array.from({ length: 14 }, (_, i) => i + 2);
+      const hk = heldKarp(cm, 0, 1, stops).length;
+      const r = lpRoute(cm, { start: 0, end: 1, stops }, { integerTimeLimitMs: 0.01 });
+      expect(r.lowerBound).toBeLessThanOrEqual(hk);
+      if (r.proved) expect(r.length).toBe(hk);
+    }
+  });
+});
+
 describe("HiGHS heap recycling", () => {
   it("drops the instance past the budget and loads a fresh one on demand", async () => {
     const before = highsSolver();

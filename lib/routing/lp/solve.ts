@@ -27,6 +27,11 @@ export interface LpRouteOptions {
   maxRounds?: number;
   /** Go on to integer rounds when the LP bound alone does not prove the upper bound (default true). */
   integer?: boolean;
+  /**
+   * Optional wall-clock cap on the integer rounds (HiGHS time_limit, counted over all of them);
+   * when it runs out the LP bound is returned unproved. Off by default: results then depend on the machine.
+   */
+  integerTimeLimitMs?: number;
 }
 
 export interface LpRouteResult {
@@ -235,6 +240,10 @@ function run(
     );
   const n = lp.colArc.length;
   model.options.set({ presolve: "choose", mip_rel_gap: 0 });
+  if (opts.integerTimeLimitMs !== undefined) {
+    model.zeroAllClocks();
+    model.options.set({ time_limit: opts.integerTimeLimitMs / 1000 });
+  }
   // The same limit as a cutoff lets branch and bound discard nodes no better than the upper bound.
   if (Number.isFinite(limit)) model.options.set({ objective_bound: limit + 0.5 });
   model.changeColsIntegrality({ kind: "range", from: 0, to: n - 1 }, new Int32Array(n).fill(1) as Int32Array);

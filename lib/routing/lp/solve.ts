@@ -93,12 +93,14 @@ function isIntegral(x: ArrayLike<number>): boolean {
 }
 
 /**
- * Shortest start → stops → end by linear programming: the assignment LP tightened with subtour
- * cuts (components of the support graph, then min-cut separation) until none is violated. Its
- * bound, from the duals (see dual-bound.ts) and rounded up because costs are whole millimetres,
- * proves the upper order when it reaches it. If not, arcs whose reduced cost shows they cannot
- * sit in any tour no longer than the upper bound are fixed to 0, and integer rounds add cuts
- * against each subtour the integer solution shows, until it is one tour: then that tour is shortest.
+ * Shortest start → stops → end by linear programming: the assignment LP, started on each node's
+ * cheapest arcs and priced out over all of them, tightened with subtour cuts (components of the
+ * support graph, then min-cut separation) until none is violated. Its bound, from the duals (see
+ * dual-bound.ts) and rounded up to the costs' common divisor, proves the upper order when it
+ * reaches it. If not, arcs whose reduced cost shows they cannot sit in a tour shorter than the
+ * upper order (or no longer than upperLength, without an order) are left out, and integer rounds
+ * add cuts against each subtour the integer solution shows, until it is one tour, then shortest;
+ * or until no integer point is left within the limit, which proves the upper order.
  */
 export function lpRoute(cm: CostMatrix, req: LpRouteRequest, opts: LpRouteOptions = {}): LpRouteResult {
   const stops = [...new Set(req.stops)];

@@ -59,6 +59,11 @@ export function setSplitHelper(h: SplitHelper | null): void {
   helper = h;
 }
 
+/** The registered helper, so a bench can set it aside for one-thread runs and put it back. */
+export function splitHelper(): SplitHelper | null {
+  return helper;
+}
+
 /** Whether heldKarp on m stops would split the table over two threads right now. */
 export function heldKarpSplits(m: number): boolean {
   return m >= SPLIT_MIN_STOPS && helper !== null && helper.ready();
@@ -85,7 +90,6 @@ export function splitFill(
   const plan = chunkPlan(m);
   const job: SplitJob = { m, dp: t.dp, into: sharedInto, control: shared(CONTROL_WORDS), ...plan.chunks };
   const { control } = job;
-  const members = new Int32Array(m);
   h.post(job);
 
   let masksDone = m;
@@ -94,10 +98,10 @@ export function splitFill(
     Atomics.store(control, END, end);
     Atomics.store(control, LAYER, k);
     Atomics.notify(control, LAYER);
-    claimChunks(job, t, members);
+    claimChunks(job, t);
     if (!awaitLayer(control, end)) {
       h.lost();
-      for (let g = plan.layerEnd[k - 1] as number; g < end; g++) runChunk(job, t, members, g);
+      for (let g = plan.layerEnd[k - 1] as number; g < end; g++) runChunk(job, t, g);
     }
     masksDone += plan.layerMasks[k] as number;
     onProgress?.(masksDone / 2 ** m);
@@ -110,34 +114,33 @@ export function splitFill(
 /** The helper thread's side: claims chunks of each layer as it opens, until the table is full. */
 export function serveSplitJob(job: SplitJob): void {
   const t = packedTable(job.m, job.into, job.dp);
-  const members = new Int32Array(job.m);
   let seen = 0;
   while (true) {
     Atomics.wait(job.control, LAYER, seen);
     const layer = Atomics.load(job.control, LAYER);
     if (layer < 0) return;
     seen = layer;
-    claimChunks(job, t, members);
+    claimChunks(job, t);
     Atomics.notify(job.control, DONE);
   }
 }
 
-function claimChunks(job: SplitJob, t: PackedTable, members: Int32Array): void {
+function claimChunks(job: SplitJob, t: PackedTable): void {
   const { control } = job;
   while (true) {
     const g = Atomics.load(control, CLAIM);
     if (g >= Atomics.load(control, END)) return;
     // compareExchange, not add: an add past END would take a chunk of a layer not yet open.
     if (Atomics.compareExchange(control, CLAIM, g, g + 1) !== g) continue;
-    runChunk(job, t, members, g);
+    runChunk(job, t, g);
     Atomics.add(control, DONE, 1);
   }
 }
 
-function runChunk(job: SplitJob, t: PackedTable, members: Int32Array, g: number): void {
+function runChunk(job: SplitJob, t: PackedTable, g: number): void {
   let mask = job.chunkStart[g] as number;
   for (let n = job.chunkLength[g] as number; n > 0; n--) {
-    relaxMask(t, mask, members);
+    relaxMask(t, mask);
     mask = nextCombination(mask);
   }
   job.chunkDone[g] = 1;

@@ -8,13 +8,22 @@ import { UNREACHABLE } from "./constants";
 export interface PackedTable {
   m: number;
   dp: Int32Array;
-  /** into[j * m + i] = cost i → j, so the inner loop over predecessors reads one row. */
+  /** into[j * m + i] = cost i → j. */
   into: Int32Array;
-  /** Two-level offset table (see rowOffset): 2^lowBits entries each instead of 2^m. */
+  /** Masks split as hi·2^lowBits + lo; the offset tables below have 2^lowBits or 2^(m - lowBits) entries, not 2^m. */
   lowBits: number;
   hiBase: Int32Array;
   hiCount: Int32Array;
+  hiPrefix: Int32Array;
   loBase: Int32Array;
+  loCount: Int32Array;
+  /**
+   * intoLo[loBase[lo] * m + j * popcount(lo) + c] = cost from the c-th stop of lo to j, and intoHi
+   * likewise for the high half: for any subset, the arcs into j from its stops, in row order, are
+   * one run in each, so the inner loop reads two arrays straight through and gathers nothing.
+   */
+  intoLo: Int32Array;
+  intoHi: Int32Array;
 }
 
 /** Entries in the packed table for m stops. */
@@ -25,26 +34,36 @@ export function packedEntries(m: number): number {
 /**
  * Offsets for the masks split as hi·2^L + lo: every mask below it sums to
  * 2^L·F(hi) + hi·L·2^(L-1) + lo·popcount(hi) + F(lo), with F(x) the popcount total below x.
- * Three small tables stay in cache, where a flat 2^m table (16 MiB at 22 stops) would not.
+ * The small tables stay in cache, where a flat 2^m table (16 MiB at 22 stops) would not.
  */
 export function packedTable(m: number, into: Int32Array, dp: Int32Array): PackedTable {
   const lowBits = Math.max(1, Math.ceil(m / 2));
   const size = 1 << lowBits;
   const hiSize = 1 << Math.max(0, m - lowBits);
-  const prefix = (n: number) => {
-    const f = new Int32Array(n);
-    for (let x = 1; x < n; x++) f[x] = (f[x - 1] as number) + popcount(x - 1);
+  const counts = (n: number) => Int32Array.from({ length: n }, (_, x) => popcount(x));
+  const prefix = (count: Int32Array) => {
+    const f = new Int32Array(count.length + 1);
+    for (let x = 0; x < count.length; x++) f[x + 1] = (f[x] as number) + (count[x] as number);
     return f;
   };
-  const loBase = prefix(size);
-  const hiF = prefix(hiSize);
+  const loCount = counts(size);
+  const hiCount = counts(hiSize);
+  const loBase = prefix(loCount);
+  const hiPrefix = prefix(hiCount);
   const hiBase = new Int32Array(hiSize);
-  const hiCount = new Int32Array(hiSize);
-  for (let h = 0; h < hiSize; h++) {
-    hiBase[h] = size * (hiF[h] as number) + h * lowBits * (size >> 1);
-    hiCount[h] = popcount(h);
-  }
-  return { m, dp, into, lowBits, hiBase, hiCount, loBase };
+  for (let h = 0; h < hiSize; h++) hiBase[h] = size * (hiPrefix[h] as number) + h * lowBits * (size >> 1);
+  const half = (n: number, count: Int32Array, base: Int32Array, first: number) => {
+    const out = new Int32Array((base[n] as number) * m);
+    for (let x = 0; x < n; x++) {
+      let at = (base[x] as number) * m;
+      for (let j = 0; j < m; j++)
+        for (let b = x; b !== 0; b &= b - 1) out[at++] = into[j * m + first + 31 - Math.clz32(b & -b)] as number;
+    }
+    return out;
+  };
+  const intoLo = half(size, loCount, loBase, 0);
+  const intoHi = half(hiSize, hiCount, hiPrefix, lowBits);
+  return { m, dp, into, lowBits, hiBase, hiCount, hiPrefix, loBase, loCount, intoLo, intoHi };
 }
 
 export function popcount(x: number): number {
@@ -64,34 +83,38 @@ export function entryIndex(t: PackedTable, mask: number, j: number): number {
   return rowOffset(t, mask) + popcount(mask & ((1 << j) - 1));
 }
 
-/**
- * Fills the row of `mask` (two or more stops) from the rows of its subsets one stop smaller.
- * `members` is scratch of length m.
- */
-export function relaxMask(t: PackedTable, mask: number, members: Int32Array): void {
-  const { dp, into, m } = t;
-  let p = 0;
-  for (let b = mask; b !== 0; b &= b - 1) members[p++] = 31 - Math.clz32(b & -b);
-  const row = rowOffset(t, mask);
-  for (let a = 0; a < p; a++) {
-    const j = members[a] as number;
-    const col = j * m;
-    // The row of mask without j lacks j itself, so members after a sit one place earlier in it.
-    const base = rowOffset(t, mask ^ (1 << j));
+/** Fills the row of `mask` (two or more stops) from the rows of its subsets one stop smaller. */
+export function relaxMask(t: PackedTable, mask: number): void {
+  const { dp, m, lowBits, hiBase, hiCount, hiPrefix, loBase, loCount, intoLo, intoHi } = t;
+  const hi = mask >>> lowBits;
+  const lo = mask & ((1 << lowBits) - 1);
+  let out = (hiBase[hi] as number) + (hiCount[hi] as number) * lo + (loBase[lo] as number);
+  for (let b = mask; b !== 0; b &= b - 1) {
+    const j = 31 - Math.clz32(b & -b);
+    // The row of mask without j: its low-half stops come first, then its high-half stops.
+    const prev = mask ^ (1 << j);
+    const ph = prev >>> lowBits;
+    const pl = prev & ((1 << lowBits) - 1);
+    const nLo = loCount[pl] as number;
+    const nHi = hiCount[ph] as number;
+    const base = (hiBase[ph] as number) + nHi * pl + (loBase[pl] as number);
+    const fromLo = (loBase[pl] as number) * m + j * nLo;
+    const fromHi = (hiPrefix[ph] as number) * m + j * nHi;
     let best = UNREACHABLE;
-    for (let c = 0; c < a; c++) {
+    for (let c = 0; c < nLo; c++) {
       // Both terms are at most UNREACHABLE (2^30 - 1), so s and s - best stay inside Int32;
       // the branch-free min is about twice as fast here as an if (unpredictable branch).
-      const s = (dp[base + c] as number) + (into[col + (members[c] as number)] as number);
+      const s = (dp[base + c] as number) + (intoLo[fromLo + c] as number);
       const diff = s - best;
       best += diff & (diff >> 31);
     }
-    for (let c = a + 1; c < p; c++) {
-      const s = (dp[base + c - 1] as number) + (into[col + (members[c] as number)] as number);
+    const baseHi = base + nLo;
+    for (let c = 0; c < nHi; c++) {
+      const s = (dp[baseHi + c] as number) + (intoHi[fromHi + c] as number);
       const diff = s - best;
       best += diff & (diff >> 31);
     }
-    dp[row + a] = best;
+    dp[out++] = best;
   }
 }
 

@@ -72,10 +72,9 @@ function fill(
   const t = packedTable(m, into, new Int32Array(packedEntries(m)));
   for (let j = 0; j < m; j++) t.dp[entryIndex(t, 1 << j, j)] = fromStart(j);
   const full = (1 << m) - 1;
-  const members = new Int32Array(m);
   const every = 1 << 16;
   for (let mask = 3; mask <= full; mask++) {
-    if ((mask & (mask - 1)) !== 0) relaxMask(t, mask, members);
+    if ((mask & (mask - 1)) !== 0) relaxMask(t, mask);
     if (onProgress && (mask & (every - 1)) === 0) onProgress(mask / full);
   }
   return t;

@@ -68,17 +68,20 @@ describe("packed Held–Karp table", () => {
   });
 });
 
-describe("Held–Karp split over layers", () => {
+describe("Held–Karp split over two threads", () => {
   const cm = withMissingArcs(randomInstance(20, 1818, false), 18, 0.3);
   const stops = stopsFrom(2, 18);
 
-  // Source: the one-thread fill in increasing mask order (no helper registered).
-  it("layer by layer on the calling thread alone equals the one-thread fill (a helper that never claims)", () => {
+  // Source: the one-thread fill (no helper registered).
+  it("with a helper that never answers, the caller fills the helper's rows itself and writes it off", () => {
     const oneThread = heldKarp(cm, 0, 1, stops);
-    setSplitHelper({ ready: () => true, post: () => {}, lost: () => {} });
+    let lost = false;
+    setSplitHelper({ ready: () => !lost, post: () => {}, lost: () => (lost = true) });
     try {
       expect(heldKarpSplits(18)).toBe(true);
       expect(heldKarp(cm, 0, 1, stops)).toEqual(oneThread);
+      expect(lost).toBe(true);
+      expect(heldKarpSplits(18)).toBe(false);
     } finally {
       setSplitHelper(null);
     }

@@ -11,7 +11,7 @@ import { localSearch } from "./local-search";
 
 /**
  * Largest batch sequenced exactly by default. Chosen from docs/benchmarks.md: 20 stops take well
- * under a second and 80 MiB of DP table on the 2-core bench machine; 21 doubles both, 22 quadruples.
+ * under a second and 40 MiB of DP table on the 2-core bench machine; 21 doubles both, 22 quadruples.
  */
 export const EXACT_LIMIT = 20;
 

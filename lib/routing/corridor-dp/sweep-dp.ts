@@ -40,27 +40,41 @@ export function runSweep(inst: CorridorInstance, plan: SweepPlan, maxStates: num
   const base = new Int32Array(16);
   const t = new Int32Array(16);
   const removed = new Uint8Array(16);
+  // remap[c] is valid only where seen[c] holds the current stamp, so it never needs clearing.
   const remap = new Int32Array(16);
+  const seen = new Int32Array(16);
+  let stamp = 0;
+  const req = new Uint8Array(16);
+  const odd = new Uint8Array(16);
 
   for (let i = 0; i < n; i++) {
     const st = steps[i]!;
     const opts = edgeOptions(inst.edges[st.edge]!);
     const w = st.work.length;
+    const pw = st.prevWidth;
     const { uPos, vPos, leaving } = st;
+    for (let q = 0; q < w; q++) {
+      req[q] = inst.required[st.work[q]!]!;
+      odd[q] = inst.oddTarget[st.work[q]!]!;
+    }
+    const nothingAhead = ahead[i + 1] === 0;
     const next = new StateLayer(Math.max(64, layer.size));
     for (let s = 0; s < layer.size; s++) {
       const lo = layer.lo[s]!;
       const hi = layer.hi[s]!;
       const cost = layer.cost[s]!;
-      for (let p = 0; p < st.prevWidth; p++) {
+      for (let p = 0; p < pw; p++) {
         base[p] = p < PER_HALF ? (lo >>> (5 * p)) & 31 : (hi >>> (5 * (p - PER_HALF))) & 31;
       }
-      for (let p = st.prevWidth; p < w; p++) base[p] = 0;
+      for (let p = pw; p < w; p++) base[p] = 0;
 
-      for (const o of opts) {
-        t.set(base);
-        if (o.du > 0) t[uPos] = t[uPos] === 0 ? (FRESH_U << 1) | (o.du & 1) : t[uPos]! ^ (o.du & 1);
-        if (o.dv > 0) t[vPos] = t[vPos] === 0 ? (FRESH_V << 1) | (o.dv & 1) : t[vPos]! ^ (o.dv & 1);
+      for (let k = 0; k < opts.length; k++) {
+        const o = opts[k]!;
+        for (let q = 0; q < w; q++) t[q] = base[q]!;
+        const du = o.du;
+        const dv = o.dv;
+        if (du > 0) t[uPos] = t[uPos] === 0 ? (FRESH_U << 1) | (du & 1) : t[uPos]! ^ (du & 1);
+        if (dv > 0) t[vPos] = t[vPos] === 0 ? (FRESH_V << 1) | (dv & 1) : t[vPos]! ^ (dv & 1);
         if (o.joins) {
           const cu = t[uPos]! >> 1;
           const cv = t[vPos]! >> 1;
@@ -71,23 +85,22 @@ export function runSweep(inst: CorridorInstance, plan: SweepPlan, maxStates: num
         // only with their final parity; a component leaving entirely must be the whole walk.
         let ok = true;
         let closed = false;
-        removed.fill(0, 0, w);
-        for (const p of leaving) {
-          const x = st.work[p]!;
+        for (let q = 0; q < w; q++) removed[q] = 0;
+        for (let l = 0; l < leaving.length; l++) {
+          const p = leaving[l]!;
           const code = t[p]!;
           removed[p] = 1;
           if (code === 0) {
-            if (inst.required[x]) ok = false;
-          } else if ((code & 1) !== inst.oddTarget[x]) ok = false;
+            if (req[p]) ok = false;
+          } else if ((code & 1) !== odd[p]) ok = false;
           else {
             const c = code >> 1;
             let alive = false;
             for (let q = 0; q < w && !alive; q++) if (!removed[q] && t[q]! >> 1 === c) alive = true;
             if (!alive) {
               closed = true;
-              for (let q = 0; q < w && ok; q++)
-                if (!removed[q] && (t[q] !== 0 || inst.required[st.work[q]!])) ok = false;
-              if (ahead[i + 1]! > 0) ok = false;
+              ok = nothingAhead;
+              for (let q = 0; q < w && ok; q++) if (!removed[q] && (t[q] !== 0 || req[q])) ok = false;
             }
           }
           if (!ok || closed) break;
@@ -104,7 +117,7 @@ export function runSweep(inst: CorridorInstance, plan: SweepPlan, maxStates: num
           continue;
         }
 
-        remap.fill(0);
+        stamp++;
         let ids = 0;
         let nlo = 0;
         let nhi = 0;
@@ -114,7 +127,10 @@ export function runSweep(inst: CorridorInstance, plan: SweepPlan, maxStates: num
           let code = t[q]!;
           if (code !== 0) {
             const c = code >> 1;
-            if (remap[c] === 0) remap[c] = ++ids;
+            if (seen[c] !== stamp) {
+              seen[c] = stamp;
+              remap[c] = ++ids;
+            }
             code = (remap[c]! << 1) | (code & 1);
           }
           if (r < PER_HALF) nlo |= code << (5 * r);
@@ -123,8 +139,8 @@ export function runSweep(inst: CorridorInstance, plan: SweepPlan, maxStates: num
         }
         next.offer(nlo, nhi, total, s, o.use);
       }
+      if (next.size > maxStates) return { tooManyStates: true };
     }
-    if (next.size > maxStates) return { tooManyStates: true };
     parents.push(next.parent.slice(0, next.size));
     usesAt.push(next.use.slice(0, next.size));
     layer = next;

@@ -9,7 +9,7 @@ import type { DistanceMatrix } from "./floyd-warshall";
 import type { AccessPoint, CompactGraph } from "./graph";
 import { nodeAccessPoint } from "./graph";
 import type { SequenceRequest } from "./sequence";
-import { sequenceStops } from "./sequence";
+import { sequenceOnFloor } from "./floor-sequence";
 
 export interface PickRequest {
   /** Depot id from the drawing. */
@@ -95,7 +95,7 @@ export function planPick(
 
   let r;
   try {
-    r = sequenceStops(cm, { start: 0, end: 1, stops: stopIdx, ...options });
+    r = sequenceOnFloor(graph, points, cm, { start: 0, end: 1, stops: stopIdx, ...options });
   } catch (e) {
     if (e instanceof UnreachableStopError) {
       const codes = e.stops.flatMap((s) => (s >= 2 ? (codesAt.get(apIds[s - 2] as number) ?? []) : [req.to]));

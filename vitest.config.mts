@@ -8,6 +8,7 @@ const root = import.meta.dirname;
 export default defineConfig({
   resolve: { alias: { "@": root, "server-only": path.join(root, "tests/support/server-only.ts") } },
   test: {
+    setupFiles: ["tests/support/load-solvers.ts"],
     projects: [
       {
         extends: true,

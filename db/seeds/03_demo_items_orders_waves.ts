@@ -2,6 +2,7 @@ import type { Knex } from "knex";
 import { DEMO_SITE } from "./demo/accounts";
 import { demoItems, demoOrders, DEMO_CART_LIMITS, type DemoOrder } from "./demo/orders";
 import { batchOrders } from "../../lib/batching/batching";
+import { loadHighs } from "../../lib/routing/lp/highs";
 import { toStoredBatch } from "../../lib/waves/to-stored";
 import { loadLayoutGraph } from "../layout-versions";
 import { createWave, releaseWave, getWave } from "../waves";
@@ -113,6 +114,7 @@ export async function seed(knex: Knex): Promise<void> {
           })),
         };
       });
+      await loadHighs();
       const result = batchOrders(graph, matrix, planned, DEMO_CART_LIMITS, {
         method: "savings",
         from: settings.depotId,

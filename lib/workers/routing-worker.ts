@@ -2,8 +2,9 @@
 import { startHeldKarpHelper } from "./held-karp-threads";
 import { runTask } from "./routing-tasks";
 import { serveTasks } from "./serve-tasks";
+import { serveWhenSolversLoaded } from "./solvers-ready";
 
 // Large Held–Karp tables (18+ stops) are shared with a second thread once it has loaded, where the
 // machine has a second core; until then, and on one core, they run on this thread alone.
 void startHeldKarpHelper();
-serveTasks(runTask);
+serveWhenSolversLoaded(() => serveTasks(runTask));

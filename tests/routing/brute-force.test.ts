@@ -54,12 +54,15 @@ describe("local search", () => {
     }
   });
 
-  it("is used above the exact limit and labelled heuristic", () => {
+  it("is used above the exact limit and leaves with the LP's bound, or its proof", () => {
     const cm = randomInstance(30, 7, false);
     const stops = Array.from({ length: 28 }, (_, i) => i + 2);
     const r = sequenceStops(cm, { start: 0, end: 1, stops });
-    expect(r.optimal).toBe(false);
-    expect(r.method).toBe("local-search");
+    expect(r.length).toBe(walkLength(cm, 0, r.order, 1));
+    expect(r.lowerBound).toBeGreaterThan(0);
+    expect(r.lowerBound).toBeLessThanOrEqual(r.length);
+    expect(r.optimal).toBe(r.lowerBound === r.length);
+    expect(r.method).toBe(r.optimal ? "lp-cuts" : "local-search");
     expect(sequenceStops(cm, { start: 0, end: 1, stops, heuristic: { seed: 3 } })).toEqual(
       sequenceStops(cm, { start: 0, end: 1, stops, heuristic: { seed: 3 } }),
     );

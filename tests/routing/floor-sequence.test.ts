@@ -45,38 +45,29 @@ describe("planPick's choice of method", () => {
     }
   });
 
+  // No upper order and no pruning for the second opinion: the LP must find the optimum on its own.
   it.each([
-    { m: 24, seed: 1, closed: false },
-    { m: 30, seed: 2, closed: true },
-    { m: 36, seed: 3, closed: false },
-  ])("two-way, $m stops: the corridor sweep's route is the LP's optimum too", ({ m, seed, closed }) => {
-    const p = planned(twoWay, m, 900 + seed, closed ? "D1" : "P1");
-    expect(p.method).toBe("corridor-dp");
-    expect(p.optimal).toBe(true);
-    const cm = matrixOf(twoWay, p, closed);
-    const stops = p.stops.map((_, i) => i + 2);
-    expect(walkLength(cm, 0, stops, 1)).toBe(p.lengthMm);
-    // No upper order and no pruning: the LP must find the optimum on its own.
-    const lp = lpRoute(cm, { start: 0, end: 1, stops });
-    expect(lp.proved).toBe(true);
-    expect(lp.length).toBe(p.lengthMm);
-  });
-
-  it.each([
-    { m: 30, seed: 4, closed: false },
-    { m: 45, seed: 5, closed: true },
-    { m: 60, seed: 6, closed: false },
-  ])("one-way, $m stops: proved by the LP, and no unpruned LP finds a shorter walk", ({ m, seed, closed }) => {
-    const p = planned(oneWay, m, 1900 + seed, closed ? "D1" : "P1");
-    expect(p.method).toBe("lp-cuts");
-    expect(p.optimal).toBe(true);
-    const cm = matrixOf(oneWay, p, closed);
-    const stops = p.stops.map((_, i) => i + 2);
-    expect(walkLength(cm, 0, stops, 1)).toBe(p.lengthMm);
-    const lp = lpRoute(cm, { start: 0, end: 1, stops });
-    expect(lp.proved).toBe(true);
-    expect(lp.length).toBe(p.lengthMm);
-  });
+    { floor: "two-way", m: 24, seed: 901, closed: false, method: "corridor-dp" },
+    { floor: "two-way", m: 30, seed: 902, closed: true, method: "corridor-dp" },
+    { floor: "two-way", m: 36, seed: 903, closed: false, method: "corridor-dp" },
+    { floor: "one-way", m: 30, seed: 1904, closed: false, method: "lp-cuts" },
+    { floor: "one-way", m: 45, seed: 1905, closed: true, method: "lp-cuts" },
+    { floor: "one-way", m: 60, seed: 1906, closed: false, method: "lp-cuts" },
+  ])(
+    "$floor, $m stops: proved by $method, and the unpruned LP finds no shorter walk",
+    ({ floor, m, seed, closed, method }) => {
+      const layout = floor === "two-way" ? twoWay : oneWay;
+      const p = planned(layout, m, seed, closed ? "D1" : "P1");
+      expect(p.method).toBe(method);
+      expect(p.optimal).toBe(true);
+      const cm = matrixOf(layout, p, closed);
+      const stops = p.stops.map((_, i) => i + 2);
+      expect(walkLength(cm, 0, stops, 1)).toBe(p.lengthMm);
+      const lp = lpRoute(cm, { start: 0, end: 1, stops });
+      expect(lp.proved).toBe(true);
+      expect(lp.length).toBe(p.lengthMm);
+    },
+  );
 
   it("gives the same route each time (a re-plan never moves a picker's stops)", () => {
     const a = planned(oneWay, 40, 77);

@@ -20,6 +20,7 @@ import {
   type CorridorCase,
 } from "./helpers/corridor-cases";
 import { permutations } from "./helpers/instances";
+import { obstructedWarehouse } from "./helpers/layouts";
 
 function solved(r: CorridorResult): { order: number[]; lengthMm: number } {
   if ("skipped" in r) throw new Error(`skipped: ${r.skipped}`);
@@ -77,6 +78,20 @@ describe("corridor sweep DP against Held–Karp (lib/routing/held-karp.ts)", () 
       checked++;
     }
     expect(checked).toBe(60);
+  });
+
+  it("equals Held–Karp on obstructed warehouses (helpers/layouts.ts) with their one-way marks cleared", () => {
+    for (let seed = 1; seed <= 30; seed++) {
+      const d = obstructedWarehouse(seed);
+      d.oneWay = d.oneWay.map(() => null);
+      const { graph, dm } = published(d);
+      const rand = mulberry32(seed);
+      const depot = nodeAccessPoint(graph, graph.depots[0]!.node);
+      const pts = reachablePoints(graph, dm, depot);
+      const end = seed % 2 === 0 ? depot : pick(rand, pts);
+      const stops = [...new Set(Array.from({ length: 4 + (seed % 11) }, () => pick(rand, pts)))];
+      expectHeldKarp(caseOf(graph, dm, depot, end, stops));
+    }
   });
 
   it("equals Held–Karp on irregular small drawings, stops on nodes and on edges", () => {
@@ -160,6 +175,9 @@ describe("corridor sweep DP edge cases (each checked against Held–Karp)", () =
   it("skips layouts with one-way edges and says why", () => {
     const oneWay = generateWarehouse({ aisles: 4, positions: 8, levels: 1, crossAisles: 3, oneWayAisles: true });
     expect(corridorSweep(batchCase(oneWay, 5, 1, "D1", "P1"))).toEqual({ skipped: "one-way" });
+    const obstructed = obstructedWarehouse(2);
+    expect(published(obstructed).graph.edges.some((e) => e.oneWay)).toBe(true);
+    expect(corridorSweep(batchCase(obstructed, 5, 2, "D1", "D1"))).toEqual({ skipped: "one-way" });
   });
 
   it("gives up with front-too-wide when a front holds more states than allowed", () => {
